@@ -1,0 +1,35 @@
+/**
+ * Tauforge command line: `npm run -s cli -- COMMAND [flags]`.
+ * Results go to stdout; errors go to stderr with a non-zero exit code.
+ * Each command family registers itself from its own module.
+ */
+import { Command, CommanderError } from 'commander';
+import { registerTilingCommands } from './tiling';
+import { registerDiffractCommands } from './diffract';
+import { CliError } from './errors';
+
+const program = new Command();
+program
+  .name('tauforge')
+  .description('Build, check, export and diffract quasicrystal models and approximants.')
+  .exitOverride()
+  .showHelpAfterError(false)
+  .configureOutput({ writeErr: (s) => process.stderr.write(s) });
+
+registerTilingCommands(program);
+registerDiffractCommands(program);
+
+async function main() {
+  try {
+    await program.parseAsync(process.argv);
+  } catch (err) {
+    if (err instanceof CommanderError) {
+      process.exit(err.exitCode === 0 ? 0 : 2);
+    }
+    const message = err instanceof Error ? err.message : String(err);
+    process.stderr.write(`error: ${message}\n`);
+    process.exit(err instanceof CliError ? err.exitCode : 1);
+  }
+}
+
+void main();
