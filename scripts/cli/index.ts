@@ -5,6 +5,7 @@
  */
 import { Command, CommanderError } from 'commander';
 import { registerTilingCommands } from './tiling';
+import { registerSolidCommands } from './solid';
 import { registerDiffractCommands } from './diffract';
 import { CliError } from './errors';
 
@@ -13,10 +14,10 @@ program
   .name('tauforge')
   .description('Build, check, export and diffract quasicrystal models and approximants.')
   .exitOverride()
-  .showHelpAfterError(false)
   .configureOutput({ writeErr: (s) => process.stderr.write(s) });
 
 registerTilingCommands(program);
+registerSolidCommands(program);
 registerDiffractCommands(program);
 
 async function main() {

@@ -1,6 +1,6 @@
 import type { Command } from 'commander';
 
-/** convergents, chain, tiling, patch, approximant — owned by the tiling engine. */
+/** convergents, chain, tiling — owned by the 1D/2D tiling engine. */
 export function registerTilingCommands(program: Command): void {
   void program;
 }
