@@ -1,1 +1,4 @@
 export * from './types';
+export * from './elements';
+export * from './cell';
+export * from './validate';

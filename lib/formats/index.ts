@@ -1,0 +1,4 @@
+export * from './errors';
+export * from './number';
+export * from './xyz';
+export * from './json';
