@@ -2,3 +2,4 @@ export * from './errors';
 export * from './number';
 export * from './xyz';
 export * from './json';
+export * from './extxyz';
