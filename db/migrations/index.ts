@@ -1,0 +1,19 @@
+/**
+ * The ordered list of migrations. Knex reads them from here (not by scanning the folder), so the same
+ * TypeScript modules load under tsx, vitest and the Next.js server alike. Add new files at the end.
+ */
+import type { Knex } from 'knex';
+import * as m20261201000000 from './20261201000000_initial_schema';
+
+interface Migration {
+  up(knex: Knex): Promise<void>;
+  down(knex: Knex): Promise<void>;
+}
+
+export const migrations: [string, Migration][] = [['20261201000000_initial_schema.ts', m20261201000000]];
+
+export const migrationSource: Knex.MigrationSource<[string, Migration]> = {
+  getMigrations: async () => migrations,
+  getMigrationName: ([name]) => name,
+  getMigration: async ([, m]) => m,
+};

@@ -1,0 +1,21 @@
+import { chromium, type Browser, type Page } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+
+export const baseUrl = process.env.TAUFORGE_BASE_URL ?? 'http://127.0.0.1:3000';
+export const artifacts = path.join(path.dirname(new URL(import.meta.url).pathname), 'artifacts');
+
+/** Debian's Chromium, never a downloaded browser; WebGL2 through SwiftShader in software. */
+export async function launch(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.TAUFORGE_CHROMIUM ?? '/usr/bin/chromium',
+    args: ['--use-angle=swiftshader', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run'],
+  });
+}
+
+export async function screenshot(page: Page, name: string): Promise<string> {
+  mkdirSync(artifacts, { recursive: true });
+  const file = path.join(artifacts, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}
