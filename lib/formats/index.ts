@@ -3,3 +3,7 @@ export * from './number';
 export * from './xyz';
 export * from './json';
 export * from './extxyz';
+export * from './cif-syntax';
+export * from './symop';
+export * from './cif';
+export * from './read';

@@ -1,0 +1,56 @@
+/** A symmetry operation in fractional coordinates: x' = R·x + t (R row-major 3×3). */
+export interface SymOp {
+  rot: [number, number, number, number, number, number, number, number, number];
+  trans: [number, number, number];
+}
+
+/**
+ * Parse a symmetry operation written as in CIF `_space_group_symop_operation_xyz`, e.g.
+ * '-x+1/2,y,-z', 'x-y,x,z+1/2', '1/2+X,-Y,Z', 'x+0.25,y,z' (International Tables Vol. A notation).
+ * Throws with the offending text on anything else.
+ */
+export function parseSymop(text: string): SymOp {
+  const parts = text.replace(/\s+/g, '').toLowerCase().split(',');
+  if (parts.length !== 3) throw new Error(`symmetry operation "${text}" must have three comma-separated parts`);
+  const rot = [0, 0, 0, 0, 0, 0, 0, 0, 0] as SymOp['rot'];
+  const trans = [0, 0, 0] as SymOp['trans'];
+  parts.forEach((p, row) => {
+    if (p === '') throw new Error(`symmetry operation "${text}": part ${row + 1} is empty`);
+    const re = /([+-]?)([^+-]+)/g;
+    let m: RegExpExecArray | null;
+    let consumed = 0;
+    while ((m = re.exec(p)) !== null) {
+      if (m.index !== consumed) break;
+      consumed = re.lastIndex;
+      const sign = m[1] === '-' ? -1 : 1;
+      const term = m[2];
+      const v = /^(\d*\.?\d*(?:\/\d+)?)\*?([xyz])$/.exec(term);
+      if (v) {
+        const coef = v[1] === '' ? 1 : parseFraction(v[1], text);
+        rot[3 * row + 'xyz'.indexOf(v[2])] += sign * coef;
+      } else {
+        trans[row] += sign * parseFraction(term, text);
+      }
+    }
+    if (consumed !== p.length) throw new Error(`symmetry operation "${text}": cannot read "${p}"`);
+  });
+  return { rot, trans };
+}
+
+function parseFraction(s: string, whole: string): number {
+  const f = /^(\d+(?:\.\d*)?|\.\d+)(?:\/(\d+(?:\.\d*)?))?$/.exec(s);
+  if (!f) throw new Error(`symmetry operation "${whole}": "${s}" is not a number or fraction`);
+  const v = f[2] === undefined ? Number(f[1]) : Number(f[1]) / Number(f[2]);
+  if (!Number.isFinite(v)) throw new Error(`symmetry operation "${whole}": "${s}" is not a number or fraction`);
+  return v;
+}
+
+/** Apply an operation to fractional coordinates (u, v, w). */
+export function applySymop(op: SymOp, u: number, v: number, w: number): [number, number, number] {
+  const r = op.rot;
+  return [
+    r[0] * u + r[1] * v + r[2] * w + op.trans[0],
+    r[3] * u + r[4] * v + r[5] * w + op.trans[1],
+    r[6] * u + r[7] * v + r[8] * w + op.trans[2],
+  ];
+}
