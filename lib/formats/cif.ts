@@ -62,7 +62,10 @@ export function writeCif(s: Structure, opts: CifWriteOptions = {}): string {
         hi[k] = Math.max(hi[k], s.positions[3 * i + k]);
       }
     }
-    if (n === 0) lo.fill(0), hi.fill(0);
+    if (n === 0) {
+      lo.fill(0);
+      hi.fill(0);
+    }
     const len = lo.map((l, k) => hi[k] - l + 2 * pad);
     if (len.some((l) => !(l > 0))) throw new Error('CIF: the wrapping box has zero size; give a positive boxPadding');
     cell = [
