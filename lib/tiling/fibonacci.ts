@@ -27,8 +27,8 @@ import { parseParams, checkPointCap } from './planar-parse';
 import { chainParamsSchema, type ChainParams, type ChainParamsInput } from '../params/chain';
 import { ENGINE_VERSION } from '../version';
 import type { Structure } from '../structure/types';
+import { TAU } from './hyperlattice';
 
-export const TAU = (1 + Math.sqrt(5)) / 2;
 /** Height of the b and c axes given to chain approximant cells so exports work; only a is meaningful. */
 export const CHAIN_PADDING = 10;
 

@@ -1,1 +1,3 @@
 export * from './hyperlattice';
+export * from './continued-fraction';
+export * from './fibonacci';

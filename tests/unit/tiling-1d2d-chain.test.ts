@@ -7,7 +7,8 @@ import {
   GOLDEN_MEAN,
   SILVER_MEAN,
 } from '../../lib/tiling/continued-fraction';
-import { fibonacci, fibonacciWord, fibonacciChain, TAU } from '../../lib/tiling/fibonacci';
+import { fibonacci, fibonacciWord, fibonacciChain } from '../../lib/tiling/fibonacci';
+import { TAU } from '../../lib/tiling/hyperlattice';
 import { chainParamsSchema, convergentsParamsSchema } from '../../lib/params/chain';
 import { writeXyz } from '../../lib/formats/xyz';
 
