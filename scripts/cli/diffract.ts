@@ -1,6 +1,193 @@
 import type { Command } from 'commander';
+import type { ZodType } from 'zod';
+import { CliError, zodMessage } from './errors';
+import { compute, loadStructure, num, oneOf, r, range, readText } from './diffract-io';
+import { powderParamsSchema, radiationSchema } from '../../lib/params/diffraction';
+import { braggPowder } from '../../lib/diffraction/powder';
+import { debyePowder } from '../../lib/diffraction/debye-powder';
+import { intensityAt } from '../../lib/diffraction/intensity-at';
+import { parseWavelength, XRAY_LINES } from '../../lib/diffraction/wavelengths';
+import { DIFFRACTION_UNITS, UNITS_COMMENT } from '../../lib/diffraction/units';
+import { ENGINE_VERSION } from '../../lib/version';
+import { registerZoneCommand, registerHyperspaceCommand } from './diffract-more';
+
+function parse<T>(schema: ZodType<T>, input: unknown): T {
+  const res = schema.safeParse(input);
+  if (!res.success) throw new CliError(zodMessage(res.error));
+  return res.data;
+}
+
+const RADIATIONS = ['xray', 'neutron', 'electron'] as const;
+
+interface PowderFlags {
+  input: string;
+  wavelength: string;
+  range: string;
+  radiation: string;
+  format: string;
+  step?: string;
+  u?: string;
+  v?: string;
+  w?: string;
+  eta?: string;
+  background?: string;
+  monochromator?: string;
+  kalpha2?: boolean;
+  bin?: string;
+}
+
+function kalpha2Of(spec: string): number | undefined {
+  const m = /^(Cr|Co|Cu|Mo|Ag)\s*K(?:a|α|alpha)1?$/i.exec(spec.trim());
+  if (!m) return undefined;
+  const el = (m[1][0].toUpperCase() + m[1].slice(1).toLowerCase()) as keyof typeof XRAY_LINES;
+  return XRAY_LINES[el].ka2;
+}
+
+function powderCommand(o: PowderFlags): void {
+  const fmt = oneOf('--format', o.format, ['json', 'csv'] as const);
+  const [t0, t1] = range('--range', o.range);
+  const p = parse(powderParamsSchema, {
+    wavelength: o.wavelength,
+    radiation: parse(radiationSchema, o.radiation),
+    twoThetaMin: t0,
+    twoThetaMax: t1,
+    monochromator2Theta: num('--monochromator', o.monochromator),
+    kalpha2: o.kalpha2 ?? false,
+    binWidth: num('--bin', o.bin),
+    profile: {
+      U: num('--U', o.u),
+      V: num('--V', o.v),
+      W: num('--W', o.w),
+      eta: num('--eta', o.eta),
+      step: num('--step', o.step),
+      background: o.background === undefined ? undefined : o.background.split(',').map((b) => num('--background', b)!),
+    },
+  });
+  const lambda = compute(() => parseWavelength(p.wavelength, '--wavelength'));
+  const s = loadStructure(o.input);
+  const head = {
+    engine: ENGINE_VERSION,
+    units: DIFFRACTION_UNITS,
+    radiation: p.radiation,
+    wavelength: lambda,
+    range: [p.twoThetaMin, p.twoThetaMax],
+  };
+  if (s.cell) {
+    const lambda2 = p.kalpha2 ? kalpha2Of(String(p.wavelength)) : undefined;
+    if (p.kalpha2 && lambda2 === undefined) throw new CliError('--kalpha2: needs a Kα1 line name as --wavelength (e.g. CuKa1)');
+    const res = compute(() =>
+      braggPowder(s, {
+        wavelength: lambda,
+        radiation: p.radiation,
+        twoThetaMin: p.twoThetaMin,
+        twoThetaMax: p.twoThetaMax,
+        monochromator2Theta: p.monochromator2Theta,
+        wavelength2: lambda2,
+        ratio2: 0.5,
+        profile: p.profile,
+      }),
+    );
+    const peaks = res.peaks.map((k) => ({
+      twoTheta: r(k.twoTheta),
+      d: r(k.d),
+      q: r(k.q),
+      hkl: k.hkl,
+      multiplicity: k.multiplicity,
+      intensity: r(k.intensity, 4),
+    }));
+    const prof = res.profile!;
+    if (fmt === 'json') {
+      const out = {
+        ...head,
+        method: 'bragg',
+        peaks,
+        profile: { twoTheta: Array.from(prof.twoTheta, (x) => r(x)), intensity: Array.from(prof.intensity, (x) => r(x, 4)) },
+      };
+      process.stdout.write(JSON.stringify(out) + '\n');
+    } else {
+      const lines = [UNITS_COMMENT, `# radiation ${p.radiation}, wavelength ${lambda} Å; intensity = m|F|²Lp, largest = 100`];
+      lines.push('twoTheta,d,q,h,k,l,multiplicity,intensity');
+      for (const k of peaks) lines.push([k.twoTheta, k.d, k.q, ...k.hkl, k.multiplicity, k.intensity].join(','));
+      process.stdout.write(lines.join('\n') + '\n');
+    }
+    return;
+  }
+  const res = compute(() =>
+    debyePowder(s, {
+      wavelength: lambda,
+      radiation: p.radiation,
+      twoThetaMin: Math.max(p.twoThetaMin, 1e-3),
+      twoThetaMax: p.twoThetaMax,
+      step: p.profile.step,
+      monochromator2Theta: p.monochromator2Theta,
+      binWidth: p.binWidth,
+    }),
+  );
+  const peaks = res.maxima.map((k) => ({ twoTheta: r(k.twoTheta), d: r(k.d), q: r(k.q), hkl: null, multiplicity: null, intensity: r(k.intensity, 4) }));
+  if (fmt === 'json') {
+    const out = {
+      ...head,
+      method: 'debye',
+      note: 'finite patch: Debye scattering equation; peaks are local maxima of the profile; profile intensity per atom with polarization',
+      peaks,
+      profile: { twoTheta: Array.from(res.twoTheta, (x) => r(x)), intensity: Array.from(res.intensity, (x) => r(x, 6)) },
+    };
+    process.stdout.write(JSON.stringify(out) + '\n');
+  } else {
+    const lines = [UNITS_COMMENT, `# radiation ${p.radiation}, wavelength ${lambda} Å; Debye equation, intensity per atom`];
+    lines.push('twoTheta,q,intensity');
+    for (let i = 0; i < res.twoTheta.length; i++) lines.push(`${r(res.twoTheta[i])},${r(res.q[i])},${r(res.intensity[i], 6)}`);
+    process.stdout.write(lines.join('\n') + '\n');
+  }
+}
+
+function atCommand(o: { input: string; qFile: string; radiation: string }): void {
+  const radiation = parse(radiationSchema, o.radiation);
+  const s = loadStructure(o.input);
+  const text = readText(o.qFile, '--q-file');
+  const q: number[] = [];
+  text.split(/\r\n|\r|\n/).forEach((line, i) => {
+    const t = line.trim();
+    if (t === '' || t.startsWith('#')) return;
+    const parts = t.split(/[\s,]+/);
+    const v = parts.map(Number);
+    if (parts.length !== 3 || !v.every(Number.isFinite)) {
+      throw new CliError(`--q-file line ${i + 1}: expected three numbers "qx qy qz" (Å⁻¹), got "${t}"`);
+    }
+    q.push(v[0], v[1], v[2]);
+  });
+  const out = compute(() => intensityAt(s, Float64Array.from(q), radiation));
+  process.stdout.write(Array.from(out, (x) => x.toPrecision(12)).join('\n') + (out.length ? '\n' : ''));
+}
 
 /** diffract powder | zone | at | hyperspace — owned by the diffraction engine. */
 export function registerDiffractCommands(program: Command): void {
-  void program;
+  const d = program.command('diffract').description('Simulate diffraction of a structure file or an ideal quasicrystal.');
+  d.command('powder')
+    .description('Powder pattern: Bragg peaks of a periodic cell, or the Debye equation for a finite patch.')
+    .requiredOption('--input <file>', 'structure file: XYZ, extended XYZ, CIF or Tauforge JSON')
+    .option('--wavelength <spec>', 'CuKa1, CuKa2, CuKa, MoKa1, CoKa1, CrKa1, AgKa1, <n>kV, or Å', 'CuKa1')
+    .option('--range <a:b>', '2θ range in degrees', '10:120')
+    .option('--radiation <r>', 'xray, neutron or electron', 'xray')
+    .option('--format <fmt>', 'json or csv', 'json')
+    .option('--step <deg>', 'profile step in 2θ (degrees)')
+    .option('--U <u>', 'Caglioti U (deg²)')
+    .option('--V <v>', 'Caglioti V (deg²)')
+    .option('--W <w>', 'Caglioti W (deg²)')
+    .option('--eta <eta>', 'pseudo-Voigt Lorentzian fraction')
+    .option('--background <b0,b1,...>', 'background polynomial in 2θ')
+    .option('--monochromator <deg>', 'monochromator angle 2θ_m (degrees)')
+    .option('--kalpha2', 'add the Kα2 line to the profile (ratio 0.5)')
+    .option('--bin <Å>', 'pair-distance bin for finite patches (Å)')
+    .action((o: PowderFlags & { U?: string; V?: string; W?: string }) => powderCommand({ ...o, u: o.U, v: o.V, w: o.W }));
+  d.command('at')
+    .description('|F(Q)|²/N at each Cartesian Q (Å⁻¹, phase Q·r) of a file with one "qx qy qz" a line.')
+    .requiredOption('--input <file>', 'structure file')
+    .requiredOption('--q-file <file>', 'file of qx qy qz lines')
+    .option('--radiation <r>', 'xray, neutron or electron', 'xray')
+    .action((o: { input: string; qFile: string; radiation: string }) => atCommand(o));
+  registerZoneCommand(d);
+  registerHyperspaceCommand(d);
 }
+
+export { RADIATIONS };

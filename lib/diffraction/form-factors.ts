@@ -1,0 +1,86 @@
+/**
+ * Atomic scattering factors for X-rays, neutrons and electrons.
+ *
+ * All take s² = (sinθ/λ)² = (|Q|/4π)² in Å⁻², with |Q| = 4π sinθ/λ = 2π/d.
+ * Numbers: data/scattering-tables.ts (generated from gemmi's copies of International Tables Vol. C
+ * Table 6.1.1.4, Sears 1992 and International Tables Vol. C Table 4.3.2.2; see that file's header).
+ * Species 0 (an unassigned tiling vertex, element "X") scatters with f = 1 for every radiation.
+ */
+import { ELECTRON_C4322, ELEMENT_SYMBOLS, NEUTRON_SEARS92_FM, TABLE_ZMAX, XRAY_IT92 } from './data/scattering-tables';
+
+export type Radiation = 'xray' | 'neutron' | 'electron';
+export const RADIATIONS: readonly Radiation[] = ['xray', 'neutron', 'electron'];
+
+/** Units of the scattering factor returned for each radiation. */
+export const FORM_FACTOR_UNITS: Record<Radiation, string> = {
+  xray: 'electrons',
+  neutron: 'fm',
+  electron: 'Å',
+};
+
+function checkZ(z: number, field = 'species'): void {
+  if (!Number.isInteger(z) || z < 0 || z > TABLE_ZMAX) {
+    throw new Error(`${field}: atomic number ${z} is outside the scattering tables (0..${TABLE_ZMAX})`);
+  }
+}
+
+/** s² = (sinθ/λ)² from |Q| in Å⁻¹. */
+export function s2FromQ(q: number): number {
+  const s = q / (4 * Math.PI);
+  return s * s;
+}
+
+/** X-ray f(s) = Σ a_i exp(−b_i s²) + c (International Tables Vol. C Table 6.1.1.4). */
+export function xrayFormFactor(z: number, s2: number): number {
+  checkZ(z);
+  if (z === 0) return 1;
+  const c = XRAY_IT92[z];
+  return (
+    c[0] * Math.exp(-c[4] * s2) +
+    c[1] * Math.exp(-c[5] * s2) +
+    c[2] * Math.exp(-c[6] * s2) +
+    c[3] * Math.exp(-c[7] * s2) +
+    c[8]
+  );
+}
+
+/** Electron f_e(s) = Σ_{1..5} a_i exp(−b_i s²) in Å (International Tables Vol. C Table 4.3.2.2). */
+export function electronFormFactor(z: number, s2: number): number {
+  checkZ(z);
+  if (z === 0) return 1;
+  const c = ELECTRON_C4322[z];
+  let f = 0;
+  for (let i = 0; i < 5; i++) f += c[i] * Math.exp(-c[i + 5] * s2);
+  return f;
+}
+
+/** Bound coherent neutron scattering length in fm (Sears 1992); independent of s. */
+export function neutronScatteringLength(z: number): number {
+  checkZ(z);
+  if (z === 0) return 1;
+  const b = NEUTRON_SEARS92_FM[z];
+  if (b === null) {
+    throw new Error(`species: no tabulated neutron scattering length for ${ELEMENT_SYMBOLS[z]} (Z = ${z})`);
+  }
+  return b;
+}
+
+/** Scattering factor of atomic number z for the chosen radiation at s² = (sinθ/λ)². */
+export function scatteringFactor(radiation: Radiation, z: number, s2: number): number {
+  switch (radiation) {
+    case 'xray':
+      return xrayFormFactor(z, s2);
+    case 'neutron':
+      return neutronScatteringLength(z);
+    case 'electron':
+      return electronFormFactor(z, s2);
+    default:
+      throw new Error(`radiation: unknown radiation "${String(radiation)}" (use xray, neutron or electron)`);
+  }
+}
+
+/** Element symbol for an atomic number from the scattering tables ("X" for 0). */
+export function tableSymbol(z: number): string {
+  checkZ(z);
+  return ELEMENT_SYMBOLS[z];
+}

@@ -1,0 +1,77 @@
+/**
+ * Merge symmetry-equivalent and Friedel-related reflections into one entry with a multiplicity.
+ *
+ * Rule (no space group needed, so it works for any cell, approximants included): reflections are
+ * equivalent when their d agree to `dTol` (relative) and their |F|² agree to `f2Tol` (relative to the
+ * larger, plus f2Tol·max|F|² absolute). This merges every Laue-class equivalent and Friedel pair, and
+ * also reflections that are equal by accident (e.g. cubic 333 and 511 of fcc) — in a powder pattern those
+ * coincide exactly anyway. The representative index is the lexicographically largest (h, k, l) of the set,
+ * which gives the usual 111, 200, 220, 311 … for cubic lattices. Deterministic.
+ */
+import type { HklFactors } from './structure-factor';
+
+export interface MergedReflection {
+  hkl: [number, number, number];
+  d: number;
+  f2: number;
+  multiplicity: number;
+}
+
+export interface MergeOptions {
+  dTol?: number;
+  f2Tol?: number;
+  /** Drop reflections with |F|² below this fraction of the largest (systematic absences). Default 1e-10. */
+  extinctTol?: number;
+}
+
+function lexGreater(a: ArrayLike<number>, ia: number, b: ArrayLike<number>, ib: number): boolean {
+  for (let c = 0; c < 3; c++) {
+    if (a[ia + c] !== b[ib + c]) return a[ia + c] > b[ib + c];
+  }
+  return false;
+}
+
+export function mergeReflections(f: HklFactors, opts: MergeOptions = {}): MergedReflection[] {
+  const dTol = opts.dTol ?? 1e-6;
+  const f2Tol = opts.f2Tol ?? 1e-6;
+  const extinctTol = opts.extinctTol ?? 1e-10;
+  const m = f.d.length;
+  let f2max = 0;
+  for (let i = 0; i < m; i++) if (f.f2[i] > f2max) f2max = f.f2[i];
+  const order = Array.from({ length: m }, (_, i) => i).filter((i) => f.f2[i] > extinctTol * f2max);
+  order.sort((a, b) => f.d[b] - f.d[a] || f.f2[b] - f.f2[a] || (lexGreater(f.hkl, 3 * a, f.hkl, 3 * b) ? -1 : 1));
+  const out: MergedReflection[] = [];
+  // Walk shells of equal d; within a shell, cluster by |F|².
+  let i = 0;
+  while (i < order.length) {
+    const d0 = f.d[order[i]];
+    let j = i + 1;
+    while (j < order.length && Math.abs(f.d[order[j]] - d0) <= dTol * d0) j++;
+    const shell = order.slice(i, j).sort((a, b) => f.f2[b] - f.f2[a] || (lexGreater(f.hkl, 3 * a, f.hkl, 3 * b) ? -1 : 1));
+    let p = 0;
+    while (p < shell.length) {
+      const ref = f.f2[shell[p]];
+      let q = p + 1;
+      while (q < shell.length && Math.abs(f.f2[shell[q]] - ref) <= f2Tol * ref + f2Tol * f2max) q++;
+      let best = shell[p];
+      let sumF2 = 0;
+      let sumD = 0;
+      for (let t = p; t < q; t++) {
+        const idx = shell[t];
+        if (lexGreater(f.hkl, 3 * idx, f.hkl, 3 * best)) best = idx;
+        sumF2 += f.f2[idx];
+        sumD += f.d[idx];
+      }
+      const n = q - p;
+      out.push({
+        hkl: [f.hkl[3 * best], f.hkl[3 * best + 1], f.hkl[3 * best + 2]],
+        d: sumD / n,
+        f2: sumF2 / n,
+        multiplicity: n,
+      });
+      p = q;
+    }
+    i = j;
+  }
+  return out;
+}

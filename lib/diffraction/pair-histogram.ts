@@ -1,0 +1,112 @@
+/**
+ * Pair-distance histogram for the Debye scattering equation: every pair i < j once (exact O(N²)),
+ * binned at r with width Δ, separately per pair of scattering groups (a ≤ b), weighted w_i·w_j.
+ * After this, the pattern costs O(bins × nQ) instead of O(N² × nQ).
+ *
+ * The loop over i is split by [i0, i1) so callers may spread it across threads; `balancedRowRanges`
+ * gives ranges with equal pair counts. Histograms of parts simply add.
+ */
+
+export interface PairHistogramSpec {
+  nGroups: number;
+  binWidth: number;
+  nBins: number;
+}
+
+/** Index of the histogram of groups (a, b), a ≤ b, inside the flat array (nGroups² blocks of nBins). */
+export function pairBlock(a: number, b: number, spec: PairHistogramSpec): number {
+  return (a <= b ? a * spec.nGroups + b : b * spec.nGroups + a) * spec.nBins;
+}
+
+/** Largest pair distance (bounding-box diagonal) — an upper bound that needs no pair loop. */
+export function boundingDiameter(positions: Float64Array): number {
+  const n = positions.length / 3;
+  if (n === 0) return 0;
+  const lo = [Infinity, Infinity, Infinity];
+  const hi = [-Infinity, -Infinity, -Infinity];
+  for (let i = 0; i < n; i++) {
+    for (let c = 0; c < 3; c++) {
+      const v = positions[3 * i + c];
+      if (v < lo[c]) lo[c] = v;
+      if (v > hi[c]) hi[c] = v;
+    }
+  }
+  return Math.hypot(hi[0] - lo[0], hi[1] - lo[1], hi[2] - lo[2]);
+}
+
+export function histogramSpec(positions: Float64Array, nGroups: number, binWidth: number): PairHistogramSpec {
+  if (!(binWidth > 0)) throw new Error(`binWidth: must be positive, got ${binWidth}`);
+  const nBins = Math.floor(boundingDiameter(positions) / binWidth) + 2;
+  if (nBins * nGroups * nGroups > 2e8) {
+    throw new Error(`binWidth: ${binWidth} Å with ${nGroups} groups needs ${nBins * nGroups * nGroups} bins; use a coarser bin`);
+  }
+  return { nGroups, binWidth, nBins };
+}
+
+/** Add pairs (i, j), i0 ≤ i < i1, i < j < N, into hist (length nGroups² · nBins). */
+export function accumulatePairs(
+  positions: Float64Array,
+  groupOf: Uint16Array,
+  weight: Float64Array,
+  spec: PairHistogramSpec,
+  hist: Float64Array,
+  i0 = 0,
+  i1 = groupOf.length,
+): void {
+  const n = groupOf.length;
+  const inv = 1 / spec.binWidth;
+  const nb = spec.nBins;
+  const ng = spec.nGroups;
+  if (ng === 1) {
+    // One group (the common case): no per-pair block lookup.
+    for (let i = i0; i < i1; i++) {
+      const x = positions[3 * i];
+      const y = positions[3 * i + 1];
+      const z = positions[3 * i + 2];
+      const wi = weight[i];
+      for (let j = i + 1, p = 3 * j; j < n; j++, p += 3) {
+        const dx = positions[p] - x;
+        const dy = positions[p + 1] - y;
+        const dz = positions[p + 2] - z;
+        const b = (Math.sqrt(dx * dx + dy * dy + dz * dz) * inv) | 0;
+        hist[b] += wi * weight[j];
+      }
+    }
+    return;
+  }
+  for (let i = i0; i < i1; i++) {
+    const x = positions[3 * i];
+    const y = positions[3 * i + 1];
+    const z = positions[3 * i + 2];
+    const wi = weight[i];
+    const gi = groupOf[i];
+    for (let j = i + 1, p = 3 * j; j < n; j++, p += 3) {
+      const dx = positions[p] - x;
+      const dy = positions[p + 1] - y;
+      const dz = positions[p + 2] - z;
+      const b = (Math.sqrt(dx * dx + dy * dy + dz * dz) * inv) | 0;
+      const gj = groupOf[j];
+      const blk = gi <= gj ? gi * ng + gj : gj * ng + gi;
+      hist[blk * nb + b] += wi * weight[j];
+    }
+  }
+}
+
+/** Split rows 0..n−1 of the triangle i < j into `parts` ranges with about equal pair counts. */
+export function balancedRowRanges(n: number, parts: number): [number, number][] {
+  const total = (n * (n - 1)) / 2;
+  const out: [number, number][] = [];
+  let start = 0;
+  let acc = 0;
+  for (let p = 1; p <= parts; p++) {
+    const target = (total * p) / parts;
+    let i = start;
+    while (i < n && (p === parts || acc + (n - 1 - i) <= target)) {
+      acc += n - 1 - i;
+      i++;
+    }
+    out.push([start, i]);
+    start = i;
+  }
+  return out;
+}

@@ -1,0 +1,73 @@
+/**
+ * Diffraction settings, shared by the CLI, the API and the forms. Units: 2θ in degrees, |Q| in Å⁻¹
+ * (|Q| = 4π sinθ/λ = 2π/d, phase Q·r), d and λ in Å, B in Å², Caglioti U, V, W in degrees².
+ */
+import { z } from 'zod';
+
+export const radiationSchema = z.enum(['xray', 'neutron', 'electron'], {
+  message: 'radiation must be xray, neutron or electron',
+});
+
+/** A line name (CuKa1, MoKa, …), "<n>kV" for electrons, or a number in Å. */
+export const wavelengthSchema = z.union([z.number().positive('wavelength must be positive (Å)'), z.string().min(1)]);
+
+export const profileSchema = z.object({
+  U: z.number().default(0.01),
+  V: z.number().default(-0.005),
+  W: z.number().default(0.005),
+  eta: z.number().min(0, 'eta must be between 0 and 1').max(1, 'eta must be between 0 and 1').default(0.5),
+  step: z.number().positive('step must be positive (degrees)').max(5).default(0.02),
+  background: z.array(z.number()).max(8, 'at most 8 background coefficients').default([]),
+});
+
+export const powderParamsSchema = z
+  .object({
+    wavelength: wavelengthSchema.default('CuKa1'),
+    radiation: radiationSchema.default('xray'),
+    twoThetaMin: z.number().min(0, 'twoThetaMin must be ≥ 0').max(180).default(10),
+    twoThetaMax: z.number().min(0).max(180, 'twoThetaMax must be ≤ 180').default(120),
+    monochromator2Theta: z.number().min(0).max(180).optional(),
+    /** Add the Kα2 line (same element) to the profile with intensity ratio 0.5. */
+    kalpha2: z.boolean().default(false),
+    profile: profileSchema.default(profileSchema.parse({})),
+    /** Histogram bin (Å) for the Debye route (finite patches). */
+    binWidth: z.number().positive().max(0.1).default(0.005),
+  })
+  .refine((p) => p.twoThetaMax > p.twoThetaMin, { message: 'twoThetaMax must exceed twoThetaMin', path: ['twoThetaMax'] });
+export type PowderParams = z.infer<typeof powderParamsSchema>;
+
+export const zoneParamsSchema = z.object({
+  /** "5", "3", "2" (icosahedral axes of lib/tiling/hyperlattice.ts) or "u,v,w". */
+  axis: z.string().regex(/^(5|3|2|-?\d+,-?\d+,-?\d+)$/, 'axis must be 5, 3, 2 or u,v,w'),
+  qmax: z.number().positive('qmax must be positive (Å⁻¹)').max(50),
+  radiation: radiationSchema.default('xray'),
+  /** Half-thickness of the included reciprocal slab in Å⁻¹ (patches) / highest Laue zone |n| (crystals). */
+  laueZones: z.number().int().min(0).max(10).default(0),
+  slab: z.number().min(0).max(5).default(0),
+  /** Grid points per side for patch maps. */
+  grid: z.number().int().min(16).max(1024).default(201),
+  /** Spots weaker than this fraction of the strongest are left out. */
+  threshold: z.number().min(0).max(1).default(1e-3),
+});
+export type ZoneParams = z.infer<typeof zoneParamsSchema>;
+
+export const hyperspaceParamsSchema = z.object({
+  family: z.enum(['icosahedral', 'penrose', 'fibonacci'], { message: 'family must be icosahedral, penrose or fibonacci' }),
+  aR: z.number().positive('aR must be a positive length in Å'),
+  qmax: z.number().positive('qmax must be positive (Å⁻¹)').max(30),
+  /** Largest |Q⊥| kept, Å⁻¹ (bounds the enumeration; the window transform decays as |Q⊥|⁻²). */
+  qperpMax: z.number().positive().optional(),
+  radiation: radiationSchema.default('xray'),
+  /** Species decorating every vertex (0 = unit form factor). */
+  species: z.number().int().min(0).max(98).default(0),
+  biso: z.number().min(0).default(0),
+  threshold: z.number().min(0).max(1).default(1e-4),
+});
+export type HyperspaceParams = z.infer<typeof hyperspaceParamsSchema>;
+
+export const compareParamsSchema = z.object({
+  background: z.boolean().default(true),
+  /** Peaks: measured local maxima above this fraction of the largest. */
+  peakThreshold: z.number().min(0).max(1).default(0.02),
+});
+export type CompareParams = z.infer<typeof compareParamsSchema>;

@@ -1,0 +1,68 @@
+import { describe, expect, it } from 'vitest';
+import type { Structure } from '../../lib/structure/types';
+import { debyeExact, debyeFromHistogram, pairHistogram } from '../../lib/diffraction/debye';
+import { balancedRowRanges } from '../../lib/diffraction/pair-histogram';
+import { xrayFormFactor } from '../../lib/diffraction/form-factors';
+
+const mk = (pos: number[], z: number[]): Structure => ({
+  positions: Float64Array.from(pos),
+  species: Uint16Array.from(z),
+  provenance: { params: null, engine: 'test' },
+});
+
+describe('Debye scattering equation', () => {
+  it('dimer: I = 2f²(1 + sin(Qd)/(Qd)) (closed form of the Debye sum, Warren ch. 6)', () => {
+    const d = 2.5;
+    const s = mk([0, 0, 0, d, 0, 0], [26, 26]);
+    const q = Float64Array.from({ length: 50 }, (_, k) => 0.1 + 0.2 * k);
+    const exact = debyeExact(s, q, 'xray');
+    // Bin centre placed exactly at d: with Δ = 0.001, d = 2.5 lies in bin 2500 whose centre is 2.5005 — so use the binned result with a loose bound and the exact with a tight one.
+    const binned = debyeFromHistogram(pairHistogram(s, 0.001), q, 'xray');
+    for (let k = 0; k < q.length; k++) {
+      const f = xrayFormFactor(26, (q[k] / (4 * Math.PI)) ** 2);
+      const ref = 2 * f * f * (1 + Math.sin(q[k] * d) / (q[k] * d));
+      expect(exact[k]).toBeCloseTo(ref, 9);
+      expect(Math.abs(binned[k] - ref) / ref).toBeLessThan(2e-3);
+    }
+  });
+
+  it('histogram route matches the exact sum on a random two-species cluster (uniform and non-uniform Q)', () => {
+    let seed = 7;
+    const rnd = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
+    const pos: number[] = [];
+    const z: number[] = [];
+    for (let i = 0; i < 300; i++) {
+      pos.push(rnd() * 15, rnd() * 15, rnd() * 15);
+      z.push(i % 3 === 0 ? 29 : 13);
+    }
+    const s = mk(pos, z);
+    const q = Float64Array.from({ length: 200 }, (_, k) => 0.05 * k);
+    const exact = debyeExact(s, q);
+    const binned = debyeFromHistogram(pairHistogram(s, 0.0005), q);
+    const qn = Float64Array.from([0.3, 1.1, 2.9, 4.4]);
+    const binnedN = debyeFromHistogram(pairHistogram(s, 0.0005), qn);
+    const exactN = debyeExact(s, qn);
+    let max = 0;
+    for (const v of exact) max = Math.max(max, Math.abs(v));
+    for (let k = 0; k < q.length; k++) expect(Math.abs(binned[k] - exact[k]) / max).toBeLessThan(1e-3);
+    for (let k = 0; k < qn.length; k++) expect(Math.abs(binnedN[k] - exactN[k]) / max).toBeLessThan(1e-3);
+    // Q = 0: (Σ f)² = forward scattering.
+    const ftot = 100 * xrayFormFactor(29, 0) + 200 * xrayFormFactor(13, 0);
+    expect(exact[0] / (ftot * ftot)).toBeCloseTo(1, 10);
+    expect(binned[0] / (ftot * ftot)).toBeCloseTo(1, 10);
+  });
+
+  it('balanced row ranges cover all pairs with about equal counts', () => {
+    const n = 1001;
+    const parts = balancedRowRanges(n, 3);
+    expect(parts[0][0]).toBe(0);
+    expect(parts[2][1]).toBe(n);
+    const counts = parts.map(([a, b]) => {
+      let c = 0;
+      for (let i = a; i < b; i++) c += n - 1 - i;
+      return c;
+    });
+    expect(counts.reduce((a, b) => a + b)).toBe((n * (n - 1)) / 2);
+    for (const c of counts) expect(Math.abs(c - (n * (n - 1)) / 6)).toBeLessThan(n);
+  });
+});
