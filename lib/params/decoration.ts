@@ -1,0 +1,55 @@
+/**
+ * Decoration by site classes: each class is a shifted copy of the hyperlattice (a 6D position in the
+ * hyperlattice unit cell) with its own occupation domain in perpendicular space and its own species.
+ * Lengths (sphere and shell radii) are perpendicular-space Å on the scale of hyperlattice.ts (|e_i⊥| = aR).
+ */
+import { z } from 'zod';
+import { tryAtomicNumber } from '../structure/elements';
+
+export const elementSymbolSchema = z
+  .string()
+  .refine((s) => tryAtomicNumber(s) !== undefined && tryAtomicNumber(s)! > 0, { message: 'unknown element symbol' });
+
+/** Named positions in the hyperlattice cell: node 0, body centre ½(1,…,1), edge centres ½e_i. */
+export const SITE_POSITIONS = ['node', 'body', 'edge1', 'edge2', 'edge3', 'edge4', 'edge5', 'edge6'] as const;
+
+const fraction6 = z.tuple([z.number(), z.number(), z.number(), z.number(), z.number(), z.number()]).refine((v) => v.every((x) => Number.isFinite(x) && x >= 0 && x < 1), {
+  message: 'each of the six fractional coordinates must be in [0, 1)',
+});
+
+export const windowSpecSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('hypercube'), scale: z.number().positive().max(10).default(1) }),
+  z.object({ kind: z.literal('sphere'), radius: z.number().positive().max(1000) }),
+  z
+    .object({ kind: z.literal('shell'), r1: z.number().min(0).max(1000), r2: z.number().positive().max(1000) })
+    .refine((w) => w.r2 > w.r1, { message: 'r2 must be greater than r1', path: ['r2'] }),
+]);
+
+export const siteClassSchema = z
+  .object({
+    name: z.string().min(1).max(60),
+    position: z.union([z.enum(SITE_POSITIONS), fraction6]).default('node'),
+    window: windowSpecSchema.default({ kind: 'hypercube', scale: 1 }),
+    species: elementSymbolSchema.optional(),
+    /** Mixed occupancy: element symbol → fraction, fractions sum to ≤ 1. */
+    mix: z.record(z.string(), z.number().min(0).max(1)).optional(),
+    occupancy: z.number().min(0).max(1).optional(),
+  })
+  .superRefine((c, ctx) => {
+    if (c.mix) {
+      for (const k of Object.keys(c.mix))
+        if (tryAtomicNumber(k) === undefined) ctx.addIssue({ code: 'custom', message: `unknown element symbol "${k}"`, path: ['mix', k] });
+      const sum = Object.values(c.mix).reduce((a, b) => a + b, 0);
+      if (sum > 1 + 1e-9) ctx.addIssue({ code: 'custom', message: `fractions sum to ${sum}, more than 1`, path: ['mix'] });
+      if (Object.keys(c.mix).length === 0) ctx.addIssue({ code: 'custom', message: 'needs at least one element', path: ['mix'] });
+    }
+    if (c.species && c.mix) ctx.addIssue({ code: 'custom', message: 'give either species or mix, not both', path: ['mix'] });
+  });
+
+export const decorationSchema = z.object({
+  classes: z.array(siteClassSchema).min(1, { message: 'needs at least one site class' }).max(64),
+});
+
+export type WindowSpecParams = z.infer<typeof windowSpecSchema>;
+export type SiteClassParams = z.infer<typeof siteClassSchema>;
+export type DecorationParams = z.infer<typeof decorationSchema>;

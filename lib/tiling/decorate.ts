@@ -1,0 +1,86 @@
+/**
+ * Decoration by site classes, and the Params → Structure entry points of the icosahedral engine.
+ * Each site class is generated as its own cut: the hyperlattice shifted by the class's 6D position, with
+ * the class's occupation domain (scaled projected hypercube, sphere or spherical shell) centred on the
+ * phason offset, all with the same projection (Duneau & Katz 1985; the "atomic surfaces" picture —
+ * common practice). Cluster templates at site classes are not wired in yet (lib/tiling/clusters.ts absent).
+ */
+import type { Structure } from '../structure/types';
+import { atomicNumber } from '../structure/elements';
+import type { DecorationParams, SiteClassParams } from '../params/decoration';
+import type { IcosahedralApproximantParams, IcosahedralPatchParams } from '../params/icosahedral';
+import { parseOrder } from '../params/icosahedral';
+import type { CutClass } from './icosa-cut';
+import { vertexClass } from './icosa-cut';
+import { icosahedralPatch } from './icosahedral';
+import type { Centring } from './approximant';
+import { icosahedralApproximant } from './approximant';
+
+/** 6D fractional position of a named site (or the explicit six numbers). */
+export function sitePosition(position: SiteClassParams['position']): Float64Array {
+  const v = new Float64Array(6);
+  if (typeof position !== 'string') {
+    v.set(position);
+    return v;
+  }
+  if (position === 'body') v.fill(0.5);
+  else if (position.startsWith('edge')) v[Number(position.slice(4)) - 1] = 0.5;
+  return v;
+}
+
+/** Majority element of a mix (largest fraction; ties broken by smaller atomic number). */
+function majority(mix: Record<number, number>): number {
+  let best = 0;
+  let bestF = -1;
+  for (const [z, f] of Object.entries(mix).map(([k, x]) => [Number(k), x] as const).sort((a, b) => a[0] - b[0]))
+    if (f > bestF) {
+      best = z;
+      bestF = f;
+    }
+  return best;
+}
+
+/** Site classes for a cut: the decoration's, or one vertex class of the given element (default X). */
+export function resolveClasses(decoration?: DecorationParams, species?: string): CutClass[] {
+  if (!decoration) return [vertexClass(species ? atomicNumber(species) : 0)];
+  return decoration.classes.map((c) => {
+    const cl: CutClass = { name: c.name, position: sitePosition(c.position), window: c.window, species: 0 };
+    if (c.mix) {
+      const mix: Record<number, number> = {};
+      for (const [sym, f] of Object.entries(c.mix)) mix[atomicNumber(sym)] = f;
+      cl.mix = mix;
+      cl.species = majority(mix);
+    } else if (c.species) cl.species = atomicNumber(c.species);
+    if (c.occupancy !== undefined) cl.occupancy = c.occupancy;
+    return cl;
+  });
+}
+
+/** Validated patch Params → Structure. */
+export function generateIcosahedralPatch(params: IcosahedralPatchParams): Structure {
+  return icosahedralPatch({
+    aR: params.aR,
+    radius: params.radius,
+    centre: params.centre,
+    lattice: params.lattice,
+    offset: params.offset,
+    maxPoints: params.maxPoints,
+    classes: resolveClasses(params.decoration, params.species),
+    params,
+  });
+}
+
+/** Validated approximant Params → one cubic cell (Structure with cell) and its detected centring. */
+export function generateIcosahedralApproximant(params: IcosahedralApproximantParams): Structure & { centring: Centring } {
+  const { p, q } = parseOrder(params.order);
+  return icosahedralApproximant({
+    p,
+    q,
+    aR: params.aR,
+    lattice: params.lattice,
+    offset: params.offset,
+    maxPoints: params.maxPoints,
+    classes: resolveClasses(params.decoration, params.species),
+    params,
+  });
+}
