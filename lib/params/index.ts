@@ -1,2 +1,4 @@
 export * from './model';
 export * from './chain';
+export * from './icosahedral';
+export * from './decoration';

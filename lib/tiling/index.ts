@@ -4,3 +4,4 @@ export * from './fibonacci';
 export * from './window';
 export * from './icosahedral';
 export * from './approximant';
+export * from './decorate';
