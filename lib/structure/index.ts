@@ -4,3 +4,4 @@ export * from './cell';
 export * from './validate';
 export * from './neighbors';
 export * from './checks';
+export * from './merge';

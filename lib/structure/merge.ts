@@ -1,0 +1,106 @@
+import { forEachPairWithin } from './neighbors';
+import type { Structure } from './types';
+import { perpDimension, validateStructure } from './validate';
+
+export interface MergeRecord {
+  /** Index (in the input) of the atom that stays. */
+  kept: number;
+  /** Index (in the input) of the atom that goes. */
+  removed: number;
+  /** Their distance, Å (minimum image when periodic). */
+  distance: number;
+  /** Present when the two disagreed on species or site class: what each had before the merge. */
+  conflict?: { keptSpecies: number; keptSite?: number; removedSpecies: number; removedSite?: number; result: 'kept' | 'removed' };
+}
+
+export interface MergeResult {
+  structure: Structure;
+  /** One record per removed atom, by increasing removed index. */
+  merged: MergeRecord[];
+  /** Number of atoms removed. */
+  count: number;
+  /** Number of merges where species or site class differed. */
+  conflicts: number;
+}
+
+/**
+ * Merge atoms closer than tol (Å), periodic images included (cell-list search, O(N)).
+ * Deterministic: atoms are visited by increasing index; atom j is removed when some lower-index atom
+ * that is itself kept lies within tol, and it merges into the lowest such index. The kept atom keeps
+ * its position (no averaging, so the result does not depend on merge order). When the two disagree on
+ * site class (or species), the one with the earlier site class wins — in placeClusters output the
+ * inner shells and the input's own classes come first — ties going to the kept atom; the record
+ * reports the conflict. Tiles are remapped onto the kept atoms.
+ */
+export function mergeClose(s: Structure, tol: number): MergeResult {
+  validateStructure(s);
+  const n = s.species.length;
+  const partners: { i: number; j: number; d: number }[] = [];
+  if (tol > 0 && n > 1) forEachPairWithin(s.positions, s.cell, tol, (i, j, d) => {
+    if (i !== j) partners.push({ i, j, d });
+  });
+  // For each j, candidates i < j by increasing i (then distance for several images of one pair).
+  partners.sort((a, b) => a.j - b.j || a.i - b.i || a.d - b.d);
+  const into = new Int32Array(n).fill(-1);
+  const species = Uint16Array.from(s.species);
+  const site = s.site ? Uint16Array.from(s.site) : undefined;
+  const merged: MergeRecord[] = [];
+  let conflicts = 0;
+  let k = 0;
+  while (k < partners.length) {
+    const j = partners[k].j;
+    let chosen: { i: number; d: number } | undefined;
+    while (k < partners.length && partners[k].j === j) {
+      const p = partners[k++];
+      if (!chosen && into[p.i] < 0) chosen = { i: p.i, d: p.d };
+    }
+    if (!chosen) continue;
+    const i = chosen.i;
+    into[j] = i;
+    const rec: MergeRecord = { kept: i, removed: j, distance: chosen.d };
+    const siteDiffers = site !== undefined && site[i] !== site[j];
+    if (siteDiffers || species[i] !== species[j]) {
+      conflicts++;
+      const removedWins = site !== undefined && site[j] < site[i];
+      rec.conflict = {
+        keptSpecies: species[i],
+        removedSpecies: species[j],
+        ...(site ? { keptSite: site[i], removedSite: site[j] } : {}),
+        result: removedWins ? 'removed' : 'kept',
+      };
+      if (removedWins) {
+        species[i] = species[j];
+        site![i] = site![j];
+      }
+    }
+    merged.push(rec);
+  }
+  merged.sort((a, b) => a.removed - b.removed);
+  const newIndex = new Int32Array(n);
+  let m = 0;
+  for (let i = 0; i < n; i++) newIndex[i] = into[i] < 0 ? m++ : -1;
+  for (let i = 0; i < n; i++) if (into[i] >= 0) newIndex[i] = newIndex[into[i]];
+  const keep = (i: number) => into[i] < 0;
+  const out: Structure = {
+    ...s,
+    positions: new Float64Array(3 * m),
+    species: new Uint16Array(m),
+  };
+  const d = perpDimension(s);
+  if (site) out.site = new Uint16Array(m);
+  if (s.occupancy) out.occupancy = new Float64Array(m);
+  if (s.perp) out.perp = new Float64Array(d * m);
+  for (let i = 0; i < n; i++) {
+    if (!keep(i)) continue;
+    const q = newIndex[i];
+    out.positions[3 * q] = s.positions[3 * i];
+    out.positions[3 * q + 1] = s.positions[3 * i + 1];
+    out.positions[3 * q + 2] = s.positions[3 * i + 2];
+    out.species[q] = species[i];
+    if (site) out.site![q] = site[i];
+    if (s.occupancy) out.occupancy![q] = s.occupancy[i];
+    if (s.perp) for (let c = 0; c < d; c++) out.perp![d * q + c] = s.perp[d * i + c];
+  }
+  if (s.tiles) out.tiles = { ...s.tiles, corners: Uint32Array.from(s.tiles.corners, (c) => newIndex[c]) };
+  return { structure: out, merged, count: merged.length, conflicts };
+}
