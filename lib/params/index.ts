@@ -2,3 +2,4 @@ export * from './model';
 export * from './chain';
 export * from './icosahedral';
 export * from './decoration';
+export * from './planar';

@@ -5,3 +5,5 @@ export * from './window';
 export * from './icosahedral';
 export * from './approximant';
 export * from './decorate';
+export * from './penrose';
+export * from './octagonal';
