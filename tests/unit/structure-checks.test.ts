@@ -68,6 +68,13 @@ describe('minimum distance', () => {
     expect(m.below).toEqual([]);
   });
 
+  it('handles 10^5 atoms (fcc 30×30×30 cells): still a/√2, no pair below 2.5 Å (correctness at scale; speed is in tests/bench)', () => {
+    const a = 4.0495;
+    const m = minimumDistance(fcc(a, 30), { threshold: 2.5 });
+    expect(m.distance).toBeCloseTo(a / Math.SQRT2, 10);
+    expect(m.belowCount).toBe(0);
+  });
+
   it('a single atom in a cubic cell sees its own image at the cell edge', () => {
     const s: Structure = { positions: new Float64Array([0.3, 0.2, 0.1]), species: new Uint16Array([13]), cell: [[3, 0, 0], [0, 4, 0], [0, 0, 5]], provenance: prov };
     expect(minimumDistance(s).distance).toBeCloseTo(3, 12);
