@@ -35,7 +35,7 @@ function time<T>(label: string, f: () => T): T {
   return r;
 }
 
-export default async function (): Promise<void> {
+export default async function benchStructureChecks(): Promise<void> {
   for (const n of [30, 63]) {
     const s = fcc(4.0495, n);
     const N = s.species.length;
