@@ -4,13 +4,17 @@
  */
 import type { Knex } from 'knex';
 import * as m20261201000000 from './20261201000000_initial_schema';
+import * as m20261201010000 from './20261201010000_accounts_and_sharing';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
   down(knex: Knex): Promise<void>;
 }
 
-export const migrations: [string, Migration][] = [['20261201000000_initial_schema.ts', m20261201000000]];
+export const migrations: [string, Migration][] = [
+  ['20261201000000_initial_schema.ts', m20261201000000],
+  ['20261201010000_accounts_and_sharing.ts', m20261201010000],
+];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {
   getMigrations: async () => migrations,

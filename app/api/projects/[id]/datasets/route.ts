@@ -1,0 +1,29 @@
+import { ApiError } from '@/lib/server/errors';
+import { json, parseWith, readQuery, route, routeId } from '@/lib/server/http';
+import { datasetListQuery, listDatasets, MAX_DATASET_BYTES, uploadDataset, uploadFieldsSchema } from '@/lib/server/datasets';
+
+type P = { id: string };
+
+export const GET = route<P>(async (req, actor, p) => json(await listDatasets(actor, routeId(p.id), readQuery(req, datasetListQuery))));
+
+/** multipart/form-data with a "file" field (and optional "kind": auto | pattern | structure). */
+export const POST = route<P>(async (req, actor, p) => {
+  const id = routeId(p.id);
+  const length = Number(req.headers.get('content-length') ?? 0);
+  // Refuse before reading a body that cannot fit (the multipart envelope adds a few hundred bytes).
+  if (length > MAX_DATASET_BYTES + 64 * 1024) throw new ApiError('too_large', `The upload is ${(length / 1048576).toFixed(1)} MB; the limit is 20 MB.`);
+  if (!/^multipart\/form-data/i.test(req.headers.get('content-type') ?? '')) {
+    throw new ApiError('unsupported_media_type', 'Send the file as multipart/form-data in a field called "file".');
+  }
+  let form: FormData;
+  try {
+    form = await req.formData();
+  } catch {
+    throw new ApiError('bad_request', 'The multipart body could not be read.');
+  }
+  const fields = parseWith(uploadFieldsSchema, { kind: form.get('kind') ?? undefined }, 'upload form');
+  const f = form.get('file');
+  const file = f && typeof f !== 'string' ? { name: f.name, type: f.type, bytes: new Uint8Array(await f.arrayBuffer()) } : null;
+  const ds = await uploadDataset(actor, id, file, fields.kind);
+  return json(ds, 201);
+});

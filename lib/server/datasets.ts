@@ -1,0 +1,178 @@
+/**
+ * Datasets: measured patterns (two or three columns) and structure files (XYZ, extended XYZ, CIF,
+ * Tauforge JSON) uploaded to a project. Every file is parsed on upload by lib/formats; a file that
+ * is empty, too large, binary or unreadable gets a clear error and nothing is stored.
+ */
+import { z } from 'zod';
+import { db } from './db';
+import { ApiError } from './errors';
+import type { Actor } from './actor';
+import { audit } from './audit';
+import { sha256Hex } from './crypto';
+import { iso, listQuery, type Page } from './paging';
+import { access } from './projects';
+import { FormatError, readStructure, sniffFormat } from '../formats';
+import { readMeasured } from '../formats/measured';
+import { symbolOf } from '../structure/elements';
+
+export const MAX_DATASET_BYTES = 20 * 1024 * 1024;
+export const datasetListQuery = listQuery(['created_at', 'filename', 'size', 'kind'] as const, 'created_at');
+export const uploadFieldsSchema = z.object({
+  kind: z.enum(['auto', 'pattern', 'structure'], { message: 'kind is auto, pattern or structure' }).default('auto'),
+});
+
+export interface DatasetInfo {
+  id: number;
+  kind: 'pattern' | 'structure';
+  filename: string;
+  format: string;
+  size: number;
+  sha256: string;
+  summary: Record<string, unknown>;
+  uploadedBy: string | null;
+  createdAt: string;
+  downloadUrl: string;
+}
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+function info(r: any): DatasetInfo {
+  return {
+    id: Number(r.id),
+    kind: r.kind,
+    filename: r.filename,
+    format: r.format,
+    size: Number(r.size),
+    sha256: r.sha256,
+    summary: typeof r.summary === 'string' ? JSON.parse(r.summary) : r.summary,
+    uploadedBy: r.uploaded_by_name ?? null,
+    createdAt: iso(r.created_at)!,
+    downloadUrl: `/api/projects/${r.project_id}/datasets/${r.id}`,
+  };
+}
+
+const PATTERN_EXT = new Set(['xy', 'xye', 'dat', 'csv', 'txt', 'chi', 'tsv']);
+const STRUCTURE_EXT = new Set(['xyz', 'extxyz', 'cif', 'json']);
+
+/** Text sniffing: NUL bytes or invalid UTF-8 mean a binary file, which no reader accepts. */
+export function decodeText(bytes: Uint8Array): string {
+  if (bytes.includes(0)) throw new ApiError('unsupported_media_type', 'This looks like a binary file. Upload plain text: a two-column pattern, XYZ, extended XYZ or CIF.');
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+  } catch {
+    throw new ApiError('unsupported_media_type', 'This file is not UTF-8 text. Upload plain text: a two-column pattern, XYZ, extended XYZ or CIF.');
+  }
+}
+
+export interface Parsed {
+  kind: 'pattern' | 'structure';
+  format: string;
+  summary: Record<string, unknown>;
+}
+
+export function parseUpload(text: string, filename: string, kind: 'auto' | 'pattern' | 'structure'): Parsed {
+  const ext = filename.toLowerCase().match(/\.([a-z0-9]+)$/)?.[1] ?? '';
+  let chosen: 'pattern' | 'structure';
+  if (kind !== 'auto') chosen = kind;
+  else if (STRUCTURE_EXT.has(ext)) chosen = 'structure';
+  else if (PATTERN_EXT.has(ext)) chosen = 'pattern';
+  else {
+    try {
+      sniffFormat(text, filename);
+      chosen = 'structure';
+    } catch {
+      chosen = 'pattern';
+    }
+  }
+  try {
+    if (chosen === 'structure') {
+      const format = sniffFormat(text, filename);
+      const s = readStructure(text, filename);
+      const n = s.species.length;
+      if (n === 0) throw new ApiError('unprocessable', 'The structure file holds no atoms.');
+      const composition: Record<string, number> = {};
+      for (let i = 0; i < n; i++) {
+        const sym = s.species[i] === 0 ? 'X' : symbolOf(s.species[i]);
+        composition[sym] = (composition[sym] ?? 0) + 1;
+      }
+      return { kind: 'structure', format, summary: { atoms: n, periodic: Boolean(s.cell), cell: s.cell ?? null, composition } };
+    }
+    const p = readMeasured(text);
+    let max = -Infinity;
+    for (const v of p.intensity) max = Math.max(max, v);
+    return { kind: 'pattern', format: 'two-column', summary: { axis: p.axis, points: p.x.length, xMin: p.x[0], xMax: p.x[p.x.length - 1], maxIntensity: max, hasSigma: Boolean(p.sigma) } };
+  } catch (e) {
+    if (e instanceof FormatError) throw new ApiError('unprocessable', `This file could not be read: ${e.message}`, { format: e.format, line: e.line ?? null });
+    throw e;
+  }
+}
+
+export interface UploadFile {
+  name: string;
+  type: string;
+  bytes: Uint8Array;
+}
+
+export async function uploadDataset(actor: Actor | null, projectId: number, file: UploadFile | null, kind: 'auto' | 'pattern' | 'structure'): Promise<DatasetInfo> {
+  await access(actor, projectId, 'edit');
+  if (!file) throw new ApiError('validation_failed', 'Attach the file in the form field "file".', { fields: { file: 'required' } });
+  if (file.bytes.length > MAX_DATASET_BYTES) throw new ApiError('too_large', `The file is ${(file.bytes.length / 1048576).toFixed(1)} MB; the limit is 20 MB.`);
+  if (file.bytes.length === 0) throw new ApiError('unprocessable', 'The file is empty.');
+  const filename = file.name.replace(/[\\/]/g, '_').replace(/[\u0000-\u001f]/g, '').slice(0, 255) || 'upload.txt';
+  const text = decodeText(file.bytes);
+  if (text.trim() === '') throw new ApiError('unprocessable', 'The file holds only blank space.');
+  const parsed = parseUpload(text, filename, kind);
+  const id = await db().transaction(async (trx) => {
+    const [id] = await trx('datasets').insert({
+      project_id: projectId,
+      kind: parsed.kind,
+      filename,
+      format: parsed.format,
+      media_type: (file.type || 'text/plain').slice(0, 100),
+      bytes: Buffer.from(file.bytes),
+      sha256: sha256Hex(file.bytes),
+      size: file.bytes.length,
+      summary: JSON.stringify(parsed.summary),
+      uploaded_by: actor!.id,
+    });
+    await audit({ actorId: actor!.id, action: 'dataset.upload', targetType: 'dataset', targetId: id, details: { project: projectId, filename, kind: parsed.kind } }, trx);
+    return Number(id);
+  });
+  return getDataset(actor, projectId, id);
+}
+
+function dsQuery() {
+  return db()('datasets as d').leftJoin('users as u', 'u.id', 'd.uploaded_by')
+    .select('d.id', 'd.project_id', 'd.kind', 'd.filename', 'd.format', 'd.size', 'd.sha256', 'd.summary', 'd.created_at', 'u.name as uploaded_by_name');
+}
+
+export async function getDataset(actor: Actor | null, projectId: number, id: number): Promise<DatasetInfo> {
+  await access(actor, projectId, 'read');
+  const r = await dsQuery().where({ 'd.id': id, 'd.project_id': projectId }).first();
+  if (!r) throw new ApiError('not_found', 'No such dataset in this project.');
+  return info(r);
+}
+
+export async function datasetBytes(actor: Actor | null, projectId: number, id: number): Promise<{ info: DatasetInfo; bytes: Buffer; mediaType: string }> {
+  const i = await getDataset(actor, projectId, id);
+  const r = await db()('datasets').where({ id }).first('bytes', 'media_type');
+  return { info: i, bytes: Buffer.from(r.bytes), mediaType: r.media_type };
+}
+
+export async function listDatasets(actor: Actor | null, projectId: number, q: z.infer<typeof datasetListQuery>): Promise<Page<DatasetInfo>> {
+  await access(actor, projectId, 'read');
+  const base = dsQuery().where('d.project_id', projectId);
+  if (q.q) base.whereLike('d.filename', `%${q.q}%`);
+  const [{ n }] = await db().count<{ n: number }[]>({ n: '*' }).from(base.clone().as('x'));
+  const rows = await base.orderBy(`d.${q.sort}`, q.dir).orderBy('d.id', 'desc').limit(q.pageSize).offset((q.page - 1) * q.pageSize);
+  return { items: rows.map(info), total: Number(n), page: q.page, pageSize: q.pageSize };
+}
+
+export async function deleteDataset(actor: Actor | null, projectId: number, id: number): Promise<void> {
+  await db().transaction(async (trx) => {
+    await access(actor, projectId, 'edit', trx);
+    const r = await trx('datasets').where({ id, project_id: projectId }).first('filename');
+    if (!r) throw new ApiError('not_found', 'No such dataset in this project.');
+    await trx('datasets').where({ id }).delete();
+    await audit({ actorId: actor!.id, action: 'dataset.delete', targetType: 'dataset', targetId: id, details: { project: projectId, filename: r.filename } }, trx);
+  });
+}

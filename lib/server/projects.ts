@@ -1,0 +1,294 @@
+/** Projects: create from a starter, list, read with lineage, change settings, delete, fork. */
+import { z } from 'zod';
+import type { Knex } from 'knex';
+import { modelParamsSchema } from '../params/model';
+import { STARTERS } from '../params/starters';
+import { db } from './db';
+import { ApiError, notFound } from './errors';
+import { authorize, canRead, permissions, type ProjectAccess, type ProjectRole, type Visibility } from './authz';
+import type { Actor } from './actor';
+import { audit } from './audit';
+import { iso, listQuery, type Page } from './paging';
+import { fieldErrors } from './http';
+import { revisionInfo, type RevisionInfo } from './revisions';
+
+const VISIBILITY = ['private', 'unlisted', 'public'] as const;
+
+const tagsSchema = z
+  .array(z.string().trim().min(1, 'a tag cannot be empty').max(32, 'a tag has at most 32 characters').regex(/^[\p{L}\p{N} ._+/-]+$/u, 'tags hold letters, digits, spaces and . _ + / -'))
+  .max(12, 'at most 12 tags')
+  .transform((t) => [...new Set(t)]);
+
+export const createProjectSchema = z
+  .strictObject({
+    name: z.string({ message: 'enter a name' }).trim().min(1, 'enter a name').max(120, 'at most 120 characters'),
+    description: z.string().trim().max(5000, 'at most 5000 characters').default(''),
+    tags: tagsSchema.default([]),
+    visibility: z.enum(VISIBILITY, { message: 'visibility is private, unlisted or public' }).default('private'),
+    starter: z.string().max(64).optional(),
+    params: z.unknown().optional(),
+    message: z.string().trim().max(500).optional(),
+  })
+  .refine((v) => v.starter !== undefined || v.params !== undefined, { message: 'choose a starter or send params', path: ['starter'] });
+
+export const updateProjectSchema = z
+  .strictObject({
+    name: z.string().trim().min(1, 'enter a name').max(120, 'at most 120 characters').optional(),
+    description: z.string().trim().max(5000, 'at most 5000 characters').optional(),
+    tags: tagsSchema.optional(),
+    visibility: z.enum(VISIBILITY, { message: 'visibility is private, unlisted or public' }).optional(),
+  })
+  .refine((v) => Object.keys(v).length > 0, 'send at least one of name, description, tags, visibility');
+
+export const forkSchema = z.strictObject({
+  revision: z.number().int().positive().optional(),
+  name: z.string().trim().min(1).max(120).optional(),
+});
+
+export const projectListQuery = listQuery(['updated_at', 'created_at', 'name'] as const, 'updated_at').extend({
+  scope: z.enum(['mine', 'public']).default('mine'),
+  tag: z.string().max(32).optional(),
+});
+
+export interface ProjectSummary {
+  id: number;
+  name: string;
+  description: string;
+  tags: string[];
+  visibility: Visibility;
+  ownerName: string;
+  role: ProjectRole | null;
+  headRevision: number | null;
+  headNumber: number | null;
+  forkedFrom: number | null;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface ProjectLink {
+  id: number;
+  name: string;
+  ownerName: string;
+  revision: number | null;
+  revisionNumber: number | null;
+}
+
+export interface ProjectDetail extends ProjectSummary {
+  head: RevisionInfo | null;
+  revisionCount: number;
+  parent: (ProjectLink & { visible: boolean }) | null;
+  forks: ProjectLink[];
+  permissions: ReturnType<typeof permissions>;
+}
+
+export function validateParams(params: unknown): Record<string, unknown> {
+  const r = modelParamsSchema.safeParse(params);
+  if (!r.success) throw new ApiError('validation_failed', 'The model parameters are not valid.', { fields: prefix(fieldErrors(r.error), 'params') });
+  return r.data as Record<string, unknown>;
+}
+
+function prefix(fields: Record<string, string>, p: string): Record<string, string> {
+  return Object.fromEntries(Object.entries(fields).map(([k, v]) => [k === '(body)' ? p : `${p}.${k}`, v]));
+}
+
+function tagsOf(v: unknown): string[] {
+  if (Array.isArray(v)) return v.map(String);
+  if (typeof v === 'string') {
+    try {
+      const a = JSON.parse(v);
+      return Array.isArray(a) ? a.map(String) : [];
+    } catch {
+      return [];
+    }
+  }
+  return [];
+}
+
+/** Load a project's visibility and the actor's role, for authorize(). 404 when absent. */
+export async function loadAccess(actor: Actor | null, projectId: number, trx: Knex | Knex.Transaction = db()): Promise<ProjectAccess> {
+  const p = await trx('projects').where({ id: projectId }).first('id', 'visibility');
+  if (!p) throw notFound();
+  let role: ProjectRole | null = null;
+  if (actor) {
+    const m = await trx('project_members').where({ project_id: projectId, user_id: actor.id }).first('role');
+    role = m?.role ?? null;
+  }
+  return { id: Number(p.id), visibility: p.visibility, role };
+}
+
+/** loadAccess + authorize in one call: the first line of every project service. */
+export async function access(actor: Actor | null, projectId: number, action: Parameters<typeof authorize>[2], trx?: Knex | Knex.Transaction): Promise<ProjectAccess> {
+  const a = await loadAccess(actor, projectId, trx);
+  authorize(actor, a, action);
+  return a;
+}
+
+function summaryQuery(k: Knex | Knex.Transaction, actor: Actor | null) {
+  const q = k('projects as p')
+    .join('users as o', 'o.id', 'p.owner_id')
+    .leftJoin('revisions as h', 'h.id', 'p.head_revision')
+    .select('p.id', 'p.name', 'p.description', 'p.tags', 'p.visibility', 'p.head_revision', 'p.forked_from_project', 'p.created_at', 'p.updated_at', 'o.name as owner_name', 'h.number as head_number');
+  if (actor) {
+    q.leftJoin('project_members as me', function () {
+      this.on('me.project_id', '=', 'p.id').andOn('me.user_id', '=', k.raw('?', [actor.id]));
+    }).select('me.role as my_role');
+  } else {
+    q.select(k.raw('NULL as my_role'));
+  }
+  return q;
+}
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+function summary(r: any): ProjectSummary {
+  return {
+    id: Number(r.id),
+    name: r.name,
+    description: r.description,
+    tags: tagsOf(r.tags),
+    visibility: r.visibility,
+    ownerName: r.owner_name,
+    role: r.my_role ?? null,
+    headRevision: r.head_revision ? Number(r.head_revision) : null,
+    headNumber: r.head_number ? Number(r.head_number) : null,
+    forkedFrom: r.forked_from_project ? Number(r.forked_from_project) : null,
+    createdAt: iso(r.created_at)!,
+    updatedAt: iso(r.updated_at)!,
+  };
+}
+
+export async function listProjects(actor: Actor | null, q: z.infer<typeof projectListQuery>): Promise<Page<ProjectSummary>> {
+  const k = db();
+  const base = summaryQuery(k, actor);
+  if (q.scope === 'mine') {
+    if (!actor) throw new ApiError('unauthenticated', 'Sign in to see your projects (or ask for scope=public).');
+    base.whereNotNull('me.role');
+  } else {
+    base.where('p.visibility', 'public');
+  }
+  if (q.q) base.where((w) => w.whereLike('p.name', `%${q.q}%`).orWhereLike('p.description', `%${q.q}%`));
+  if (q.tag) base.whereRaw('JSON_CONTAINS(p.tags, ?)', [JSON.stringify(q.tag)]);
+  const countRow = await k.count<{ n: number }[]>({ n: '*' }).from(base.clone().as('x'));
+  const rows = await base.orderBy(`p.${q.sort}`, q.dir).orderBy('p.id', 'desc').limit(q.pageSize).offset((q.page - 1) * q.pageSize);
+  return { items: rows.map(summary), total: Number(countRow[0].n), page: q.page, pageSize: q.pageSize };
+}
+
+export async function createProject(actor: Actor, input: z.infer<typeof createProjectSchema>): Promise<ProjectSummary> {
+  let params: unknown = input.params;
+  if (params === undefined) {
+    const s = STARTERS.find((x) => x.id === input.starter);
+    if (!s) throw new ApiError('validation_failed', 'The request body is not valid.', { fields: { starter: `no starter called "${input.starter}"; choose one of ${STARTERS.map((x) => x.id).join(', ')}` } });
+    params = s.params;
+  }
+  const valid = validateParams(params);
+  const id = await db().transaction(async (trx) => {
+    const [pid] = await trx('projects').insert({
+      owner_id: actor.id,
+      name: input.name,
+      description: input.description,
+      tags: JSON.stringify(input.tags),
+      visibility: input.visibility,
+    });
+    await trx('project_members').insert({ project_id: pid, user_id: actor.id, role: 'owner' });
+    const [rid] = await trx('revisions').insert({ project_id: pid, number: 1, params: JSON.stringify(valid), message: input.message || 'First cut', author_id: actor.id });
+    await trx('projects').where({ id: pid }).update({ head_revision: rid });
+    await audit({ actorId: actor.id, action: 'project.create', targetType: 'project', targetId: pid, details: { starter: input.starter ?? null } }, trx);
+    return Number(pid);
+  });
+  return getSummary(actor, id);
+}
+
+async function getSummary(actor: Actor | null, id: number, k: Knex | Knex.Transaction = db()): Promise<ProjectSummary> {
+  const r = await summaryQuery(k, actor).where('p.id', id).first();
+  if (!r) throw notFound();
+  return summary(r);
+}
+
+export async function getProject(actor: Actor | null, id: number): Promise<ProjectDetail> {
+  const a = await access(actor, id, 'read');
+  const k = db();
+  const s = await getSummary(actor, id);
+  const head = s.headRevision ? await k('revisions as r').leftJoin('users as u', 'u.id', 'r.author_id').where('r.id', s.headRevision).first('r.*', 'u.name as author_name') : null;
+  const [{ n }] = await k('revisions').where({ project_id: id }).count<{ n: number }[]>({ n: '*' });
+  const p = await k('projects').where({ id }).first('forked_from_project', 'forked_from_revision');
+  let parent: ProjectDetail['parent'] = null;
+  if (p.forked_from_project) {
+    const pr = await k('projects as p').join('users as o', 'o.id', 'p.owner_id').where('p.id', p.forked_from_project).first('p.id', 'p.name', 'p.visibility', 'o.name as owner_name');
+    if (pr) {
+      const pa = await loadAccess(actor, Number(pr.id));
+      const rev = p.forked_from_revision ? await k('revisions').where({ id: p.forked_from_revision }).first('number') : null;
+      const visible = canRead(actor, pa);
+      parent = {
+        id: Number(pr.id),
+        name: visible ? pr.name : 'a private project',
+        ownerName: visible ? pr.owner_name : '',
+        revision: p.forked_from_revision ? Number(p.forked_from_revision) : null,
+        revisionNumber: rev ? Number(rev.number) : null,
+        visible,
+      };
+    }
+  }
+  const forkRows = await summaryQuery(k, actor).where('p.forked_from_project', id).leftJoin('revisions as fr', 'fr.id', 'p.forked_from_revision').select('p.forked_from_revision', 'fr.number as fork_number', 'p.visibility').orderBy('p.created_at', 'asc');
+  const forks: ProjectLink[] = forkRows
+    .filter((r) => r.visibility !== 'private' || r.my_role || actor?.siteRole === 'admin')
+    .map((r) => ({ id: Number(r.id), name: r.name, ownerName: r.owner_name, revision: r.forked_from_revision ? Number(r.forked_from_revision) : null, revisionNumber: r.fork_number ? Number(r.fork_number) : null }));
+  return {
+    ...s,
+    head: head ? revisionInfo(head) : null,
+    revisionCount: Number(n),
+    parent,
+    forks,
+    permissions: permissions(actor, a),
+  };
+}
+
+export async function updateProject(actor: Actor | null, id: number, input: z.infer<typeof updateProjectSchema>): Promise<ProjectSummary> {
+  await db().transaction(async (trx) => {
+    await access(actor, id, 'manage', trx);
+    const patch: Record<string, unknown> = { updated_at: trx.fn.now(3) };
+    if (input.name !== undefined) patch.name = input.name;
+    if (input.description !== undefined) patch.description = input.description;
+    if (input.tags !== undefined) patch.tags = JSON.stringify(input.tags);
+    if (input.visibility !== undefined) patch.visibility = input.visibility;
+    await trx('projects').where({ id }).update(patch);
+    await audit({ actorId: actor!.id, action: 'project.update', targetType: 'project', targetId: id, details: { fields: Object.keys(input) } }, trx);
+  });
+  return getSummary(actor, id);
+}
+
+export async function deleteProject(actor: Actor | null, id: number): Promise<void> {
+  await db().transaction(async (trx) => {
+    await access(actor, id, 'delete', trx);
+    const p = await trx('projects').where({ id }).first('name');
+    // Break the projects ↔ revisions cycle first, and detach forks (their lineage keeps "deleted").
+    await trx('projects').where({ id }).update({ head_revision: null });
+    await trx('projects').where({ forked_from_project: id }).update({ forked_from_project: null, forked_from_revision: null });
+    await trx('projects').where({ id }).delete();
+    await audit({ actorId: actor!.id, action: 'project.delete', targetType: 'project', targetId: id, details: { name: p?.name } }, trx);
+  });
+}
+
+export async function forkProject(actor: Actor | null, id: number, input: z.infer<typeof forkSchema>): Promise<ProjectSummary> {
+  const newId = await db().transaction(async (trx) => {
+    await access(actor, id, 'fork', trx);
+    const src = await trx('projects').where({ id }).first();
+    const revId = input.revision ?? src.head_revision;
+    const rev = revId ? await trx('revisions').where({ id: revId, project_id: id }).first() : null;
+    if (!rev) throw new ApiError('not_found', 'No such revision in this project.');
+    const [pid] = await trx('projects').insert({
+      owner_id: actor!.id,
+      name: input.name ?? `${src.name} (fork)`.slice(0, 120),
+      description: src.description,
+      tags: typeof src.tags === 'string' ? src.tags : JSON.stringify(src.tags ?? []),
+      visibility: 'private',
+      forked_from_project: id,
+      forked_from_revision: rev.id,
+    });
+    await trx('project_members').insert({ project_id: pid, user_id: actor!.id, role: 'owner' });
+    const params = typeof rev.params === 'string' ? rev.params : JSON.stringify(rev.params);
+    const [rid] = await trx('revisions').insert({ project_id: pid, number: 1, params, message: `Forked from “${src.name}” revision ${rev.number}`, author_id: actor!.id });
+    await trx('projects').where({ id: pid }).update({ head_revision: rid });
+    await audit({ actorId: actor!.id, action: 'project.fork', targetType: 'project', targetId: pid, details: { from: id, revision: Number(rev.id) } }, trx);
+    return Number(pid);
+  });
+  return getSummary(actor, newId);
+}

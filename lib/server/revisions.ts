@@ -1,0 +1,114 @@
+/**
+ * Revisions: every save is a new immutable row. Saves carry the revision the client edited
+ * (baseRevision); if the head has moved on, the save answers 409 with the newer head and stores
+ * nothing, so the client still holds its edits and can merge them onto the newer revision.
+ */
+import { z } from 'zod';
+import { db } from './db';
+import { ApiError } from './errors';
+import type { Actor } from './actor';
+import { audit } from './audit';
+import { iso, listQuery, type Page } from './paging';
+import { jsonDiff, type DiffEntry } from './json-diff';
+import { access, validateParams } from './projects';
+
+export const saveRevisionSchema = z.strictObject({
+  params: z.unknown().refine((v) => v !== undefined, 'send the model params'),
+  message: z.string({ message: 'describe the change' }).trim().min(1, 'describe the change in a few words').max(500, 'at most 500 characters'),
+  baseRevision: z.number({ message: 'send the id of the revision you edited' }).int().positive().nullable(),
+});
+
+export const restoreSchema = z.strictObject({
+  message: z.string().trim().max(500).optional(),
+  baseRevision: z.number().int().positive().nullable().optional(),
+});
+
+export const revisionListQuery = listQuery(['number', 'created_at'] as const, 'number');
+export const diffQuery = z.object({
+  from: z.coerce.number({ message: 'from must be a revision id' }).int().positive(),
+  to: z.coerce.number({ message: 'to must be a revision id' }).int().positive(),
+});
+
+export interface RevisionInfo {
+  id: number;
+  number: number;
+  message: string;
+  authorName: string | null;
+  createdAt: string;
+  params: Record<string, unknown>;
+}
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export function revisionInfo(r: any): RevisionInfo {
+  return {
+    id: Number(r.id),
+    number: Number(r.number),
+    message: r.message,
+    authorName: r.author_name ?? null,
+    createdAt: iso(r.created_at)!,
+    params: typeof r.params === 'string' ? JSON.parse(r.params) : r.params,
+  };
+}
+
+function revQuery() {
+  return db()('revisions as r').leftJoin('users as u', 'u.id', 'r.author_id').select('r.*', 'u.name as author_name');
+}
+
+export async function listRevisions(actor: Actor | null, projectId: number, q: z.infer<typeof revisionListQuery>): Promise<Page<RevisionInfo>> {
+  await access(actor, projectId, 'read');
+  const base = revQuery().where('r.project_id', projectId);
+  if (q.q) base.whereLike('r.message', `%${q.q}%`);
+  const [{ n }] = await db().count<{ n: number }[]>({ n: '*' }).from(base.clone().as('x'));
+  const rows = await base.orderBy(`r.${q.sort}`, q.dir).orderBy('r.id', q.dir).limit(q.pageSize).offset((q.page - 1) * q.pageSize);
+  return { items: rows.map(revisionInfo), total: Number(n), page: q.page, pageSize: q.pageSize };
+}
+
+export async function getRevision(actor: Actor | null, projectId: number, revisionId: number): Promise<RevisionInfo> {
+  await access(actor, projectId, 'read');
+  const r = await revQuery().where({ 'r.id': revisionId, 'r.project_id': projectId }).first();
+  if (!r) throw new ApiError('not_found', 'No such revision in this project.');
+  return revisionInfo(r);
+}
+
+async function insertRevision(actor: Actor | null, projectId: number, params: unknown, message: string, baseRevision: number | null | undefined, action: string, details: Record<string, unknown> = {}): Promise<RevisionInfo> {
+  const valid = validateParams(params);
+  const id = await db().transaction(async (trx) => {
+    await access(actor, projectId, 'edit', trx);
+    // Lock the project row: concurrent saves serialise here, and the loser sees the new head.
+    const p = await trx('projects').where({ id: projectId }).forUpdate().first('head_revision');
+    const head = p.head_revision ? Number(p.head_revision) : null;
+    if (baseRevision !== undefined && baseRevision !== head) {
+      const newer = head ? await trx('revisions as r').leftJoin('users as u', 'u.id', 'r.author_id').where('r.id', head).first('r.*', 'u.name as author_name') : null;
+      throw new ApiError('conflict', 'Someone saved a newer revision while you were editing. Your changes were not saved; review the newer revision and save again on top of it.', {
+        baseRevision,
+        head: newer ? revisionInfo(newer) : null,
+      });
+    }
+    const last = await trx('revisions').where({ project_id: projectId }).max<{ n: number | null }>({ n: 'number' }).first();
+    const number = Number(last?.n ?? 0) + 1;
+    const [rid] = await trx('revisions').insert({ project_id: projectId, number, params: JSON.stringify(valid), message, author_id: actor!.id });
+    await trx('projects').where({ id: projectId }).update({ head_revision: rid, updated_at: trx.fn.now(3) });
+    await audit({ actorId: actor!.id, action, targetType: 'revision', targetId: rid, details: { project: projectId, number, ...details } }, trx);
+    return Number(rid);
+  });
+  const r = await revQuery().where('r.id', id).first();
+  return revisionInfo(r);
+}
+
+export async function saveRevision(actor: Actor | null, projectId: number, input: z.infer<typeof saveRevisionSchema>): Promise<RevisionInfo> {
+  return insertRevision(actor, projectId, input.params, input.message, input.baseRevision, 'revision.save');
+}
+
+export async function restoreRevision(actor: Actor | null, projectId: number, revisionId: number, input: z.infer<typeof restoreSchema>): Promise<RevisionInfo> {
+  await access(actor, projectId, 'edit');
+  const old = await db()('revisions').where({ id: revisionId, project_id: projectId }).first();
+  if (!old) throw new ApiError('not_found', 'No such revision in this project.');
+  const params = typeof old.params === 'string' ? JSON.parse(old.params) : old.params;
+  return insertRevision(actor, projectId, params, input.message || `Restore revision ${old.number}`, input.baseRevision, 'revision.restore', { restored: revisionId });
+}
+
+export async function diffRevisions(actor: Actor | null, projectId: number, q: z.infer<typeof diffQuery>): Promise<{ from: RevisionInfo; to: RevisionInfo; changes: DiffEntry[] }> {
+  const from = await getRevision(actor, projectId, q.from);
+  const to = await getRevision(actor, projectId, q.to);
+  return { from, to, changes: jsonDiff(from.params, to.params) };
+}
