@@ -143,6 +143,55 @@ print(json.dumps({"ase": {"cell": a.cell.cellpar().tolist(), "frac": a.get_scale
   });
 });
 
+describe('CIF reader: other writers', () => {
+  it('reads standard uncertainties, quoted values, comments and text fields', () => {
+    const text = `# a comment
+data_su
+_cell_length_a 4.0495(3)
+_cell_length_b 4.0495(3)
+_cell_length_c 4.0495(3)
+_cell_angle_alpha 90
+_cell_angle_beta 90.00
+_cell_angle_gamma 90.0(1)
+_publ_section_title
+;
+A title with 'quotes' and data_ words
+;
+_symmetry_space_group_name_H-M 'P 1'
+loop_
+_atom_site_label
+_atom_site_fract_x
+_atom_site_fract_y
+_atom_site_fract_z
+_atom_site_occupancy
+Al1 0.5(1) 0.25 0 1.0
+'Mn 2' 0 0 0 ?
+`;
+    const r = readCif(text);
+    expect(Array.from(r.species)).toEqual([13, 25]);
+    expect(r.positions[0]).toBeCloseTo(0.5 * 4.0495, 9);
+    expect(r.occupancy).toBeUndefined();
+  });
+
+  it.skipIf(!hasPython('ase'))('reads a rock-salt NaCl cell written by ase.io.write (8 atoms, Na–Cl 2.82 Å)', () => {
+    const text = runPython<string>(
+      `import io, json
+from ase.build import bulk
+from ase.io import write
+a = bulk("NaCl", "rocksalt", a=5.64, cubic=True)
+f = io.BytesIO(); write(f, a, format="cif"); print(json.dumps(f.getvalue().decode()))`,
+    );
+    const r = readCif(text);
+    expect(r.species.length).toBe(8);
+    expect([...r.species].sort()).toEqual([11, 11, 11, 11, 17, 17, 17, 17]);
+    expect(cellParameters(r.cell!).a).toBeCloseTo(5.64, 6);
+    // Closest Na–Cl distance a/2 (rock-salt geometry).
+    let best = Infinity;
+    for (let i = 0; i < 8; i++) for (let j = 0; j < 8; j++) if (r.species[i] !== r.species[j]) best = Math.min(best, Math.hypot(r.positions[3 * i] - r.positions[3 * j], r.positions[3 * i + 1] - r.positions[3 * j + 1], r.positions[3 * i + 2] - r.positions[3 * j + 2]));
+    expect(best).toBeCloseTo(2.82, 6);
+  });
+});
+
 describe('CIF reader: symmetry expansion against gemmi space-group tables', () => {
   const cases: { name: string; hm: string; cell: number[]; sites: [string, number, number, number][]; count: number }[] = [
     // fcc Al, a = 4.0495 Å (handbook value, from memory): 4 atoms in the conventional cell.
