@@ -14,3 +14,6 @@ export * from './intensity-at';
 export * from './pair-histogram';
 export * from './debye';
 export * from './debye-powder';
+export * from './window-transform';
+export * from './indexing';
+export * from './hyperspace';
