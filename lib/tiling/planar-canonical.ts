@@ -120,6 +120,28 @@ function keyer(n: number) {
   };
 }
 
+/**
+ * Period lattice of a rational cut: integer periods t1, t2 (P t = 0, and Σt = 0 with index levels) and their
+ * parallel images a, b (edge 1), Lagrange–Gauss reduced.
+ */
+export function approximantCell(spec: PlanarSpec): { t: [number[], number[]]; a: [[number, number], [number, number]] } {
+  const { n, perp, par } = spec;
+  if (!spec.rational) throw new Error('approximant: the cut is not rational');
+  const rows = perp.map((r) => r.slice());
+  if (spec.levels) rows.push(new Array(n).fill(1));
+  const ker = integerKernel(rows, n);
+  if (ker.length !== 2) throw new Error(`approximant: period lattice has rank ${ker.length}, expected 2`);
+  const px = (K: number[]): [number, number] => {
+    let x = 0, y = 0;
+    for (let j = 0; j < n; j++) {
+      x += par[0][j] * K[j];
+      y += par[1][j] * K[j];
+    }
+    return [x, y];
+  };
+  return reduceBasis2(ker[0], ker[1], px);
+}
+
 export function buildPlanar(
   spec: PlanarSpec,
   extent: { radius: number } | { approximant: true },
@@ -173,11 +195,7 @@ export function buildPlanar(
     const R2 = (R + 2) ** 2;
     inRegion = (x, y) => x * x + y * y <= R2;
   } else {
-    const rows = perp.map((r) => r.slice());
-    if (spec.levels) rows.push(new Array(n).fill(1));
-    const ker = integerKernel(rows, n);
-    if (ker.length !== 2) throw new Error(`approximant: period lattice has rank ${ker.length}, expected 2`);
-    const red = reduceBasis2(ker[0], ker[1], px);
+    const red = approximantCell(spec);
     periods = red.t;
     cell = red.a;
     const [[ax, ay], [bx, by]] = cell;
