@@ -103,7 +103,10 @@ export function approximantVertexCount(p: number, q: number): number {
 
 /** floor((A + Bτ)/D) with D = 2(pτ + q), exact (header). */
 function floorFrac(A: number, B: number, p: number, q: number): number {
-  let k = Math.floor((A + B * TAU) / (2 * (p * TAU + q)));
+  const v = (A + B * TAU) / (2 * (p * TAU + q));
+  let k = Math.floor(v);
+  // Far from an integer the float floor is already exact; only near-ties need the exact sign test.
+  if (v - k > 1e-9 && v - k < 1 - 1e-9) return k;
   if (A - 2 * q * k + (B - 2 * p * k) * TAU < 0) k--;
   else if (A - 2 * q * (k + 1) + (B - 2 * p * (k + 1)) * TAU >= 0) k++;
   return k;
