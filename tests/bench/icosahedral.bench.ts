@@ -21,7 +21,7 @@ function fitExponent(pts: { n: number; t: number }[]): number {
   return num / den;
 }
 
-export default async function (): Promise<void> {
+export default async function icosahedralBench(): Promise<void> {
   const mb = (b: number) => (b / 2 ** 20).toFixed(0);
   let peakRss = 0;
   let peakHeap = 0;
