@@ -3,3 +3,4 @@ export * from './chain';
 export * from './icosahedral';
 export * from './decoration';
 export * from './planar';
+export * from './decagonal';

@@ -7,3 +7,6 @@ export * from './approximant';
 export * from './decorate';
 export * from './penrose';
 export * from './octagonal';
+export * from './decagonal';
+export * from './polyhedra';
+export * from './clusters';
