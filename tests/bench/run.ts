@@ -4,17 +4,24 @@
  * `npm run bench -- NAME` runs only the modules whose file name contains NAME.
  */
 import { readdirSync } from 'node:fs';
-import { dirname, join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
 
-const here = dirname(fileURLToPath(import.meta.url));
-const filter = process.argv[2];
-const files = readdirSync(here)
-  .filter((f) => f.endsWith('.bench.ts') && (!filter || f.includes(filter)))
-  .sort();
-
-for (const f of files) {
-  console.log(`\n== ${f.replace('.bench.ts', '')} ==`);
-  const mod = (await import(pathToFileURL(join(here, f)).href)) as { default: () => Promise<void> };
-  await mod.default();
+async function main() {
+  const here = __dirname;
+  const filter = process.argv[2];
+  const files = readdirSync(here)
+    .filter((f) => f.endsWith('.bench.ts') && (!filter || f.includes(filter)))
+    .sort();
+  for (const f of files) {
+    console.log(`\n== ${f.replace('.bench.ts', '')} ==`);
+    const mod = (await import(pathToFileURL(join(here, f)).href)) as { default: () => Promise<void> | { default: () => Promise<void> } };
+    const fn = typeof mod.default === 'function' ? mod.default : (mod.default as { default: () => Promise<void> }).default;
+    await fn();
+  }
 }
+
+main().catch((err: unknown) => {
+  console.error(err);
+  process.exit(1);
+});
