@@ -10,7 +10,7 @@ function time(label: string, make: () => { species: Uint16Array }): void {
   console.log(`${label.padEnd(34)} ${String(s.species.length).padStart(9)} points  ${ms.toFixed(0).padStart(6)} ms  ${(s.species.length / ms / 1000).toFixed(2)} Mpoints/s`);
 }
 
-export default async function (): Promise<void> {
+export default async function planarBench(): Promise<void> {
   time('chain order 28', () => fibonacciChain({ order: 28 }));
   time('penrose radius 100', () => penroseTiling({ radius: 100 }));
   time('penrose radius 200', () => penroseTiling({ radius: 200 }));
