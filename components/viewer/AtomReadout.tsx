@@ -1,0 +1,69 @@
+'use client';
+/** What is known about the picked atoms, and the distance and angle between them. */
+import type { Structure } from '@/lib/structure/types';
+import { symbolOf, toFractional } from '@/lib/structure';
+import { angleAt, distanceBetween } from '@/lib/view/pick';
+import type { ViewStore } from './store';
+
+const f3 = (x: number) => x.toFixed(3);
+
+export function AtomReadout({ structure, store }: { structure: Structure; store: ViewStore }) {
+  const picks = store((s) => s.picks).filter((i) => i < structure.species.length);
+  const p = structure.positions;
+  if (picks.length === 0) {
+    return (
+      <p className="rounded-lg border border-rule bg-card px-3 py-2 text-sm text-ink-soft" data-testid="atom-readout" aria-live="polite">
+        Click an atom (or focus the view and press Enter) to read it; shift-click adds a second and third for a distance and an angle.
+      </p>
+    );
+  }
+  const last = picks.length - 1;
+  return (
+    <div className="rounded-lg border border-rule bg-card px-3 py-2 text-sm" data-testid="atom-readout" aria-live="polite">
+      <table className="w-full font-mono text-xs">
+        <thead className="text-left text-ink-soft">
+          <tr>
+            <th className="font-medium">atom</th>
+            <th className="font-medium">species</th>
+            <th className="font-medium">site</th>
+            <th className="font-medium">x y z (Å)</th>
+            {structure.cell && <th className="font-medium">fractional</th>}
+            {structure.perp && <th className="font-medium">perpendicular (Å)</th>}
+          </tr>
+        </thead>
+        <tbody>
+          {picks.map((i, k) => {
+            const z = structure.species[i];
+            const site = structure.site && structure.siteClasses ? structure.siteClasses[structure.site[i]]?.name : undefined;
+            const frac = structure.cell ? toFractional(structure.cell, p.subarray(3 * i, 3 * i + 3)) : null;
+            const dim = structure.perpDim ?? 3;
+            const perp = structure.perp ? Array.from(structure.perp.subarray(dim * i, dim * i + dim)) : null;
+            return (
+              <tr key={i} className={k === last ? 'text-ink' : 'text-ink-soft'} data-testid="picked-atom">
+                <td>#{i}</td>
+                <td>
+                  {symbolOf(z)}
+                  {z ? ` (Z ${z})` : ' (unassigned)'}
+                </td>
+                <td>{site ?? '—'}</td>
+                <td>{[p[3 * i], p[3 * i + 1], p[3 * i + 2]].map(f3).join('  ')}</td>
+                {frac && <td>{Array.from(frac).map(f3).join('  ')}</td>}
+                {structure.perp && <td>{perp ? perp.map(f3).join('  ') : '—'}</td>}
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      {picks.length >= 2 && (
+        <p className="mt-1 text-xs" data-testid="measure">
+          distance #{picks[last - 1]}–#{picks[last]}: <b className="font-mono">{distanceBetween(p, picks[last - 1], picks[last]).toFixed(3)} Å</b>
+          {picks.length >= 3 && (
+            <>
+              {' · '}angle #{picks[0]}–#{picks[1]}–#{picks[2]}: <b className="font-mono">{angleAt(p, picks[0], picks[1], picks[2]).toFixed(2)}°</b>
+            </>
+          )}
+        </p>
+      )}
+    </div>
+  );
+}

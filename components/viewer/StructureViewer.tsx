@@ -1,0 +1,166 @@
+'use client';
+/**
+ * <StructureViewer>: a Structure in 3D. Atoms are sphere impostors (one quad per atom, one draw call per
+ * species), the canvas renders only when something changes, and the view state lives in a zustand store
+ * (./store) that panels beside the viewer can share. Mount it through ./LazyStructureViewer (no SSR).
+ */
+import { Canvas } from '@react-three/fiber';
+import { useEffect, useImperativeHandle, useMemo, useRef, useState } from 'react';
+import * as THREE from 'three';
+import type { Structure } from '@/lib/structure/types';
+import { directionVector } from '@/lib/view/axes';
+import { projectionRange, slabAround, type Ball, type Slab } from '@/lib/view/slab';
+import type { Vec3 } from '@/lib/view/vec';
+import { applyClip, createClipUniforms } from './impostorMaterial';
+import { Bonds, CellEdges, ImpostorAtoms, NaiveAtoms, PickMarks } from './layers';
+import { Rig, type ViewerHandle } from './rig';
+import { atomRadii, sceneData } from './sceneData';
+import { useViewStore, type ViewStore } from './store';
+import { ViewerPanel } from './ViewerPanel';
+import { AtomReadout } from './AtomReadout';
+
+export type { ViewerHandle };
+
+export interface StructureViewerProps {
+  structure: Structure;
+  /** View state; defaults to the shared useViewStore. */
+  store?: ViewStore;
+  /** 'impostor' (the viewer) or 'naive' (triangulated spheres, for the benchmark only). */
+  drawMode?: 'impostor' | 'naive';
+  /** Show the control panel beside the view (default true). */
+  showPanel?: boolean;
+  /** Show the picked-atom readout under the view (default true). */
+  showReadout?: boolean;
+  /** Classes for the outer box; give it a height (default h-[640px]). */
+  className?: string;
+  /** Also put the handle on window.__tauforgeViewer (lab pages, benchmark, browser tests). */
+  exposeTestHook?: boolean;
+  /** Snapshot and frame-timing handle. */
+  ref?: React.Ref<ViewerHandle | null>;
+}
+
+/** Slab and ball in Å from the view state, or null when off. */
+export function useClipShapes(structure: Structure, store: ViewStore): { slab: Slab | null; ball: Ball | null } {
+  const slabState = store((s) => s.slab);
+  const cluster = store((s) => s.cluster);
+  const picks = store((s) => s.picks);
+  const slab = useMemo(() => {
+    if (!slabState.on) return null;
+    const n = directionVector(slabState.direction, structure.cell);
+    const range = projectionRange(structure.positions, n);
+    return slabAround(n, range.mid + slabState.offset, slabState.thickness);
+  }, [slabState, structure]);
+  const centreAtom = cluster.centre ?? (picks.length ? picks[picks.length - 1] : null);
+  const ball = useMemo(() => {
+    if (!cluster.on) return null;
+    const p = structure.positions;
+    let c: Vec3;
+    if (centreAtom !== null && 3 * centreAtom + 2 < p.length) c = [p[3 * centreAtom], p[3 * centreAtom + 1], p[3 * centreAtom + 2]];
+    else {
+      const n = p.length / 3;
+      c = [0, 0, 0];
+      for (let i = 0; i < n; i++) for (let d = 0; d < 3; d++) c[d] += p[3 * i + d] / Math.max(1, n);
+    }
+    return { centre: c, radius: cluster.radius };
+  }, [cluster.on, cluster.radius, centreAtom, structure]);
+  return { slab, ball };
+}
+
+export function StructureViewer({
+  structure,
+  store = useViewStore,
+  drawMode = 'impostor',
+  showPanel = true,
+  showReadout = true,
+  className = 'h-[640px]',
+  exposeTestHook = false,
+  ref,
+}: StructureViewerProps) {
+  const radiusScale = store((s) => s.radiusScale);
+  const picks = store((s) => s.picks);
+  const bonds = store((s) => s.bonds);
+  const showCell = store((s) => s.showCell);
+  const handleRef = useRef<ViewerHandle | null>(null);
+  useImperativeHandle(ref, () => ({
+    snapshot: () => handleRef.current?.snapshot() ?? '',
+    renderFrames: (k) => handleRef.current?.renderFrames(k) ?? { msPerFrame: NaN, triangles: 0, calls: 0 },
+    atomScreen: (i) => handleRef.current?.atomScreen(i) ?? null,
+    frames: () => handleRef.current?.frames() ?? 0,
+  }));
+
+  // Extent and batches do not depend on the radius scale except for the margin: compute at scale 1.
+  const data = useMemo(() => sceneData(structure, 1), [structure]);
+  const radii = useMemo(() => atomRadii(structure.species, radiusScale), [structure, radiusScale]);
+  const [clip] = useState(createClipUniforms);
+  const { slab, ball } = useClipShapes(structure, store);
+  const [invalidate, setInvalidate] = useState<(() => void) | null>(null);
+  const [bondCount, setBondCount] = useState<{ n: number; truncated: boolean } | null>(null);
+
+  // Atom indices refer to this structure only: forget picks when it changes.
+  useEffect(() => {
+    store.getState().clearPicks();
+    store.getState().setCluster({ centre: null });
+  }, [structure, store]);
+
+  useEffect(() => {
+    applyClip(clip, slab, ball);
+    invalidate?.();
+  }, [clip, slab, ball, invalidate]);
+
+  useEffect(() => {
+    invalidate?.();
+  }, [invalidate, radiusScale, picks, bonds, showCell, drawMode]);
+
+  return (
+    <div className={`grid min-h-0 gap-3 ${showPanel ? 'grid-cols-[minmax(0,1fr)_17rem]' : 'grid-cols-1'} ${className}`}>
+      <div className="flex min-h-0 flex-col gap-2">
+        <div className="relative min-h-0 flex-1 overflow-hidden rounded-lg border border-rule bg-card" data-testid="viewer-canvas">
+          <Canvas
+            frameloop="demand"
+            dpr={1}
+            gl={{ antialias: true, preserveDrawingBuffer: false, alpha: false }}
+            onCreated={(state) => {
+              state.gl.setClearColor(new THREE.Color('#fffdf8'), 1);
+              setInvalidate(() => state.invalidate);
+            }}
+          >
+            <Rig
+              store={store}
+              centre={data.centre}
+              radius={data.radius * Math.max(1, radiusScale)}
+              positions={structure.positions}
+              radii={radii}
+              cell={structure.cell}
+              slab={slab}
+              ball={ball}
+              handleRef={handleRef}
+              exposeTestHook={exposeTestHook}
+            />
+            {drawMode === 'naive' ? (
+              <NaiveAtoms batches={data.batches} radiusScale={radiusScale} />
+            ) : (
+              <ImpostorAtoms batches={data.batches} clip={clip} radiusScale={radiusScale} />
+            )}
+            <PickMarks positions={structure.positions} picks={picks} radii={radii} clip={clip} />
+            {bonds.on && (
+              <Bonds positions={structure.positions} cutoff={bonds.cutoff} clip={clip} onCount={(n, truncated) => setBondCount({ n, truncated })} />
+            )}
+            {structure.cell && showCell && <CellEdges cell={structure.cell} />}
+          </Canvas>
+        </div>
+        {showReadout && <AtomReadout structure={structure} store={store} />}
+      </div>
+      {showPanel && (
+        <ViewerPanel
+          structure={structure}
+          store={store}
+          handle={handleRef}
+          slab={slab}
+          note={bonds.on && bondCount ? `${bondCount.n.toLocaleString('en')} bonds${bondCount.truncated ? ' (limit reached)' : ''}` : undefined}
+        />
+      )}
+    </div>
+  );
+}
+
+export default StructureViewer;
