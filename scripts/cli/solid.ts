@@ -4,11 +4,13 @@ import { readFileSync } from 'node:fs';
 import { CliError, zodMessage } from './errors';
 import { icosahedralApproximantSchema, icosahedralPatchSchema } from '../../lib/params/icosahedral';
 import { generateIcosahedralApproximant, generateIcosahedralPatch } from '../../lib/tiling/decorate';
+import { decagonalModel } from '../../lib/tiling/decagonal';
 import { writeXyz } from '../../lib/formats/xyz';
 import { writeExtxyz } from '../../lib/formats/extxyz';
 import { writeCif } from '../../lib/formats/cif';
 import { writeJson } from '../../lib/formats/json';
 import type { Structure } from '../../lib/structure/types';
+import { atomicNumber } from '../../lib/structure/elements';
 
 const FORMATS = ['xyz', 'extxyz', 'cif', 'json'];
 
@@ -115,7 +117,22 @@ export function registerSolidCommands(program: Command): void {
     .option('--format <fmt>', FORMATS.join(', '), 'xyz')
     .action((o: Opts) => {
       const fmt = format(String(o.format));
-      if (o.family === 'decagonal') throw new CliError('--family: decagonal approximants are not available yet (the decagonal generator is not in this build)');
+      if (o.family === 'decagonal') {
+        // Decagonal: Penrose layers stacked along c (lib/tiling/decagonal.ts); --aR is the rhombus edge.
+        if (o.lattice !== 'P' || o.offset !== undefined || o.decoration !== undefined)
+          throw new CliError('--family: decagonal approximants take --order, --aR, --species, --max-points only');
+        const m = /^\s*(\d+)\s*\/\s*(\d+)\s*$/.exec(o.order ?? '');
+        if (!m) throw new CliError(`--order: expected P/Q such as 3/2, got "${o.order}"`);
+        const aR = num('--aR', o.aR);
+        const maxPoints = num('--max-points', o.maxPoints);
+        const s = run(() => decagonalModel({ approximant: { p: Number(m[1]), q: Number(m[2]) }, edge: aR, ...(maxPoints !== undefined ? { maxPoints } : {}) }));
+        if (o.species) {
+          const sp = parse(icosahedralPatchSchema.shape.species, o.species);
+          if (sp) s.species.fill(atomicNumber(sp));
+        }
+        write(s, fmt);
+        return;
+      }
       if (o.family !== 'icosahedral') throw new CliError(`--family: must be icosahedral or decagonal, got "${o.family}"`);
       const p = parse(icosahedralApproximantSchema, {
         family: 'icosahedral',

@@ -23,4 +23,12 @@ describe('CLI: approximant and patch', () => {
     expect(d.status).toBe(2);
     expect(d.stderr).toMatch(/order/);
   });
+
+  it('approximant --family decagonal delegates to the decagonal generator (cell present, element applied)', () => {
+    const r = cli(['approximant', '--family', 'decagonal', '--order', '2/1', '--aR', '2.45', '--species', 'Al', '--format', 'json']);
+    expect(r.status).toBe(0);
+    const j = JSON.parse(r.stdout) as { cell: number[][] | null; species: string[] };
+    expect(j.cell).not.toBeNull();
+    expect(new Set(j.species)).toEqual(new Set(['Al']));
+  });
 });
