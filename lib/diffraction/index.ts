@@ -17,3 +17,4 @@ export * from './debye-powder';
 export * from './window-transform';
 export * from './indexing';
 export * from './hyperspace';
+export * from './zone-axis';
