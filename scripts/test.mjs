@@ -113,7 +113,7 @@ async function main() {
   if (built) {
     const server = await serve(env, appPort);
     cleanups.push(() => server.stop());
-    vitestPhase('browser tests (playwright-core + Chromium)', ['--config', 'tests/e2e/vitest.config.ts'], {
+    vitestPhase('browser tests (playwright-core + Chromium)', ['--config', 'tests/e2e/vitest.config.mts'], {
       ...env,
       NODE_ENV: 'test',
       TAUFORGE_BASE_URL: `http://127.0.0.1:${appPort}`,

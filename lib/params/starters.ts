@@ -34,6 +34,6 @@ export const STARTERS: Starter[] = [
     id: 'decagonal',
     title: 'Decagonal model',
     description: 'Penrose-tiled layers stacked periodically along the tenfold axis.',
-    params: { family: 'decagonal', radius: 8, edge: 2.45, layers: 2, c: 4.1 },
+    params: { family: 'decagonal', radius: 8, edge: 2.45, layers: 2, spacing: 2.04 },
   },
 ];
