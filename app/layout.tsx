@@ -2,6 +2,7 @@ import type { Metadata } from 'next';
 import localFont from 'next/font/local';
 import Link from 'next/link';
 import { Mark } from '@/components/ui/Mark';
+import { UserMenu } from '@/components/auth/UserMenu';
 import './globals.css';
 
 const plexSans = localFont({
@@ -43,9 +44,7 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
               <Link href="/explore" className="hover:text-tide">Public models</Link>
               <Link href="/docs/model-limits" className="hover:text-tide">What the model leaves out</Link>
             </div>
-            <Link href="/signin" className="rounded-md border border-tide px-3 py-1.5 text-sm font-medium text-tide hover:bg-tide-pale">
-              Sign in
-            </Link>
+            <UserMenu />
           </nav>
         </header>
         <main className="mx-auto max-w-6xl px-5 py-8">{children}</main>

@@ -10,13 +10,6 @@ import { RateLimitedError } from '../server/ratelimit';
 
 export const SESSION_MAX_AGE = 12 * 60 * 60;
 
-/** Codes the sign-in page turns into sentences (app/(auth)/signin). */
-export const SIGNIN_ERRORS: Record<string, string> = {
-  CredentialsSignin: 'That e-mail and password do not match an account that can sign in.',
-  unverified: 'Confirm your address first: open the link in the message we sent when you signed up.',
-  disabled: 'This account has been disabled. Ask a site admin if you think this is a mistake.',
-  rate_limited: 'Too many sign-in attempts. Wait a few minutes and try again.',
-};
 
 function ipOf(req: unknown): string {
   const h = (req as { headers?: Record<string, string | string[] | undefined> })?.headers ?? {};

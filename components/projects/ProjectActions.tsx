@@ -1,0 +1,86 @@
+'use client';
+import { useState } from 'react';
+import { useRouter } from 'next/navigation';
+import { saveAs } from 'file-saver';
+import { send, ApiClientError } from '@/components/tables/api';
+import { Notice, buttonClass, inputClass, quietButtonClass } from '@/components/auth/ui';
+
+export function ForkButton({ projectId, revision, signedIn }: { projectId: number; revision?: number; signedIn: boolean }) {
+  const router = useRouter();
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  if (!signedIn) return <a href={`/signin?callbackUrl=/projects/${projectId}`} className={quietButtonClass}>Sign in to fork</a>;
+  return (
+    <span className="inline-flex flex-col gap-1">
+      <button
+        type="button"
+        disabled={busy}
+        className={quietButtonClass}
+        onClick={async () => {
+          setBusy(true);
+          try {
+            const p = await send<{ id: number }>('POST', `/api/projects/${projectId}/fork`, revision ? { revision } : {});
+            router.push(`/projects/${p.id}`);
+          } catch (e) {
+            setError(e instanceof ApiClientError ? e.message : 'The server could not be reached.');
+            setBusy(false);
+          }
+        }}
+      >
+        {busy ? 'Forking…' : revision ? 'Fork this revision' : 'Fork'}
+      </button>
+      {error && <span className="text-xs text-clay">{error}</span>}
+    </span>
+  );
+}
+
+export async function downloadExport(id: number, filename: string): Promise<void> {
+  const res = await fetch(`/api/exports/${id}/download`);
+  if (!res.ok) throw new Error(`Download failed (${res.status})`);
+  saveAs(await res.blob(), filename);
+}
+
+const FORMATS = [
+  ['xyz', 'XYZ'],
+  ['extxyz', 'Extended XYZ'],
+  ['cif', 'CIF'],
+  ['json', 'Tauforge JSON'],
+] as const;
+
+export function ExportPanel({ projectId, revision, revisionNumber }: { projectId: number; revision: number; revisionNumber: number }) {
+  const [format, setFormat] = useState('xyz');
+  const [state, setState] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+  return (
+    <div className="space-y-2">
+      <div className="flex items-center gap-2">
+        <select aria-label="Export format" value={format} onChange={(e) => setFormat(e.target.value)} className={`${inputClass} w-auto`}>
+          {FORMATS.map(([v, l]) => (
+            <option key={v} value={v}>{l}</option>
+          ))}
+        </select>
+        <button
+          type="button"
+          disabled={busy}
+          className={buttonClass}
+          onClick={async () => {
+            setBusy(true);
+            setState(null);
+            try {
+              const e = await send<{ id: number; filename: string; sha256: string; reused: boolean }>('POST', `/api/projects/${projectId}/exports`, { revision, format });
+              await downloadExport(e.id, e.filename);
+              setState({ tone: 'ok', text: `${e.filename} (sha256 ${e.sha256.slice(0, 12)}…)${e.reused ? ', the stored copy' : ''}` });
+            } catch (err) {
+              setState({ tone: 'error', text: err instanceof Error ? err.message : 'Export failed.' });
+            } finally {
+              setBusy(false);
+            }
+          }}
+        >
+          {busy ? 'Generating…' : `Export revision ${revisionNumber}`}
+        </button>
+      </div>
+      {state && <Notice tone={state.tone}>{state.text}</Notice>}
+    </div>
+  );
+}

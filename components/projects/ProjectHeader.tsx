@@ -1,0 +1,68 @@
+import Link from 'next/link';
+import type { ProjectDetail } from '@/lib/server/projects';
+
+const TABS = [
+  ['', 'Overview'],
+  ['/history', 'History'],
+  ['/members', 'Members'],
+  ['/exports', 'Exports'],
+  ['/datasets', 'Datasets'],
+  ['/settings', 'Settings'],
+] as const;
+
+export function VisibilityBadge({ v }: { v: string }) {
+  const cls = v === 'public' ? 'bg-tide-pale text-tide-deep' : v === 'unlisted' ? 'bg-brass-pale text-ink' : 'bg-paper text-ink-soft border border-rule';
+  return <span className={`rounded px-1.5 py-0.5 text-xs font-medium ${cls}`}>{v}</span>;
+}
+
+export function ProjectHeader({ project, tab }: { project: ProjectDetail; tab: string }) {
+  const base = `/projects/${project.id}`;
+  const tabs = TABS.filter(([path]) => path !== '/settings' || project.permissions.manage).filter(([path]) => path !== '/members' || project.permissions['members.read']);
+  return (
+    <header className="space-y-3">
+      <div className="flex flex-wrap items-start justify-between gap-4">
+        <div className="space-y-1">
+          <p className="text-xs text-ink-soft">
+            <Link href="/projects" className="hover:text-tide">Projects</Link> / {project.ownerName}
+          </p>
+          <h1 className="flex items-center gap-3 text-3xl font-semibold tracking-tight">
+            {project.name} <VisibilityBadge v={project.visibility} />
+          </h1>
+          {project.parent && (
+            <p className="text-sm text-ink-soft" data-testid="forked-from">
+              Forked from{' '}
+              {project.parent.visible ? (
+                <Link href={`/projects/${project.parent.id}`} className="text-tide underline">{project.parent.name}</Link>
+              ) : (
+                project.parent.name
+              )}
+              {project.parent.revisionNumber ? ` at revision ${project.parent.revisionNumber}` : ''}
+            </p>
+          )}
+          {project.tags.length > 0 && (
+            <p className="flex flex-wrap gap-1">
+              {project.tags.map((t) => (
+                <span key={t} className="rounded-full border border-rule px-2 py-0.5 text-xs text-ink-soft">{t}</span>
+              ))}
+            </p>
+          )}
+        </div>
+        <Link href={`${base}/workspace`} className="rounded-md bg-tide px-4 py-2 font-medium text-white hover:bg-tide-deep">
+          Open workspace
+        </Link>
+      </div>
+      <nav className="flex gap-1 border-b border-rule text-sm" aria-label="Project">
+        {tabs.map(([path, label]) => (
+          <Link
+            key={path}
+            href={`${base}${path}`}
+            aria-current={tab === label ? 'page' : undefined}
+            className={`-mb-px border-b-2 px-3 py-2 ${tab === label ? 'border-tide font-medium text-tide' : 'border-transparent text-ink-soft hover:text-ink'}`}
+          >
+            {label}
+          </Link>
+        ))}
+      </nav>
+    </header>
+  );
+}
