@@ -31,9 +31,10 @@ function generateParsed(p: ModelParams): Structure {
       return fibonacciChain(chain);
     }
     case 'penrose':
-      return penroseTiling(p);
-    case 'octagonal':
-      return octagonalTiling(p);
+    case 'octagonal': {
+      const { family, ...planar } = p;
+      return family === 'penrose' ? penroseTiling(planar) : octagonalTiling(planar);
+    }
     case 'decagonal': {
       const { family: _f, ...deca } = p;
       return decagonalModel(deca);

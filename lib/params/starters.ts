@@ -2,13 +2,13 @@
  * Starting points offered when a project is created. (Written by the accounts work because it was
  * needed first; the lead owns this file and may replace the params as the engines' schemas land.)
  */
-import type { ModelParams } from './model';
+import type { ModelParamsInput } from './model';
 
 export interface Starter {
   id: string;
   title: string;
   description: string;
-  params: ModelParams;
+  params: ModelParamsInput;
 }
 
 export const STARTERS: Starter[] = [
