@@ -18,3 +18,4 @@ export * from './window-transform';
 export * from './indexing';
 export * from './hyperspace';
 export * from './zone-axis';
+export * from './compare';
