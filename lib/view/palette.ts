@@ -3,12 +3,16 @@
  *
  * Colours follow one rule of our own, anchored on the design tokens in app/globals.css, so a picture reads
  * as "ours" and neighbouring elements stay apart:
- *   • hue by block and group — s-block (groups 1–2) in the brass family (38° → 26°); d-block (groups 3–12)
- *     sweeps from clay (11°) backwards round the wheel through rose and violet to ink blue (215°);
+ *   • hue by block and group — s-block (groups 1–2) in the brass family, 26° at Li turning 17° towards
+ *     yellow per period and 12° more for group 2 (it has only two columns, so the period helps); d-block (groups 3–12)
+ *     sweeps from clay (11°) backwards round the wheel through rose and violet to ink blue (215°),
+ *     odd groups 6 points lighter and even groups 6 points darker so neighbours (Mn, Fe, Co…) separate;
  *     p-block (groups 13–18) starts at tide teal (180°) and steps 24° per group towards yellow-green;
- *     f-block (lanthanides, actinides) is a muted plum band (285° → 335°);
- *   • saturation 58 % (f-block 30 %, noble gases 22 %);
- *   • lightness by period — 70 % in period 1, 5 points darker per period, so heavier reads darker;
+ *     f-block (lanthanides, actinides) is a muted band from indigo to plum (250° → 20°), odd Z 5 points
+ *     lighter and even Z 5 points darker, because fifteen neighbours share a period;
+ *   • saturation 58 % (s-block 62 %, f-block 40 %, noble gases 22 %);
+ *   • outside the s-block the hue turns by 22° per period (period 4 untouched), so period neighbours differ in hue too;
+ *   • lightness by period — 72 % in period 1, 6 points darker per period, so heavier reads darker;
  *   • X (0, an unassigned tiling vertex) is the warm grey of our rule token.
  * Radii: covalent radius (lib/structure/elements.ts) × a scale; X and elements without a tabulated radius
  * use PLACEHOLDER_RADIUS.
@@ -35,7 +39,7 @@ export function tablePlace(z: number): TablePlace {
   const first = period === 1 ? 1 : PERIOD_ENDS[period - 2] + 1;
   const p = z - first;
   if (period === 1) return { period, group: z === 1 ? 1 : 18 };
-  if (period <= 3) return { period, group: p < 2 ? p + 1 : p + 10 };
+  if (period <= 3) return { period, group: p < 2 ? p + 1 : p + 11 };
   if (period <= 5) return { period, group: p + 1 };
   if (p < 2) return { period, group: p + 1 };
   if (p <= 16) return { period, group: 0 };
@@ -58,15 +62,17 @@ function hslToHex(h: number, s: number, l: number): string {
 export function speciesHsl(z: number): [number, number, number] {
   if (z === 0) return [43, 0.2, 0.83];
   const { period, group } = tablePlace(z);
-  const l = 0.7 - 0.05 * (period - 1);
+  const l = 0.72 - 0.06 * (period - 1);
+  // A twist of the hue with the period keeps the two s-block columns (and period neighbours) apart.
+  const twist = (period - 4) * 22;
   if (group === 0) {
     const first = period === 6 ? 57 : 89;
-    return [285 + ((z - first) * 50) / 14, 0.3, l];
+    return [250 + ((z - first) * 130) / 14, 0.4, l + (z % 2 ? 0.05 : -0.05)];
   }
-  if (group <= 2) return [38 - (group - 1) * 12, 0.58, l];
-  if (group <= 12) return [11 - ((group - 3) * (11 + 360 - 215)) / 9, 0.58, l];
-  if (group === 18) return [180, 0.22, l];
-  return [180 - (group - 13) * 24, 0.58, l];
+  if (group <= 2) return [26 + 17 * (period - 2) + 12 * (group - 1), 0.62, l];
+  if (group <= 12) return [11 - ((group - 3) * (11 + 360 - 215)) / 9 + twist, 0.58, l + (group % 2 ? 0.06 : -0.06)];
+  if (group === 18) return [180 + twist, 0.22, l];
+  return [180 - (group - 13) * 24 + twist, 0.58, l];
 }
 
 /** Our colour for a species as #rrggbb (sRGB). */

@@ -1,0 +1,136 @@
+import { describe, expect, it } from 'vitest';
+import * as THREE from 'three';
+import { axesOfFold, directionVector, icosahedralAxes, latticeDirection, planeNormal, planeSpacing, reciprocalCell, viewPose } from '@/lib/view/axes';
+import { angleDeg, cross, dot, norm, type Vec3 } from '@/lib/view/vec';
+
+/** sin of the angle between u and v (0 when parallel), exact enough near 0 unlike acos. */
+const sinBetween = (u: Vec3, v: Vec3) => norm(cross(u, v)) / (norm(u) * norm(v));
+import { icosahedralBasis } from '@/lib/tiling/hyperlattice';
+import { cellFromParameters, inverseCell } from '@/lib/structure/cell';
+import type { Cell } from '@/lib/structure/types';
+
+/** Smallest angle between two axes (either sense), degrees. */
+const axisAngle = (u: Vec3, v: Vec3) => Math.min(angleDeg(u, v), 180 - angleDeg(u, v));
+const nearest = (u: Vec3, list: Vec3[]) => Math.min(...list.map((v) => axisAngle(u, v)));
+
+describe('icosahedral axes', () => {
+  const { five, three, two } = icosahedralAxes();
+
+  it('has 6 five-fold, 10 three-fold and 15 two-fold axes, all unit and distinct', () => {
+    expect([five.length, three.length, two.length]).toEqual([6, 10, 15]);
+    for (const list of [five, three, two]) {
+      for (const v of list) expect(Math.hypot(...v)).toBeCloseTo(1, 12);
+      for (let i = 0; i < list.length; i++) for (let j = i + 1; j < list.length; j++) expect(axisAngle(list[i], list[j])).toBeGreaterThan(1);
+    }
+  });
+
+  it('takes the five-fold axes from the e_i∥ of lib/tiling/hyperlattice.ts', () => {
+    const par = icosahedralBasis(4.6).par;
+    for (let i = 0; i < 6; i++) {
+      const e: Vec3 = [par[3 * i], par[3 * i + 1], par[3 * i + 2]];
+      expect(axisAngle(e, five[i])).toBeLessThan(1e-6);
+    }
+  });
+
+  // Standard icosahedral angles (textbook values, e.g. tables of the icosahedral group):
+  // 5-fold to nearest 3-fold 37.377°, to nearest 2-fold 31.717°; 3-fold to nearest 2-fold 20.905°;
+  // two 5-fold axes 63.435° (arccos 1/√5).
+  it('reproduces the known angles between the axes', () => {
+    for (const f of five) {
+      expect(nearest(f, three)).toBeCloseTo(37.377, 3);
+      expect(nearest(f, two)).toBeCloseTo(31.717, 3);
+      for (const g of five) if (g !== f) expect(axisAngle(f, g)).toBeCloseTo(63.435, 3);
+    }
+    for (const t of three) expect(nearest(t, two)).toBeCloseTo(20.905, 3);
+  });
+
+  it('puts the Cartesian axes on two-fold axes and (1,1,1) on a three-fold axis (the (0, ±1, ±τ) setting)', () => {
+    for (const e of [[1, 0, 0], [0, 1, 0], [0, 0, 1]] as Vec3[]) expect(nearest(e, two)).toBeLessThan(1e-9);
+    expect(nearest([1, 1, 1], three)).toBeLessThan(1e-9);
+  });
+
+  it('each axis is a true n-fold rotation axis of the icosahedron (checked with three.js rotations)', () => {
+    const rows = icosahedralBasis(1).par;
+    const vertices: THREE.Vector3[] = [];
+    for (let i = 0; i < 6; i++) {
+      const v = new THREE.Vector3(rows[3 * i], rows[3 * i + 1], rows[3 * i + 2]);
+      vertices.push(v, v.clone().negate());
+    }
+    const check = (axis: Vec3, fold: number) => {
+      const m = new THREE.Matrix4().makeRotationAxis(new THREE.Vector3(...axis), (2 * Math.PI) / fold);
+      for (const v of vertices) {
+        const w = v.clone().applyMatrix4(m);
+        expect(Math.min(...vertices.map((u) => u.distanceTo(w)))).toBeLessThan(1e-9);
+      }
+      // and not a rotation of a higher order that the icosahedron lacks: a quarter turn must fail
+      const q = new THREE.Matrix4().makeRotationAxis(new THREE.Vector3(...axis), Math.PI / 2);
+      const moved = vertices.map((v) => v.clone().applyMatrix4(q));
+      expect(moved.some((w) => Math.min(...vertices.map((u) => u.distanceTo(w))) > 1e-3)).toBe(true);
+    };
+    for (const a of five) check(a, 5);
+    for (const a of three) check(a, 3);
+    for (const a of two) check(a, 2);
+  });
+
+  it('directionVector reads fold axes by index, wrapping', () => {
+    expect(directionVector({ kind: 'fold', fold: 5, index: 2 })).toEqual(axesOfFold(5)[2]);
+    expect(directionVector({ kind: 'fold', fold: 2, index: 15 })).toEqual(axesOfFold(2)[0]);
+  });
+});
+
+describe('[uvw] and (hkl)', () => {
+  const hex: Cell = cellFromParameters({ a: 3, b: 3, c: 5, alpha: 90, beta: 90, gamma: 120 });
+  const tric: Cell = cellFromParameters({ a: 4.1, b: 5.3, c: 6.2, alpha: 81, beta: 97, gamma: 104 });
+
+  it('reciprocal vectors satisfy a_i·a_j* = δ_ij and match the inverse cell matrix', () => {
+    const r = reciprocalCell(tric);
+    const inv = inverseCell(tric);
+    for (let i = 0; i < 3; i++) {
+      for (let j = 0; j < 3; j++) expect(dot(tric[i], r[j])).toBeCloseTo(i === j ? 1 : 0, 12);
+      for (let k = 0; k < 3; k++) expect(r[i][k]).toBeCloseTo(inv[k][i], 12);
+    }
+  });
+
+  it('(hkl) normal is perpendicular to the plane (two in-plane lattice vectors), [uvw] follows the cell', () => {
+    const hkl: Vec3 = [1, 2, 3];
+    const n = planeNormal(hkl, tric);
+    const [a, b, c] = tric;
+    // The plane (hkl) passes through a/h, b/k, c/l; a/h − b/k and b/k − c/l lie in it.
+    const p = (v: Vec3, s: number): Vec3 => [v[0] / s, v[1] / s, v[2] / s];
+    const inPlane1: Vec3 = [p(a, 1)[0] - p(b, 2)[0], p(a, 1)[1] - p(b, 2)[1], p(a, 1)[2] - p(b, 2)[2]];
+    const inPlane2: Vec3 = [p(b, 2)[0] - p(c, 3)[0], p(b, 2)[1] - p(c, 3)[1], p(b, 2)[2] - p(c, 3)[2]];
+    expect(dot(n, inPlane1)).toBeCloseTo(0, 12);
+    expect(dot(n, inPlane2)).toBeCloseTo(0, 12);
+    expect(sinBetween(latticeDirection([1, 1, 0], tric), [a[0] + b[0], a[1] + b[1], a[2] + b[2]])).toBeLessThan(1e-12);
+  });
+
+  it('hexagonal cell: (001) normal ∥ c, [001] ∥ c, (100) not ∥ a, d100 = a·√3/2', () => {
+    expect(sinBetween(planeNormal([0, 0, 1], hex), [0, 0, 1])).toBeLessThan(1e-12);
+    expect(sinBetween(latticeDirection([0, 0, 1], hex), [0, 0, 1])).toBeLessThan(1e-12);
+    expect(angleDeg(planeNormal([1, 0, 0], hex), hex[0])).toBeCloseTo(30, 9);
+    expect(planeSpacing([1, 0, 0], hex)).toBeCloseTo((3 * Math.sqrt(3)) / 2, 12);
+  });
+
+  it('without a cell both read the integers as Cartesian', () => {
+    expect(latticeDirection([1, 1, 0])[0]).toBeCloseTo(Math.SQRT1_2, 12);
+    expect(planeNormal([0, 0, 2])).toEqual([0, 0, 1]);
+    expect(() => latticeDirection([0, 0, 0])).toThrow(/zero vector/);
+  });
+});
+
+describe('viewPose', () => {
+  it('sits on the axis at the distance, with up perpendicular and on the hint side', () => {
+    const axis = axesOfFold(5)[0];
+    const pose = viewPose([1, 2, 3], axis, 10, [0, 1, 0]);
+    const back: Vec3 = [(pose.position[0] - 1) / 10, (pose.position[1] - 2) / 10, (pose.position[2] - 3) / 10];
+    expect(sinBetween(back, axis)).toBeLessThan(1e-12);
+    expect(dot(pose.up, axis)).toBeCloseTo(0, 12);
+    expect(dot(pose.up, [0, 1, 0])).toBeGreaterThan(0);
+  });
+
+  it('picks another up when the hint lies along the axis', () => {
+    const pose = viewPose([0, 0, 0], [0, 1, 0], 5, [0, 1, 0]);
+    expect(dot(pose.up, [0, 1, 0])).toBeCloseTo(0, 12);
+    expect(Math.hypot(...pose.up)).toBeCloseTo(1, 12);
+  });
+});
