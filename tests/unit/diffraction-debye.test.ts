@@ -52,6 +52,26 @@ describe('Debye scattering equation', () => {
     expect(binned[0] / (ftot * ftot)).toBeCloseTo(1, 10);
   });
 
+  it('single-species fast path (four-lane histogram) matches the exact sum on a 225-atom fcc ball', () => {
+    const pos: number[] = [];
+    const a = 3.615;
+    for (let i = -4; i <= 4; i++)
+      for (let j = -4; j <= 4; j++)
+        for (let k = -4; k <= 4; k++)
+          for (const b of [[0, 0, 0], [0, 0.5, 0.5], [0.5, 0, 0.5], [0.5, 0.5, 0]]) {
+            const p = [(i + b[0]) * a, (j + b[1]) * a, (k + b[2]) * a];
+            if (Math.hypot(p[0], p[1], p[2]) <= 8.5) pos.push(...p);
+          }
+    const s = mk(pos, pos.filter((_, i) => i % 3 === 0).map(() => 29));
+    expect(s.species.length).toBeGreaterThan(200);
+    const q = Float64Array.from({ length: 100 }, (_, k) => 0.5 + 0.05 * k);
+    const exact = debyeExact(s, q);
+    const binned = debyeFromHistogram(pairHistogram(s, 0.0005), q);
+    let max = 0;
+    for (const v of exact) max = Math.max(max, Math.abs(v));
+    for (let k = 0; k < q.length; k++) expect(Math.abs(binned[k] - exact[k]) / max).toBeLessThan(1e-3);
+  });
+
   it('balanced row ranges cover all pairs with about equal counts', () => {
     const n = 1001;
     const parts = balancedRowRanges(n, 3);
