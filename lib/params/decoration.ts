@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { tryAtomicNumber } from '../structure/elements';
+import { POLYHEDRON_NAMES, type PolyhedronName } from '../tiling/polyhedra';
 
 export const elementSymbolSchema = z
   .string()
@@ -46,10 +47,40 @@ export const siteClassSchema = z
     if (c.species && c.mix) ctx.addIssue({ code: 'custom', message: 'give either species or mix, not both', path: ['mix'] });
   });
 
-export const decorationSchema = z.object({
-  classes: z.array(siteClassSchema).min(1, { message: 'needs at least one site class' }).max(64),
+/** One shell of a cluster template: a polyhedron of a given circumradius (Å) carrying one element. */
+export const clusterShellSchema = z.object({
+  name: z.string().min(1).max(60).optional(),
+  polyhedron: z.enum(POLYHEDRON_NAMES as [PolyhedronName, ...PolyhedronName[]], { message: `must be one of ${POLYHEDRON_NAMES.join(', ')}` }),
+  radius: z.number().positive().max(50),
+  species: elementSymbolSchema,
 });
+
+export const CLUSTER_PRESET_NAMES = ['mackay', 'bergman', 'tsai'] as const;
+
+/** Clusters centred on every point of one site class: a published preset or shells of one's own. */
+export const clusterPlacementSchema = z
+  .object({
+    at: z.string().min(1).max(60),
+    preset: z.enum(CLUSTER_PRESET_NAMES, { message: `must be one of ${CLUSTER_PRESET_NAMES.join(', ')}` }).optional(),
+    shells: z.array(clusterShellSchema).min(1).max(12).optional(),
+  })
+  .refine((c) => (c.preset === undefined) !== (c.shells === undefined), { message: 'give either preset or shells', path: ['preset'] });
+
+export const decorationSchema = z
+  .object({
+    classes: z.array(siteClassSchema).min(1, { message: 'needs at least one site class' }).max(64),
+    clusters: z.array(clusterPlacementSchema).max(8).optional(),
+    /** Atoms closer than this (Å) are merged after placing clusters, across periodic boundaries too; 0 = off. */
+    mergeTolerance: z.number().min(0).max(5).default(0),
+  })
+  .superRefine((d, ctx) => {
+    const names = new Set(d.classes.map((c) => c.name));
+    d.clusters?.forEach((c, i) => {
+      if (!names.has(c.at)) ctx.addIssue({ code: 'custom', path: ['clusters', i, 'at'], message: `no site class is named "${c.at}"` });
+    });
+  });
 
 export type WindowSpecParams = z.infer<typeof windowSpecSchema>;
 export type SiteClassParams = z.infer<typeof siteClassSchema>;
 export type DecorationParams = z.infer<typeof decorationSchema>;
+export type ClusterPlacementParams = z.infer<typeof clusterPlacementSchema>;

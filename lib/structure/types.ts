@@ -60,6 +60,8 @@ export interface Structure {
   dim?: 1 | 2 | 3;
   /** Tiles, for chains and planar tilings. */
   tiles?: TileSet;
+  /** What generation did that the user should know: clusters placed, atoms merged. */
+  notes?: string[];
   provenance: Provenance;
 }
 

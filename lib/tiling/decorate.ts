@@ -3,7 +3,8 @@
  * Each site class is generated as its own cut: the hyperlattice shifted by the class's 6D position, with
  * the class's occupation domain (scaled projected hypercube, sphere or spherical shell) centred on the
  * phason offset, all with the same projection (Duneau & Katz 1985; the "atomic surfaces" picture —
- * common practice). Cluster templates at site classes are not wired in yet (lib/tiling/clusters.ts absent).
+ * common practice). Cluster templates are then centred on the points of chosen site classes, and atoms
+ * that land closer than the merge tolerance are merged (lib/structure/merge.ts), with a note of what merged.
  */
 import type { Structure } from '../structure/types';
 import { atomicNumber } from '../structure/elements';
@@ -15,6 +16,8 @@ import { vertexClass } from './icosa-cut';
 import { icosahedralPatch } from './icosahedral';
 import type { Centring } from './approximant';
 import { icosahedralApproximant } from './approximant';
+import { CLUSTER_PRESETS, clusterSize, placeClusters, type ClusterTemplate } from './clusters';
+import { mergeClose } from '../structure/merge';
 
 /** 6D fractional position of a named site (or the explicit six numbers). */
 export function sitePosition(position: SiteClassParams['position']): Float64Array {
@@ -56,8 +59,50 @@ export function resolveClasses(decoration?: DecorationParams, species?: string):
   });
 }
 
+/** Place the decoration's cluster templates on their site classes, then merge close atoms. */
+export function applyClusters<S extends Structure>(s: S, decoration?: DecorationParams): S {
+  if (!decoration?.clusters?.length) return s;
+  let out: Structure = s;
+  const notes: string[] = [];
+  for (const c of decoration.clusters) {
+    const template: ClusterTemplate = c.preset
+      ? CLUSTER_PRESETS[c.preset]
+      : {
+          name: 'cluster',
+          reference: 'user-defined shells',
+          shells: c.shells!.map((sh, k) => ({
+            name: sh.name ?? `shell ${k + 1}`,
+            polyhedron: sh.polyhedron,
+            radius: sh.radius,
+            species: atomicNumber(sh.species),
+          })),
+        };
+    const classes = out.siteClasses ?? [];
+    const site = out.site;
+    const target = classes.findIndex((k) => k.name === c.at);
+    let centres = 0;
+    out = placeClusters(out, template, (i) => {
+      const hit = site !== undefined && site[i] === target;
+      if (hit) centres++;
+      return hit;
+    });
+    notes.push(`${template.name} clusters on "${c.at}": ${centres} placed, ${centres * clusterSize(template)} atoms added`);
+  }
+  if (decoration.mergeTolerance > 0) {
+    const m = mergeClose(out, decoration.mergeTolerance);
+    out = m.structure;
+    notes.push(`merged ${m.count} atoms closer than ${decoration.mergeTolerance} Å (${m.conflicts} with differing species or site class)`);
+  }
+  out.notes = [...(s.notes ?? []), ...notes];
+  return Object.assign(out, s.cell ? { cell: s.cell } : {}) as S;
+}
+
 /** Validated patch Params → Structure. */
 export function generateIcosahedralPatch(params: IcosahedralPatchParams): Structure {
+  return applyClusters(generateIcosahedralPatchCut(params), params.decoration);
+}
+
+function generateIcosahedralPatchCut(params: IcosahedralPatchParams): Structure {
   return icosahedralPatch({
     aR: params.aR,
     radius: params.radius,
@@ -73,7 +118,7 @@ export function generateIcosahedralPatch(params: IcosahedralPatchParams): Struct
 /** Validated approximant Params → one cubic cell (Structure with cell) and its detected centring. */
 export function generateIcosahedralApproximant(params: IcosahedralApproximantParams): Structure & { centring: Centring } {
   const { p, q } = parseOrder(params.order);
-  return icosahedralApproximant({
+  const cut = icosahedralApproximant({
     p,
     q,
     aR: params.aR,
@@ -83,4 +128,5 @@ export function generateIcosahedralApproximant(params: IcosahedralApproximantPar
     classes: resolveClasses(params.decoration, params.species),
     params,
   });
+  return Object.assign(applyClusters(cut, params.decoration), { centring: cut.centring });
 }
