@@ -5,7 +5,7 @@
  * (./store) that panels beside the viewer can share. Mount it through ./LazyStructureViewer (no SSR).
  */
 import { Canvas } from '@react-three/fiber';
-import { useEffect, useImperativeHandle, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useImperativeHandle, useMemo, useRef, useState } from 'react';
 import * as THREE from 'three';
 import type { Structure } from '@/lib/structure/types';
 import { directionVector } from '@/lib/view/axes';
@@ -95,6 +95,7 @@ export function StructureViewer({
   const { slab, ball } = useClipShapes(structure, store);
   const [invalidate, setInvalidate] = useState<(() => void) | null>(null);
   const [bondCount, setBondCount] = useState<{ n: number; truncated: boolean } | null>(null);
+  const onBondCount = useCallback((n: number, truncated: boolean) => setBondCount({ n, truncated }), []);
 
   // Atom indices refer to this structure only: forget picks when it changes.
   useEffect(() => {
@@ -143,7 +144,7 @@ export function StructureViewer({
             )}
             <PickMarks positions={structure.positions} picks={picks} radii={radii} clip={clip} />
             {bonds.on && (
-              <Bonds positions={structure.positions} cutoff={bonds.cutoff} clip={clip} onCount={(n, truncated) => setBondCount({ n, truncated })} />
+              <Bonds positions={structure.positions} cutoff={bonds.cutoff} clip={clip} onCount={onBondCount} />
             )}
             {structure.cell && showCell && <CellEdges cell={structure.cell} />}
           </Canvas>

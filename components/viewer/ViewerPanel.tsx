@@ -214,7 +214,7 @@ export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPane
         <label className="flex items-center gap-1.5 text-xs">
           <input type="checkbox" checked={s.bonds.on} onChange={(e) => s.setBonds({ on: e.target.checked })} />
           Bonds up to
-          <input type="number" className={`${input} w-16`} min={0.5} max={6} step={0.1} aria-label="Bond cut-off in ångström" value={s.bonds.cutoff} onChange={(e) => s.setBonds({ cutoff: Math.max(0.5, Math.min(6, Number(e.target.value) || 0.5)) })} />
+          <input type="number" className="w-16 rounded border border-rule bg-paper px-1.5 py-0.5 font-mono text-xs text-ink" min={0.5} max={6} step={0.1} aria-label="Bond cut-off in ångström" value={s.bonds.cutoff} onChange={(e) => s.setBonds({ cutoff: Math.max(0.5, Math.min(6, Number(e.target.value) || 0.5)) })} />
           Å
         </label>
         {note && <p className="text-[11px] text-ink-soft">{note}</p>}
