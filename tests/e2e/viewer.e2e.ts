@@ -25,7 +25,7 @@ describe('structure viewer (lab page)', () => {
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
     await page.goto(baseUrl + '/lab/viewer?n=300');
-    await page.waitForFunction(() => (window as unknown as { __tauforgeViewer?: Hook }).__tauforgeViewer?.frames()! > 0, null, { timeout: 60_000 });
+    await page.waitForFunction(() => ((window as unknown as { __tauforgeViewer?: Hook }).__tauforgeViewer?.frames() ?? 0) > 0, null, { timeout: 60_000 });
 
     // One draw call per species (3 in this set) plus nothing else; two triangles per atom.
     const stats = (await page.evaluate(`${hook}.renderFrames(1)`)) as { triangles: number; calls: number };
