@@ -9,10 +9,10 @@ import { braggPowder } from '../diffraction/powder';
 import { debyePowder } from '../diffraction/debye-powder';
 import { approximantLatticeConstant } from '../tiling/approximant';
 import { TAU } from '../tiling/hyperlattice';
-// TEMPORARY: swap for '../generate' (the lead's dispatcher) when it lands.
-import { estimateCount, generate } from './generate-shim';
-import { zoneSpots } from './zone-shim';
-import type { CutSummary, JobRequest, JobResultMap, PowderCurve, SeriesRow } from './protocol';
+import { estimateCount, generate } from '../generate';
+import { parseAxis, zoneFrame, zonePattern } from '../diffraction/zone-axis';
+import { indexIcosahedralSpot } from './zone-index';
+import type { CutSummary, JobRequest, JobResultMap, PowderCurve, SeriesRow, ZoneResult } from './protocol';
 
 export type Report = (stage: string, fraction?: number) => void;
 
@@ -58,9 +58,7 @@ export function summarise(s: Structure): CutSummary {
 
 function withOrder(params: unknown, p: number, q: number): unknown {
   const base = params as Record<string, unknown>;
-  // The model may carry the order as p, q or as an `order` object; set whichever it uses.
-  if (base.order && typeof base.order === 'object') return { ...base, order: { ...(base.order as object), p, q }, kind: 'approximant' };
-  return { ...base, p, q, kind: 'approximant' };
+  return { ...base, order: `${p}/${q}`, mode: 'approximant' };
 }
 
 function aROf(params: unknown): number {
@@ -74,7 +72,7 @@ export function series(params: unknown, report: Report = () => {}): JobResultMap
   let rhoQc: number | undefined;
   // The quasicrystal's density is the limit of the series; with the patch route we measure it directly.
   try {
-    const qc = estimateCount({ ...(params as object), kind: 'patch', radius: 10 * aR });
+    const qc = estimateCount({ ...(params as object), mode: 'patch', radius: 10 * aR });
     rhoQc = qc / ((4 / 3) * Math.PI * (10 * aR) ** 3);
   } catch {
     rhoQc = undefined;
@@ -121,12 +119,46 @@ function powder(job: Extract<JobRequest, { kind: 'powder' }>): PowderCurve {
     return {
       twoTheta: r.profile!.twoTheta,
       intensity: r.profile!.intensity,
-      peaks: r.peaks.map((p) => ({ twoTheta: p.twoTheta, d: p.d, hkl: p.hkl.join(' '), intensity: p.intensity })),
+      peaks: r.peaks.map((p) => ({ twoTheta: p.twoTheta, d: p.d, hkl: p.hkl, intensity: p.intensity })),
       wavelength,
     };
   }
   const r = debyePowder(s, { wavelength, radiation, twoThetaMin, twoThetaMax, step });
-  return { twoTheta: r.twoTheta, intensity: r.intensity, peaks: r.maxima.map((m) => ({ twoTheta: m.twoTheta, d: m.d, intensity: m.intensity })), wavelength };
+  return { twoTheta: r.twoTheta, intensity: r.intensity, peaks: r.maxima.map((m) => ({ twoTheta: m.twoTheta, d: m.d, hkl: null, intensity: m.intensity })), wavelength };
+}
+
+const AXIS_NAMES: Record<string, string> = { '5': 'a five-fold axis', '3': 'a three-fold axis', '2': 'a two-fold axis' };
+
+/** Zone pattern; icosahedral spots get six-index labels and |Q⊥| (zone-index.ts). */
+export function zone(job: Extract<JobRequest, { kind: 'zone' }>): ZoneResult {
+  const s = job.structure;
+  const axis = parseAxis(job.axis);
+  const grid = 201;
+  const { spots } = zonePattern(s, { axis, qmax: job.qmax, radiation: job.radiation, grid, slab: job.slab });
+  const frame = zoneFrame(axis, s);
+  const pr = s.provenance.params as { family?: string; aR?: number } | null;
+  const aR = pr?.family === 'icosahedral' && typeof pr.aR === 'number' ? pr.aR : null;
+  const tol = (2 * job.qmax) / (grid - 1);
+  let top = 0;
+  for (const p of spots) if (p.q > tol) top = Math.max(top, p.intensity);
+  const out = spots
+    .filter((p) => p.q > tol && p.q <= job.qmax)
+    .map((p) => {
+      const q3: [number, number, number] = [0, 1, 2].map((k) => p.qx * frame.e1[k] + p.qy * frame.e2[k] + p.qz * frame.axis[k]) as [number, number, number];
+      const found = aR ? indexIcosahedralSpot(q3, aR, tol) : null;
+      // A label is only worth showing for a small perpendicular part (a strong quasicrystal reflection).
+      const idx = found && found.qPerp < 2 * p.q + 1 ? found : null;
+      return {
+        x: p.qx,
+        y: p.qy,
+        intensity: top > 0 ? p.intensity / top : 0,
+        label: p.hkl ? p.hkl.join(' ') : (idx?.label ?? '—'),
+        qPar: p.q,
+        qPerp: idx?.qPerp,
+      };
+    });
+  const axisLabel = typeof axis === 'string' ? AXIS_NAMES[axis] : `[${axis.join(' ')}]`;
+  return { spots: out, axisLabel, qmax: job.qmax };
 }
 
 export function runJob<K extends JobRequest['kind']>(job: Extract<JobRequest, { kind: K }>, report: Report = () => {}): JobResultMap[K] {
@@ -142,7 +174,7 @@ export function runJob<K extends JobRequest['kind']>(job: Extract<JobRequest, { 
     }
     case 'zone':
       report('structure factors', 0.2);
-      return zoneSpots(j.structure, j.axis, j.qmax, j.radiation) as JobResultMap[K];
+      return zone(j) as JobResultMap[K];
     case 'powder':
       report('powder pattern', 0.2);
       return powder(j) as JobResultMap[K];

@@ -38,7 +38,7 @@ export interface ZoneResult {
 export interface PowderCurve {
   twoTheta: Float64Array;
   intensity: Float64Array;
-  peaks: { twoTheta: number; d: number; hkl?: string; intensity: number }[];
+  peaks: { twoTheta: number; d: number; hkl: number[] | null; intensity: number }[];
   wavelength: number;
 }
 

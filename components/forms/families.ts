@@ -1,0 +1,71 @@
+/**
+ * Which shared schema (lib/params) edits and validates each model family. The workspace's form is drawn from
+ * these schemas; the params object keeps `family` (and, for icosahedral models, `mode`) beside the fields.
+ */
+import type { z } from 'zod';
+import { FAMILIES, type Family } from '@/lib/params/model';
+import { decagonalModelSchema, fibonacciModelSchema, icosahedralApproximantModelSchema, icosahedralPatchModelSchema, planarModelSchema } from '@/lib/params/model';
+import { STARTERS } from '@/lib/params/starters';
+
+export type Params = Record<string, unknown> & { family: string };
+
+export const FAMILY_NAMES: Record<Family, string> = {
+  fibonacci: 'Fibonacci chain (1D)',
+  penrose: 'Penrose rhombus tiling (2D)',
+  octagonal: 'Octagonal tiling (2D)',
+  icosahedral: 'Icosahedral (3D)',
+  decagonal: 'Decagonal (layers)',
+};
+
+export { FAMILIES };
+
+export const ICO_MODES = ['approximant', 'patch'] as const;
+export type IcoMode = (typeof ICO_MODES)[number];
+
+/** Keys the form draws itself (family picker, cut picker) rather than from the schema. */
+export const FRAME_KEYS = new Set(['family', 'mode']);
+
+export function icoMode(p: Params): IcoMode {
+  return p.mode === 'patch' ? 'patch' : 'approximant';
+}
+
+/** The schema for the fields of these params, or null when the family's schema has not landed. */
+export function schemaFor(p: Params): z.ZodType | null {
+  switch (p.family) {
+    case 'fibonacci':
+      return fibonacciModelSchema;
+    case 'penrose':
+    case 'octagonal':
+      return planarModelSchema;
+    case 'decagonal':
+      return decagonalModelSchema;
+    case 'icosahedral':
+      return icoMode(p) === 'patch' ? icosahedralPatchModelSchema : icosahedralApproximantModelSchema;
+    default:
+      return null;
+  }
+}
+
+/** What the schema is asked to check: icosahedral params always say which cut they are. */
+export function validationInput(p: Params): unknown {
+  return p.family === 'icosahedral' ? { ...p, mode: icoMode(p) } : p;
+}
+
+export function validate(p: Params): z.ZodError | undefined {
+  const s = schemaFor(p);
+  if (!s) return undefined;
+  const r = s.safeParse(validationInput(p));
+  return r.success ? undefined : r.error;
+}
+
+export function starterParams(family: string): Params {
+  const s = STARTERS.find((x) => x.params.family === family);
+  if (s) return structuredClone(s.params) as Params;
+  return { family };
+}
+
+/** Switch an icosahedral model between a p/q approximant and a finite patch, keeping the shared fields. */
+export function withIcoMode(p: Params, mode: IcoMode): Params {
+  const { order: _o, radius: _r, centre: _c, ...rest } = p;
+  return mode === 'patch' ? { ...rest, mode, radius: typeof p.radius === 'number' ? p.radius : 15 } : { ...rest, mode, order: typeof p.order === 'string' ? p.order : '2/1' };
+}

@@ -1,0 +1,218 @@
+'use client';
+/** Zone-axis patterns and powder profiles of the current cut, with a measured pattern to compare against. */
+import { useMemo, useState } from 'react';
+import type { Structure } from '@/lib/structure/types';
+import { zoneParamsSchema } from '@/lib/params/diffraction';
+import { parseWavelength } from '@/lib/diffraction/wavelengths';
+import { readMeasured, type MeasuredPattern } from '@/lib/formats/measured';
+import { comparePatterns } from '@/lib/diffraction/compare';
+import { ZonePattern } from '@/components/plots/ZonePattern';
+import { PowderPlot } from '@/components/plots/PowderPlot';
+import { useJob } from './useJob';
+import { Progress } from './Progress';
+
+const input = 'rounded-md border border-rule bg-card px-2 py-1 text-sm aria-[invalid=true]:border-clay';
+const btn = 'rounded-md bg-tide px-3 py-1 text-sm font-medium text-white hover:bg-tide-deep disabled:opacity-50';
+
+export interface DatasetRef {
+  id: string;
+  name: string;
+  url: string;
+}
+
+export function DiffractionPanel({ structure, fileBase, datasets = [] }: { structure: Structure; fileBase: string; datasets?: DatasetRef[] }) {
+  const [sub, setSub] = useState<'zone' | 'powder'>('zone');
+  const [axis, setAxis] = useState('5');
+  const [qmax, setQmax] = useState('3');
+  const [radiation, setRadiation] = useState<'xray' | 'neutron' | 'electron'>('xray');
+  const [wl, setWl] = useState('CuKa1');
+  const [tt0, setTt0] = useState('10');
+  const [tt1, setTt1] = useState('90');
+  const [fwhm, setFwhm] = useState('0.15');
+  const [measured, setMeasured] = useState<{ name: string; data: MeasuredPattern } | null>(null);
+  const [measErr, setMeasErr] = useState<string | null>(null);
+  const zone = useJob<'zone'>('diffraction');
+  const powder = useJob<'powder'>('diffraction');
+
+  const zoneCheck = zoneParamsSchema.safeParse({ axis: axis.replace(/\s+/g, ''), qmax: Number(qmax) });
+  const zoneErr = new Map(zoneCheck.success ? [] : zoneCheck.error.issues.map((i) => [String(i.path[0]), i.message] as [string, string]));
+  let lambda: number | null = null;
+  let wlErr: string | null = null;
+  try {
+    lambda = parseWavelength(/^[\d.]+$/.test(wl) ? Number(wl) : wl);
+  } catch (e) {
+    wlErr = (e as Error).message;
+  }
+  const rangeErr = !(Number(tt0) >= 0 && Number(tt1) <= 180 && Number(tt1) > Number(tt0)) ? '2θ range: need 0 ≤ start < end ≤ 180 degrees' : null;
+  const fwhmErr = !(Number(fwhm) > 0 && Number(fwhm) <= 5) ? 'peak width: must be between 0 and 5 degrees' : null;
+
+  const comparison = useMemo(() => {
+    if (!measured || !powder.result) return null;
+    try {
+      return comparePatterns(measured.data, powder.result, powder.result.peaks, { wavelength: powder.result.wavelength, background: true });
+    } catch {
+      return null;
+    }
+  }, [measured, powder.result]);
+
+  const loadText = (name: string, text: string) => {
+    try {
+      setMeasured({ name, data: readMeasured(text) });
+      setMeasErr(null);
+    } catch (e) {
+      setMeasured(null);
+      setMeasErr((e as Error).message);
+    }
+  };
+
+  return (
+    <div className="flex h-full min-h-0 flex-col gap-2">
+      <div className="flex gap-1" role="tablist" aria-label="Diffraction">
+        {(['zone', 'powder'] as const).map((k) => (
+          <button key={k} role="tab" aria-selected={sub === k} type="button" onClick={() => setSub(k)} className={`rounded-md px-3 py-1 text-sm ${sub === k ? 'bg-ink text-paper' : 'border border-rule bg-card hover:border-tide'}`}>
+            {k === 'zone' ? 'Zone-axis pattern' : 'Powder pattern'}
+          </button>
+        ))}
+      </div>
+      {sub === 'zone' ? (
+        <>
+          <form
+            className="flex flex-wrap items-end gap-3"
+            onSubmit={(e) => {
+              e.preventDefault();
+              if (!zoneCheck.success) return;
+              void zone.start({ kind: 'zone', structure, axis: axis.replace(/\s+/g, ''), qmax: Number(qmax), slab: 0, radiation });
+            }}
+          >
+            <div>
+              <label htmlFor="zone-axis" className="block text-xs text-ink-soft">
+                Zone axis (5, 3, 2 or u,v,w)
+              </label>
+              <input id="zone-axis" className={`${input} w-28 font-mono`} value={axis} onChange={(e) => setAxis(e.target.value)} aria-invalid={zoneErr.has('axis')} />
+              {zoneErr.get('axis') ? <p className="text-xs text-clay">{zoneErr.get('axis')}</p> : null}
+            </div>
+            <div>
+              <label htmlFor="zone-qmax" className="block text-xs text-ink-soft">
+                |Q| up to (Å⁻¹)
+              </label>
+              <input id="zone-qmax" className={`${input} w-20 font-mono`} value={qmax} onChange={(e) => setQmax(e.target.value)} aria-invalid={zoneErr.has('qmax')} />
+              {zoneErr.get('qmax') ? <p className="text-xs text-clay">{zoneErr.get('qmax')}</p> : null}
+            </div>
+            <div>
+              <label htmlFor="zone-rad" className="block text-xs text-ink-soft">
+                Radiation
+              </label>
+              <select id="zone-rad" className={input} value={radiation} onChange={(e) => setRadiation(e.target.value as typeof radiation)}>
+                <option value="xray">X-ray</option>
+                <option value="neutron">Neutron</option>
+                <option value="electron">Electron</option>
+              </select>
+            </div>
+            <button type="submit" className={btn} disabled={!zoneCheck.success || zone.running}>
+              Compute pattern
+            </button>
+            <div className="min-w-48 flex-1">
+              <Progress label="Zone axis" running={zone.running} stage={zone.stage} fraction={zone.fraction} startedAt={zone.startedAt} onCancel={zone.cancel} />
+            </div>
+          </form>
+          {zone.error ? <p className="text-sm text-clay">{zone.error.message}</p> : null}
+          <div className="min-h-0 flex-1">{zone.result ? <ZonePattern result={zone.result} fileBase={fileBase} /> : <p className="text-sm text-ink-soft">Choose an axis and compute the pattern.</p>}</div>
+        </>
+      ) : (
+        <div className="min-h-0 flex-1 space-y-2 overflow-y-auto">
+          <form
+            className="flex flex-wrap items-end gap-3"
+            onSubmit={(e) => {
+              e.preventDefault();
+              if (lambda === null || rangeErr || fwhmErr) return;
+              void powder.start({ kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: Number(tt0), twoThetaMax: Number(tt1), step: 0.02, fwhm: Number(fwhm) });
+            }}
+          >
+            <div>
+              <label htmlFor="pw-wl" className="block text-xs text-ink-soft">
+                Wavelength (line name or Å)
+              </label>
+              <input id="pw-wl" className={`${input} w-28 font-mono`} value={wl} onChange={(e) => setWl(e.target.value)} aria-invalid={!!wlErr} />
+              {wlErr ? <p className="max-w-56 text-xs text-clay">{wlErr}</p> : null}
+            </div>
+            <div>
+              <span className="block text-xs text-ink-soft">2θ from – to (°)</span>
+              <input aria-label="2θ start in degrees" className={`${input} w-16 font-mono`} value={tt0} onChange={(e) => setTt0(e.target.value)} aria-invalid={!!rangeErr} />
+              <input aria-label="2θ end in degrees" className={`${input} ml-1 w-16 font-mono`} value={tt1} onChange={(e) => setTt1(e.target.value)} aria-invalid={!!rangeErr} />
+              {rangeErr ? <p className="text-xs text-clay">{rangeErr}</p> : null}
+            </div>
+            <div>
+              <label htmlFor="pw-fwhm" className="block text-xs text-ink-soft">
+                Peak width FWHM (°)
+              </label>
+              <input id="pw-fwhm" className={`${input} w-20 font-mono`} value={fwhm} onChange={(e) => setFwhm(e.target.value)} aria-invalid={!!fwhmErr} />
+              {fwhmErr ? <p className="text-xs text-clay">{fwhmErr}</p> : null}
+            </div>
+            <div>
+              <label htmlFor="pw-rad" className="block text-xs text-ink-soft">
+                Radiation
+              </label>
+              <select id="pw-rad" className={input} value={radiation} onChange={(e) => setRadiation(e.target.value as typeof radiation)}>
+                <option value="xray">X-ray</option>
+                <option value="neutron">Neutron</option>
+                <option value="electron">Electron</option>
+              </select>
+            </div>
+            <button type="submit" className={btn} disabled={lambda === null || !!rangeErr || !!fwhmErr || powder.running}>
+              Compute powder pattern
+            </button>
+          </form>
+          <div className="flex flex-wrap items-center gap-3 rounded-md border border-rule bg-card p-2 text-sm">
+            <span className="font-medium">Measured pattern to compare</span>
+            <label className="cursor-pointer rounded border border-tide px-2 py-0.5 text-xs text-tide hover:bg-tide-pale has-[:focus-visible]:outline-2">
+              Open a file (2θ, intensity[, σ])
+              <input
+                type="file"
+                accept=".xy,.dat,.txt,.csv,.xye"
+                className="sr-only"
+                aria-label="Measured pattern file"
+                onChange={(e) => {
+                  const f = e.target.files?.[0];
+                  if (f) void f.text().then((t) => loadText(f.name, t));
+                }}
+              />
+            </label>
+            {datasets.length ? (
+              <select
+                aria-label="Dataset from this project"
+                className={input}
+                defaultValue=""
+                onChange={(e) => {
+                  const d = datasets.find((x) => x.id === e.target.value);
+                  if (d)
+                    void fetch(d.url)
+                      .then((r) => (r.ok ? r.text() : Promise.reject(new Error(`dataset: could not load ${d.name} (HTTP ${r.status})`))))
+                      .then((t) => loadText(d.name, t), (err: Error) => setMeasErr(err.message));
+                }}
+              >
+                <option value="">…or a dataset of this project</option>
+                {datasets.map((d) => (
+                  <option key={d.id} value={d.id}>
+                    {d.name}
+                  </option>
+                ))}
+              </select>
+            ) : null}
+            {measured ? (
+              <span className="text-xs text-ink-soft">
+                {measured.name}: {measured.data.x.length} points{measured.data.axis !== '2theta' ? ` (read as ${measured.data.axis === 'q' ? '|Q|' : 'd'}, converted to 2θ)` : ''}
+                <button type="button" className="ml-2 text-clay underline" onClick={() => setMeasured(null)}>
+                  remove
+                </button>
+              </span>
+            ) : null}
+            {measErr ? <span className="text-xs text-clay">{measErr}</span> : null}
+          </div>
+          <Progress label="Powder" running={powder.running} stage={powder.stage} fraction={powder.fraction} startedAt={powder.startedAt} onCancel={powder.cancel} />
+          {powder.error ? <p className="text-sm text-clay">{powder.error.message}</p> : null}
+          {powder.result ? <PowderPlot curve={powder.result} comparison={comparison} measuredName={measured?.name} fileBase={fileBase} /> : <p className="text-sm text-ink-soft">Compute the powder pattern; open a measured one to lay over it.</p>}
+        </div>
+      )}
+    </div>
+  );
+}
