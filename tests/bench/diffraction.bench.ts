@@ -143,7 +143,7 @@ async function debyeBench(pool: DiffractionPool): Promise<void> {
   console.log(`  total ${((t2 - t0) / 1000).toFixed(2)} s (target < 10 s); I(Q=3.01 Å⁻¹, 111)/N = ${(I[Math.round(((3.01 - 0.5) * 2999) / 7.5)] / n).toFixed(1)}`);
 }
 
-export default async function (): Promise<void> {
+export default async function diffractionBench(): Promise<void> {
   const pool = new DiffractionPool(2);
   try {
     await pool.warm();
