@@ -9,7 +9,7 @@ import { ApiError } from './errors';
 import type { Actor } from './actor';
 import { audit } from './audit';
 import { sha256Hex } from './crypto';
-import { iso, listQuery, type Page } from './paging';
+import { iso, listQuery, type Page, contains } from './paging';
 import { access } from './projects';
 import { FormatError, readStructure, sniffFormat } from '../formats';
 import { readMeasured } from '../formats/measured';
@@ -161,7 +161,7 @@ export async function datasetBytes(actor: Actor | null, projectId: number, id: n
 export async function listDatasets(actor: Actor | null, projectId: number, q: z.infer<typeof datasetListQuery>): Promise<Page<DatasetInfo>> {
   await access(actor, projectId, 'read');
   const base = dsQuery().where('d.project_id', projectId);
-  if (q.q) base.whereLike('d.filename', `%${q.q}%`);
+  if (q.q) base.where('d.filename', 'like', contains(q.q));
   const [{ n }] = await db().count<{ n: number }[]>({ n: '*' }).from(base.clone().as('x'));
   const rows = await base.orderBy(`d.${q.sort}`, q.dir).orderBy('d.id', 'desc').limit(q.pageSize).offset((q.page - 1) * q.pageSize);
   return { items: rows.map(info), total: Number(n), page: q.page, pageSize: q.pageSize };

@@ -19,3 +19,8 @@ export interface Page<T> {
 }
 
 export const iso = (d: Date | string | null | undefined): string | null => (d ? new Date(d).toISOString() : null);
+
+/** `%q%` for LIKE with the user's own % and _ taken literally (MariaDB's default escape is \). */
+export function contains(q: string): string {
+  return `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+}

@@ -8,7 +8,7 @@ import { ApiError, notFound } from './errors';
 import { authorize, canRead, permissions, type ProjectAccess, type ProjectRole, type Visibility } from './authz';
 import type { Actor } from './actor';
 import { audit } from './audit';
-import { iso, listQuery, type Page } from './paging';
+import { iso, listQuery, type Page, contains } from './paging';
 import { fieldErrors } from './http';
 import { revisionInfo, type RevisionInfo } from './revisions';
 
@@ -78,6 +78,8 @@ export interface ProjectDetail extends ProjectSummary {
   revisionCount: number;
   parent: (ProjectLink & { visible: boolean }) | null;
   forks: ProjectLink[];
+  /** Forks this actor cannot open (private ones of other people): counted, not named. */
+  hiddenForks: number;
   permissions: ReturnType<typeof permissions>;
 }
 
@@ -165,7 +167,10 @@ export async function listProjects(actor: Actor | null, q: z.infer<typeof projec
   } else {
     base.where('p.visibility', 'public');
   }
-  if (q.q) base.where((w) => w.whereLike('p.name', `%${q.q}%`).orWhereLike('p.description', `%${q.q}%`));
+  if (q.q) {
+    const like = contains(q.q);
+    base.where((w) => w.where('p.name', 'like', like).orWhere('p.description', 'like', like));
+  }
   if (q.tag) base.whereRaw('JSON_CONTAINS(p.tags, ?)', [JSON.stringify(q.tag)]);
   const countRow = await k.count<{ n: number }[]>({ n: '*' }).from(base.clone().as('x'));
   const rows = await base.orderBy(`p.${q.sort}`, q.dir).orderBy('p.id', 'desc').limit(q.pageSize).offset((q.page - 1) * q.pageSize);
@@ -228,8 +233,10 @@ export async function getProject(actor: Actor | null, id: number): Promise<Proje
     }
   }
   const forkRows = await summaryQuery(k, actor).where('p.forked_from_project', id).leftJoin('revisions as fr', 'fr.id', 'p.forked_from_revision').select('p.forked_from_revision', 'fr.number as fork_number', 'p.visibility').orderBy('p.created_at', 'asc');
+  const canSee = (r: { visibility: string; my_role: string | null }) => r.visibility !== 'private' || r.my_role || actor?.siteRole === 'admin';
+  const hiddenForks = forkRows.filter((r) => !canSee(r)).length;
   const forks: ProjectLink[] = forkRows
-    .filter((r) => r.visibility !== 'private' || r.my_role || actor?.siteRole === 'admin')
+    .filter(canSee)
     .map((r) => ({ id: Number(r.id), name: r.name, ownerName: r.owner_name, revision: r.forked_from_revision ? Number(r.forked_from_revision) : null, revisionNumber: r.fork_number ? Number(r.fork_number) : null }));
   return {
     ...s,
@@ -237,6 +244,7 @@ export async function getProject(actor: Actor | null, id: number): Promise<Proje
     revisionCount: Number(n),
     parent,
     forks,
+    hiddenForks,
     permissions: permissions(actor, a),
   };
 }

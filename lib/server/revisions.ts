@@ -8,7 +8,7 @@ import { db } from './db';
 import { ApiError } from './errors';
 import type { Actor } from './actor';
 import { audit } from './audit';
-import { iso, listQuery, type Page } from './paging';
+import { iso, listQuery, type Page, contains } from './paging';
 import { jsonDiff, type DiffEntry } from './json-diff';
 import { access, validateParams } from './projects';
 
@@ -57,7 +57,7 @@ function revQuery() {
 export async function listRevisions(actor: Actor | null, projectId: number, q: z.infer<typeof revisionListQuery>): Promise<Page<RevisionInfo>> {
   await access(actor, projectId, 'read');
   const base = revQuery().where('r.project_id', projectId);
-  if (q.q) base.whereLike('r.message', `%${q.q}%`);
+  if (q.q) base.where('r.message', 'like', contains(q.q));
   const [{ n }] = await db().count<{ n: number }[]>({ n: '*' }).from(base.clone().as('x'));
   const rows = await base.orderBy(`r.${q.sort}`, q.dir).orderBy('r.id', q.dir).limit(q.pageSize).offset((q.page - 1) * q.pageSize);
   return { items: rows.map(revisionInfo), total: Number(n), page: q.page, pageSize: q.pageSize };

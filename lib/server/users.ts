@@ -7,6 +7,7 @@ import bcrypt from 'bcryptjs';
 import { z } from 'zod';
 import type { Knex } from 'knex';
 import { db } from './db';
+import { contains } from './paging';
 import { ApiError } from './errors';
 import { randomToken, sha256Hex } from './crypto';
 import { sendMail, siteUrl } from './mail';
@@ -202,7 +203,10 @@ export function requireAdmin(actor: Actor | null): Actor {
 export async function listUsers(actor: Actor | null, q: z.infer<typeof userListQuery>): Promise<{ items: UserInfo[]; total: number }> {
   requireAdmin(actor);
   const base = db()('users');
-  if (q.q) base.where((w) => w.whereLike('email', `%${q.q}%`).orWhereLike('name', `%${q.q}%`));
+  if (q.q) {
+    const like = contains(q.q);
+    base.where((w) => w.where('email', 'like', like).orWhere('name', 'like', like));
+  }
   const [{ n }] = await base.clone().count<{ n: number }[]>({ n: '*' });
   const rows = await base.clone().orderBy(q.sort, q.dir).orderBy('id').limit(q.pageSize).offset((q.page - 1) * q.pageSize)
     .select('id', 'email', 'name', 'site_role', 'verified_at', 'disabled_at', 'created_at');
@@ -244,7 +248,7 @@ export async function updateUser(actor: Actor | null, id: number, input: z.infer
 export async function listMail(actor: Actor | null, q: { page: number; pageSize: number; to?: string }) {
   requireAdmin(actor);
   const base = db()('mail_messages');
-  if (q.to) base.whereLike('mail_to', `%${q.to}%`);
+  if (q.to) base.where('mail_to', 'like', contains(q.to));
   const [{ n }] = await base.clone().count<{ n: number }[]>({ n: '*' });
   const rows = await base.clone().orderBy('id', 'desc').limit(q.pageSize).offset((q.page - 1) * q.pageSize)
     .select('id', 'mail_from', 'mail_to', 'subject', 'body_text', 'received_at');

@@ -50,8 +50,11 @@ export default async function ProjectPage({ params }: { params: Promise<{ id: st
               <p className="text-sm text-ink-soft">An original project (not a fork).</p>
             )}
             <div className="text-sm" data-testid="lineage-forks">
+              {project.hiddenForks > 0 && (
+                <p className="text-ink-soft">{project.hiddenForks} private fork{project.hiddenForks === 1 ? '' : 's'} by others.</p>
+              )}
               {project.forks.length === 0 ? (
-                <p className="text-ink-soft">No forks you can see yet.</p>
+                project.hiddenForks === 0 && <p className="text-ink-soft">No forks yet.</p>
               ) : (
                 <ul className="list-inside list-disc">
                   {project.forks.map((f) => (
