@@ -10,6 +10,7 @@ import { parseWavelength, XRAY_LINES } from '../../lib/diffraction/wavelengths';
 import { DIFFRACTION_UNITS, UNITS_COMMENT } from '../../lib/diffraction/units';
 import { ENGINE_VERSION } from '../../lib/version';
 import { registerZoneCommand, registerHyperspaceCommand } from './diffract-more';
+import { registerCompareCommand } from './diffract-compare';
 
 function parse<T>(schema: ZodType<T>, input: unknown): T {
   const res = schema.safeParse(input);
@@ -188,6 +189,7 @@ export function registerDiffractCommands(program: Command): void {
     .action((o: { input: string; qFile: string; radiation: string }) => atCommand(o));
   registerZoneCommand(d);
   registerHyperspaceCommand(d);
+  registerCompareCommand(d);
 }
 
 export { RADIATIONS };
