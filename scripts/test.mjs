@@ -107,7 +107,9 @@ async function main() {
   if (!lintOk) tally.failed += 1;
   if (!typesOk) tally.failed += 1;
 
-  vitestPhase('unit and integration tests (vitest)', [], { ...env, NODE_ENV: 'test' }, 'vitest-report.json');
+  // Unit tests are pure and run two files at a time; integration tests share one database and run in turn.
+  vitestPhase('unit tests (vitest)', ['tests/unit', '--fileParallelism'], { ...env, NODE_ENV: 'test' }, 'vitest-unit.json');
+  vitestPhase('integration tests against MariaDB (vitest)', ['tests/integration'], { ...env, NODE_ENV: 'test' }, 'vitest-integration.json');
 
   const built = runPhase('production build for the browser tests (next build)', process.execPath, [join(root, 'node_modules', 'next', 'dist', 'bin', 'next'), 'build'], { ...env, NEXT_TELEMETRY_DISABLED: '1' });
   if (built) {
