@@ -199,7 +199,8 @@ export function Field({ name, path, info, value, onChange, errors, skip, labelOv
       const obj = (value && typeof value === 'object' ? value : {}) as Record<string, unknown>;
       const body = (
         <div className="space-y-2">
-          {s.fields
+          {[...s.fields]
+            .sort((a, b) => priority(a.key) - priority(b.key))
             .filter((f) => !skip?.has(f.key))
             .map((f) => (
               <Field
@@ -373,6 +374,13 @@ export function Field({ name, path, info, value, onChange, errors, skip, labelOv
         </div>
       );
   }
+}
+
+/** The fields a modeller sets first come first; the rest keep the schema's order. */
+const FIRST = ['order', 'radius', 'approximant', 'aR', 'edge', 'lattice'];
+function priority(key: string): number {
+  const i = FIRST.indexOf(key);
+  return i < 0 ? FIRST.length : i;
 }
 
 /** Sensible new values for groups the user switches on. */

@@ -28,7 +28,7 @@ export function SeriesTable({ rows, quasicrystalDensity, current, onPick, fileBa
           CSV
         </button>
       </div>
-      <table className="w-full rounded-md border border-rule bg-card text-sm">
+      <table className="w-full rounded-md border border-rule bg-card text-sm [&_td]:whitespace-nowrap">
         <thead>
           <tr className="text-left text-xs text-ink-soft">
             <th className="px-2 py-1 font-medium">Order</th>

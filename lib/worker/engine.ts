@@ -72,8 +72,10 @@ export function series(params: unknown, report: Report = () => {}): JobResultMap
   let rhoQc: number | undefined;
   // The quasicrystal's density is the limit of the series; with the patch route we measure it directly.
   try {
-    const qc = estimateCount({ ...(params as object), mode: 'patch', radius: 10 * aR });
-    rhoQc = qc / ((4 / 3) * Math.PI * (10 * aR) ** 3);
+    // A large ball, so the integer rounding of the estimate is below 1e-6 of it.
+    const R = 60 * aR;
+    const qc = estimateCount({ ...(params as object), mode: 'patch', radius: R });
+    rhoQc = qc / ((4 / 3) * Math.PI * R ** 3);
   } catch {
     rhoQc = undefined;
   }

@@ -1,0 +1,113 @@
+/**
+ * The workspace end to end, against the production build with the demo seed: sign in, open the demo
+ * icosahedral project's workspace, cut the 2/1 approximant, turn it, slice it normal to a five-fold axis,
+ * compute a zone-axis pattern, look at perpendicular space, and download XYZ.
+ *
+ * Outside reference for the atom count: the model-set density formula (Baake & Grimm, Aperiodic Order
+ * vol. 1, 2013): points per volume = vol(window)/vol(6D cell), here the rhombic triacontahedron over the
+ * P hyperlattice cell, times the cubic cell a(2/1)³ with a(p/q) = 2(pτ+q)a_R/√(2+τ) (Elser & Henley 1985).
+ * An approximant's count is not exactly the quasicrystal's density times its volume (the phason strain
+ * changes the window), so the check allows 1 %; the exact 136 for the plain P vertex model is the
+ * engine's integer count Σ|det| (lib/tiling/approximant.ts), which the downloaded file must match.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { readFileSync } from 'node:fs';
+import { baseUrl, launch, screenshot } from './browser';
+import { icosahedralBasis, hyperlatticeCellVolume, TAU } from '../../lib/tiling/hyperlattice';
+import { windowVolume, zonotopeWindow } from '../../lib/tiling/window';
+import { approximantVertexCount } from '../../lib/tiling/approximant';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function frames(page: Page): Promise<number> {
+  return (await page.evaluate('window.__tauforgeViewer ? window.__tauforgeViewer.frames() : 0')) as number;
+}
+
+describe('workspace', () => {
+  it('cuts, turns, slices, diffracts and downloads the 2/1 approximant', async () => {
+    const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
+    const page = await ctx.newPage();
+    await page.goto(`${baseUrl}/signin`);
+    await page.fill('input[name=email]', 'lead@harrowgate.test');
+    await page.fill('input[name=password]', 'quasi-demo-2026');
+    await page.click('button[type=submit]');
+    await page.waitForURL(/\/projects$/);
+    await page.click('text=Icosahedral 2/1 vertex model');
+    await page.waitForURL(/\/projects\/\d+$/);
+    await page.goto(`${page.url()}/workspace`);
+    await page.waitForSelector('[data-testid=estimate]');
+
+    // The demo model is a plain P vertex model; make sure the order is 2/1.
+    const order = page.getByLabel('Order p/q');
+    if ((await order.inputValue()) !== '2/1') await order.fill('2/1');
+    const aR = Number(await page.getByLabel(/Rhombohedron edge/).inputValue());
+    await page.waitForFunction(() => /\d/.test(document.querySelector('[data-testid=estimate]')?.textContent ?? ''), null, { timeout: 60_000 });
+    const estimate = Number((await page.textContent('[data-testid=estimate]'))!.replace(/,/g, ''));
+
+    // A bad value is named beside its field and blocks generation; fixing it clears the message.
+    await order.fill('3/1');
+    await expect.poll(() => page.locator('text=must be a ratio of consecutive Fibonacci numbers').count()).toBeGreaterThan(0);
+    expect(await page.getByRole('button', { name: /Generate|Cut again/ }).isDisabled()).toBe(true);
+    await order.fill('2/1');
+
+    await page.getByRole('button', { name: /Generate|Cut again/ }).click();
+    await page.waitForSelector('[data-testid=atom-count]', { timeout: 60_000 });
+    const count = Number((await page.textContent('[data-testid=atom-count]'))!.replace(/,/g, ''));
+    expect(count).toBe(approximantVertexCount(2, 1));
+    expect(count).toBe(136);
+    expect(estimate).toBe(count);
+    const basis = icosahedralBasis(aR);
+    const rho = windowVolume(zonotopeWindow(basis.perp)) / hyperlatticeCellVolume('P', aR);
+    const a = (2 * (2 * TAU + 1) * aR) / Math.sqrt(2 + TAU);
+    expect(Math.abs(count - rho * a ** 3) / count).toBeLessThan(0.01);
+
+    // Turn it: a drag on the canvas draws new frames.
+    await page.waitForFunction('window.__tauforgeViewer && window.__tauforgeViewer.frames() > 0', null, { timeout: 60_000 });
+    const canvas = page.locator('canvas').first();
+    const box = (await canvas.boundingBox())!;
+    const before = await frames(page);
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width / 2 + 80, box.y + box.height / 2 + 30, { steps: 6 });
+    await page.mouse.up();
+    await expect.poll(() => frames(page), { timeout: 30_000 }).toBeGreaterThan(before);
+    await screenshot(page, 'workspace-3d');
+
+    // Look down a five-fold axis and keep one slab normal to it.
+    await page.getByRole('button', { name: 'Look down five-fold axis 1' }).click();
+    await page.getByLabel('Show one slab only').check();
+    await page.waitForTimeout(1500);
+    await screenshot(page, 'workspace-slab');
+
+    // Zone-axis pattern down the five-fold axis; hovering a spot reads its indices.
+    await page.getByRole('tab', { name: 'Diffraction' }).click();
+    await page.getByLabel(/Zone axis/).fill('5');
+    await page.getByRole('button', { name: 'Compute pattern' }).click();
+    await page.waitForSelector('svg[aria-label^="Zone-axis"] circle[aria-label^="spot"]', { timeout: 90_000 });
+    const spots = await page.locator('svg[aria-label^="Zone-axis"] circle[aria-label^="spot"]').count();
+    expect(spots).toBeGreaterThan(10);
+    await page.locator('svg[aria-label^="Zone-axis"] circle[aria-label^="spot"]').last().hover({ force: true });
+    await expect.poll(() => page.locator('[data-testid=spot-indices]').count()).toBe(1);
+    await screenshot(page, 'workspace-zone');
+
+    await page.getByRole('tab', { name: 'Perpendicular space' }).click();
+    await page.waitForTimeout(500);
+    await screenshot(page, 'workspace-perp');
+
+    // Download XYZ: the file holds the same number of atoms.
+    await page.getByLabel('File format').selectOption('xyz');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download' }).click()]);
+    const text = readFileSync((await download.path())!, 'utf8');
+    const lines = text.trim().split('\n');
+    expect(Number(lines[0])).toBe(count);
+    expect(lines.length).toBe(count + 2);
+    await ctx.close();
+  });
+});
