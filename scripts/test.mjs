@@ -68,6 +68,8 @@ async function main() {
   loadEnv();
   ensureMariadb();
   ensureDebian(['chromium'], () => existsSync('/usr/bin/chromium'), 'the browser tests');
+  // A system font with Greek and symbols for glyphs our shipped Latin subsets lack (τ, θ, ⊥, Å in plots).
+  ensureDebian(['fonts-dejavu-core'], () => existsSync('/usr/share/fonts/truetype/dejavu'), 'the browser tests');
   // Reference libraries that tests compare our results with (each test names the one it uses).
   ensureDebian(
     ['python3', 'python3-numpy', 'python3-gemmi', 'python3-ase', 'python3-spglib', 'python3-xraylib'],
