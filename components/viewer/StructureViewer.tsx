@@ -25,8 +25,13 @@ export interface StructureViewerProps {
   structure: Structure;
   /** View state; defaults to the shared useViewStore. */
   store?: ViewStore;
-  /** 'impostor' (the viewer) or 'naive' (triangulated spheres, for the benchmark only). */
-  drawMode?: 'impostor' | 'naive';
+  /**
+   * 'impostor' (default: sphere impostors with the quads written out, one ordinary draw per species),
+   * 'instanced' (the same impostors from one shared quad through InstancedBufferGeometry — several times
+   * slower in software WebGL, see tests/bench/viewer.bench.ts) or 'naive' (triangulated spheres, for the
+   * benchmark only).
+   */
+  drawMode?: 'impostor' | 'instanced' | 'naive';
   /** Show the control panel beside the view (default true). */
   showPanel?: boolean;
   /** Show the picked-atom readout under the view (default true). */
@@ -119,7 +124,7 @@ export function StructureViewer({
           <Canvas
             frameloop="demand"
             dpr={1}
-            gl={{ antialias: true, preserveDrawingBuffer: false, alpha: false }}
+            gl={{ antialias: false, preserveDrawingBuffer: false, alpha: false }}
             onCreated={(state) => {
               state.gl.setClearColor(new THREE.Color('#fffdf8'), 1);
               setInvalidate(() => state.invalidate);
@@ -140,7 +145,7 @@ export function StructureViewer({
             {drawMode === 'naive' ? (
               <NaiveAtoms batches={data.batches} radiusScale={radiusScale} />
             ) : (
-              <ImpostorAtoms batches={data.batches} clip={clip} radiusScale={radiusScale} />
+              <ImpostorAtoms batches={data.batches} clip={clip} radiusScale={radiusScale} instanced={drawMode === 'instanced'} />
             )}
             <PickMarks positions={structure.positions} picks={picks} radii={radii} clip={clip} />
             {bonds.on && (

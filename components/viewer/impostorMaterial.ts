@@ -160,13 +160,36 @@ export function createImpostorMaterial(clip: ClipUniforms, colourHex: string, ra
   });
 }
 
-/** The one quad all impostors share, corners at (±1, ±1). */
-export function createImpostorGeometry(centres: Float32Array): THREE.InstancedBufferGeometry {
-  const g = new THREE.InstancedBufferGeometry();
-  g.setAttribute('position', new THREE.BufferAttribute(new Float32Array([-1, -1, 0, 1, -1, 0, 1, 1, 0, -1, 1, 0]), 3));
-  g.setIndex([0, 1, 2, 0, 2, 3]);
-  g.setAttribute('instanceCentre', new THREE.InstancedBufferAttribute(centres, 3));
-  g.instanceCount = centres.length / 3;
+/**
+ * The impostor quads of one species. `instanced`: one shared quad (corners at (±1, ±1)) drawn once per
+ * atom with the centre as an instanced attribute — the least memory. Otherwise the same attributes
+ * written out per vertex (4 corners and 6 indices per atom) in a single ordinary draw: the shader is the
+ * same, and software WebGL (SwiftShader, our headless browser tests and benchmark) pays a large fixed cost
+ * per instance, so there the written-out form is many times faster (see tests/bench/viewer.bench.ts).
+ */
+export function createImpostorGeometry(centres: Float32Array, instanced = true): THREE.BufferGeometry {
+  const n = centres.length / 3;
+  if (instanced) {
+    const g = new THREE.InstancedBufferGeometry();
+    g.setAttribute('position', new THREE.BufferAttribute(new Float32Array([-1, -1, 0, 1, -1, 0, 1, 1, 0, -1, 1, 0]), 3));
+    g.setIndex([0, 1, 2, 0, 2, 3]);
+    g.setAttribute('instanceCentre', new THREE.InstancedBufferAttribute(centres, 3));
+    g.instanceCount = n;
+    return g;
+  }
+  const corner = new Float32Array(12 * n);
+  const centre = new Float32Array(12 * n);
+  const index = new Uint32Array(6 * n);
+  const quad = [-1, -1, 0, 1, -1, 0, 1, 1, 0, -1, 1, 0];
+  for (let i = 0; i < n; i++) {
+    corner.set(quad, 12 * i);
+    for (let k = 0; k < 4; k++) centre.set(centres.subarray(3 * i, 3 * i + 3), 12 * i + 3 * k);
+    index.set([4 * i, 4 * i + 1, 4 * i + 2, 4 * i, 4 * i + 2, 4 * i + 3], 6 * i);
+  }
+  const g = new THREE.BufferGeometry();
+  g.setAttribute('position', new THREE.BufferAttribute(corner, 3));
+  g.setAttribute('instanceCentre', new THREE.BufferAttribute(centre, 3));
+  g.setIndex(new THREE.BufferAttribute(index, 1));
   return g;
 }
 

@@ -23,20 +23,20 @@ function useDispose(...objects: { dispose(): void }[]): void {
   useEffect(() => () => objects.forEach((o) => o.dispose()), objects); // eslint-disable-line react-hooks/exhaustive-deps
 }
 
-function SpeciesImpostors({ batch, clip, radiusScale }: { batch: SpeciesBatch; clip: ClipUniforms; radiusScale: number }) {
-  const geometry = useMemo(() => createImpostorGeometry(batch.centres), [batch]);
+function SpeciesImpostors({ batch, clip, radiusScale, instanced }: { batch: SpeciesBatch; clip: ClipUniforms; radiusScale: number; instanced: boolean }) {
+  const geometry = useMemo(() => createImpostorGeometry(batch.centres, instanced), [batch, instanced]);
   const material = useMemo(() => createImpostorMaterial(clip, batch.colour, 1), [clip, batch.colour]);
   useDispose(geometry, material);
   useEffect(() => setUniform(material, 'radius', speciesRadius(batch.z, radiusScale)), [material, batch.z, radiusScale]);
   return <mesh geometry={geometry} material={material} frustumCulled={false} name={`atoms-${batch.z}`} />;
 }
 
-/** Sphere impostors: one InstancedBufferGeometry and one draw call per species. */
-export function ImpostorAtoms({ batches, clip, radiusScale }: { batches: SpeciesBatch[]; clip: ClipUniforms; radiusScale: number }) {
+/** Sphere impostors: one geometry and one draw call per species (instanced, or written-out quads). */
+export function ImpostorAtoms({ batches, clip, radiusScale, instanced = false }: { batches: SpeciesBatch[]; clip: ClipUniforms; radiusScale: number; instanced?: boolean }) {
   return (
     <>
       {batches.map((b) => (
-        <SpeciesImpostors key={b.z} batch={b} clip={clip} radiusScale={radiusScale} />
+        <SpeciesImpostors key={b.z} batch={b} clip={clip} radiusScale={radiusScale} instanced={instanced} />
       ))}
     </>
   );
