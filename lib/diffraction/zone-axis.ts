@@ -8,7 +8,8 @@
  * crystal (or Cartesian when there is no cell).
  *
  * Crystals: reflections with h·[uvw] = n, |n| ≤ laueZones (n = 0 the zero-order Laue zone), |Q| ≤ qmax,
- * intensity |F|² (kinematic, no Lp — a transmission electron pattern), largest in-zone = 100.
+ * intensity |F|² (kinematic, no Lp — a transmission electron pattern), largest in-zone = 100; down an
+ * icosahedral axis of an approximant, the reflections within ±slab of the plane.
  * Patches: |F(Q)|²/N by direct summation on a square grid of the plane through the origin (or averaged
  * over layers spanning ±slab Å⁻¹ along the axis, a thick Laue zone), with phase recurrences along
  * grid rows (cartesian-sum.ts). The finite patch gives every spot its natural width ≈ 2π/D.
@@ -179,26 +180,37 @@ function rank(spots: ZoneSpot[], threshold: number, originTol: number): ZoneSpot
     .sort((x, y) => y.intensity - x.intensity || x.q - y.q || x.qx - y.qx || x.qy - y.qy);
 }
 
-/** Crystal zone pattern: reflections of the Laue zones |n| ≤ laueZones with their |F|². */
+/**
+ * Crystal zone pattern. For a lattice direction [uvw]: reflections with h·[uvw] = n, |n| ≤ laueZones.
+ * For an icosahedral axis of a periodic approximant ("5", "3", "2" — generally not a lattice row):
+ * reflections with |Q·beam| ≤ slab (default 0.05 Å⁻¹), the approximant's pseudo-zone.
+ */
 export function crystalZone(s: Structure, o: ZoneOptions): ZoneSpot[] {
   if (!s.cell) throw new Error('cell: crystalZone needs a periodic structure');
-  if (typeof o.axis === 'string') throw new Error('axis: give [u,v,w] for a crystal');
-  const [u, v, w] = o.axis;
-  const nmax = o.laueZones ?? 0;
   const frame = zoneFrame(o.axis, s);
   const recip = reciprocalCell(s.cell);
   const all = enumerateHkl(s, (2 * Math.PI) / o.qmax);
+  const lattice = typeof o.axis !== 'string';
+  const nmax = o.laueZones ?? 0;
+  const slab = o.slab && o.slab > 0 ? o.slab : 0.05;
   const keep: number[] = [];
   for (let i = 0; i < all.length / 3; i++) {
-    const nz = all[3 * i] * u + all[3 * i + 1] * v + all[3 * i + 2] * w;
-    if (Math.abs(nz) <= nmax) keep.push(all[3 * i], all[3 * i + 1], all[3 * i + 2]);
+    const [h, k, l] = [all[3 * i], all[3 * i + 1], all[3 * i + 2]];
+    if (lattice) {
+      const [u, v, w] = o.axis as [number, number, number];
+      if (Math.abs(h * u + k * v + l * w) > nmax) continue;
+    } else {
+      const g = gVector(recip, h, k, l);
+      if (Math.abs(2 * Math.PI * dot(g, frame.axis)) > slab) continue;
+    }
+    keep.push(h, k, l);
   }
   const hkl = Int32Array.from(keep);
   const f = structureFactorsHkl(s, hkl, o.radiation ?? 'xray');
   const spots: ZoneSpot[] = [];
   for (let i = 0; i < hkl.length / 3; i++) {
     const g = gVector(recip, hkl[3 * i], hkl[3 * i + 1], hkl[3 * i + 2]).map((x) => 2 * Math.PI * x) as Vec3;
-    spots.push({
+    const spot: ZoneSpot = {
       qx: dot(g, frame.e1),
       qy: dot(g, frame.e2),
       qz: dot(g, frame.axis),
@@ -206,15 +218,19 @@ export function crystalZone(s: Structure, o: ZoneOptions): ZoneSpot[] {
       intensity: f.f2[i],
       relative: 0,
       hkl: [hkl[3 * i], hkl[3 * i + 1], hkl[3 * i + 2]],
-      laueZone: hkl[3 * i] * u + hkl[3 * i + 1] * v + hkl[3 * i + 2] * w,
-    });
+    };
+    if (lattice) {
+      const [u, v, w] = o.axis as [number, number, number];
+      spot.laueZone = hkl[3 * i] * u + hkl[3 * i + 1] * v + hkl[3 * i + 2] * w;
+    }
+    spots.push(spot);
   }
   return rank(spots, o.threshold ?? 1e-3, 0);
 }
 
 /** Periodic structures → crystalZone; anything else → zoneMap + mapSpots. */
 export function zonePattern(s: Structure, o: ZoneOptions): { spots: ZoneSpot[]; map?: ZoneMap } {
-  if (s.cell && typeof o.axis !== 'string') return { spots: crystalZone(s, o) };
+  if (s.cell) return { spots: crystalZone(s, o) };
   const map = zoneMap(s, o);
   return { spots: mapSpots(map, o.qmax, o.threshold ?? 1e-3), map };
 }

@@ -58,14 +58,15 @@ export function registerZoneCommand(d: Command): void {
       const fr = res.map?.frame ?? null;
       const out = {
         engine: ENGINE_VERSION,
-        units: { ...DIFFRACTION_UNITS, intensity: s.cell && typeof axis !== 'string' ? '|F|² (largest = 100 in relative)' : '|F(Q)|²/N (relative: largest off-centre spot = 100)' },
+        units: { ...DIFFRACTION_UNITS, intensity: s.cell ? '|F|² (largest = 100 in relative)' : '|F(Q)|²/N (relative: largest off-centre spot = 100)' },
         axis: p.axis,
         method: res.map ? 'direct sum on a reciprocal-plane grid' : 'crystal reflections of the zone',
         frame: fr ? { beam: fr.axis.map((x) => r(x, 9)), e1: fr.e1.map((x) => r(x, 9)), e2: fr.e2.map((x) => r(x, 9)) } : undefined,
         spots: res.spots.map((k) => ({
           qx: r(k.qx),
           qy: r(k.qy),
-          ...(k.laueZone !== undefined ? { qz: r(k.qz), laueZone: k.laueZone, hkl: k.hkl } : {}),
+          ...(k.hkl ? { qz: r(k.qz), hkl: k.hkl } : {}),
+          ...(k.laueZone !== undefined ? { laueZone: k.laueZone } : {}),
           q: r(k.q),
           intensity: r(k.intensity, 6),
           relative: r(k.relative, 4),

@@ -3,6 +3,8 @@ import { zoneMap, mapSpots, crystalZone, zoneFrame, parseAxis } from '../../lib/
 import { intensityAt } from '../../lib/diffraction/intensity-at';
 import { icosahedralPeaks } from '../../lib/diffraction/hyperspace';
 import { icosahedralPatch } from '../../lib/tiling/icosahedral';
+import { icosahedralApproximant } from '../../lib/tiling/approximant';
+import { zonePattern } from '../../lib/diffraction/zone-axis';
 import { TAU } from '../../lib/tiling/hyperlattice';
 import { crystal, cubic, FCC } from './diffraction-helpers';
 
@@ -93,5 +95,24 @@ describe('zone axes', () => {
     expect(first.length).toBe(4);
     const hol = crystalZone(cu, { axis: [0, 0, 1], qmax: 5.0, laueZones: 1 });
     expect(hol.some((s) => s.laueZone === 1 && s.hkl!.join('') === '111')).toBe(true);
+  });
+
+  // Note: the 2/1 approximant generated at zero phason offset is not exactly 3-fold symmetric (a few
+  // window-boundary points break the cyclic permutation x→y→z), so intensities are only compared
+  // under Friedel's law here; the spot lattice must still be 6-fold.
+  it('2/1 cubic approximant (lib/tiling/approximant.ts) down the 3-fold axis: 6-fold spot lattice in the slab, Friedel pairs equal', () => {
+    const ap = icosahedralApproximant({ p: 2, q: 1, aR });
+    const { spots } = zonePattern(ap, { axis: '3', qmax: 2.5, slab: 1e-6, threshold: 0 });
+    expect(spots.length).toBeGreaterThan(12);
+    const byPos = new Map(spots.map((p) => [`${Math.round(p.qx * 1e5)},${Math.round(p.qy * 1e5)}`, p.intensity]));
+    for (const p of spots.filter((x) => x.q > 0)) {
+      expect(Math.abs(p.qz)).toBeLessThan(1e-6);
+      expect(p.hkl![0] + p.hkl![1] + p.hkl![2]).toBe(0);
+      for (let r = 1; r < 6; r++) {
+        const c = Math.cos((r * Math.PI) / 3), sn = Math.sin((r * Math.PI) / 3);
+        expect(byPos.has(`${Math.round((c * p.qx - sn * p.qy) * 1e5)},${Math.round((sn * p.qx + c * p.qy) * 1e5)}`)).toBe(true);
+      }
+      expect(byPos.get(`${Math.round(-p.qx * 1e5)},${Math.round(-p.qy * 1e5)}`)!).toBeCloseTo(p.intensity, 6);
+    }
   });
 });
