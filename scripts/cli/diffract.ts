@@ -5,6 +5,10 @@ import { compute, loadStructure, num, oneOf, r, range, readText } from './diffra
 import { powderParamsSchema, radiationSchema } from '../../lib/params/diffraction';
 import { braggPowder } from '../../lib/diffraction/powder';
 import { debyePowder } from '../../lib/diffraction/debye-powder';
+import { groupAtoms } from '../../lib/diffraction/scatterers';
+import { histogramSpec } from '../../lib/diffraction/pair-histogram';
+import type { PairHistogram } from '../../lib/diffraction/debye';
+import { DiffractionPool } from '../../lib/server/workers/diffraction-pool';
 import { intensityAt } from '../../lib/diffraction/intensity-at';
 import { parseWavelength, XRAY_LINES } from '../../lib/diffraction/wavelengths';
 import { DIFFRACTION_UNITS, UNITS_COMMENT } from '../../lib/diffraction/units';
@@ -44,7 +48,7 @@ function kalpha2Of(spec: string): number | undefined {
   return XRAY_LINES[el].ka2;
 }
 
-function powderCommand(o: PowderFlags): void {
+async function powderCommand(o: PowderFlags): Promise<void> {
   const fmt = oneOf('--format', o.format, ['json', 'csv'] as const);
   const [t0, t1] = range('--range', o.range);
   const p = parse(powderParamsSchema, {
@@ -113,8 +117,10 @@ function powderCommand(o: PowderFlags): void {
     }
     return;
   }
+  const histogram = s.species.length > 20_000 ? await parallelHistogram(s, p.binWidth) : undefined;
   const res = compute(() =>
     debyePowder(s, {
+      histogram,
       wavelength: lambda,
       radiation: p.radiation,
       twoThetaMin: Math.max(p.twoThetaMin, 1e-3),
@@ -139,6 +145,21 @@ function powderCommand(o: PowderFlags): void {
     lines.push('twoTheta,q,intensity');
     for (let i = 0; i < res.twoTheta.length; i++) lines.push(`${r(res.twoTheta[i])},${r(res.q[i])},${r(res.intensity[i], 6)}`);
     process.stdout.write(lines.join('\n') + '\n');
+  }
+}
+
+/** Large patches: the O(N²) pair loop on two worker threads. */
+async function parallelHistogram(s: Parameters<typeof groupAtoms>[0], binWidth: number): Promise<PairHistogram> {
+  const { groups, groupOf, weight } = compute(() => groupAtoms(s));
+  const spec = compute(() => histogramSpec(s.positions, groups.length, binWidth));
+  const pool = new DiffractionPool(2);
+  try {
+    const hist = await pool.pairHistogram(s.positions, groupOf, weight, spec);
+    const self = new Float64Array(groups.length);
+    for (let i = 0; i < groupOf.length; i++) self[groupOf[i]] += weight[i] * weight[i];
+    return { ...spec, hist, self, groups, atoms: groupOf.length };
+  } finally {
+    await pool.close();
   }
 }
 
