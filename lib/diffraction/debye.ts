@@ -8,6 +8,9 @@
  * with the pair histogram h_ab of pair-histogram.ts (bin centres r = (k + ½)Δ). I is in (form-factor
  * unit)² for the whole cluster; divide by N for per-atom values. Q in Å⁻¹ (|Q| = 4π sinθ/λ).
  * On a uniform Q grid sin(Q r) comes from the recurrence e^{i(Q+ΔQ)r} = e^{iQr}·e^{iΔQ r}.
+ * Isotropic B damps only the pair terms (g_a g_b carry e^{−(B_a+B_b)s²}); the self terms keep the bare
+ * f² because an atom's displacement does not change its distance to itself (Warren §6 — the intensity
+ * lost from the pair terms reappears as diffuse background).
  */
 import type { Structure } from '../structure/types';
 import type { Radiation } from './form-factors';
@@ -84,12 +87,18 @@ export function debyeFromHistogram(ph: PairHistogram, q: Float64Array, radiation
   const ng = ph.groups.length;
   const out = new Float64Array(m);
   const g = new Float64Array(ng * m);
+  const bare = new Float64Array(ng * m);
   for (let a = 0; a < ng; a++) {
-    for (let k = 0; k < m; k++) g[a * m + k] = groupFactor(ph.groups[a], radiation, (q[k] / (4 * Math.PI)) ** 2);
+    const undamped = { ...ph.groups[a], biso: 0 };
+    for (let k = 0; k < m; k++) {
+      const s2 = (q[k] / (4 * Math.PI)) ** 2;
+      g[a * m + k] = groupFactor(ph.groups[a], radiation, s2);
+      bare[a * m + k] = groupFactor(undamped, radiation, s2);
+    }
   }
   const tmp = new Float64Array(m);
   for (let a = 0; a < ng; a++) {
-    for (let k = 0; k < m; k++) out[k] += g[a * m + k] ** 2 * ph.self[a];
+    for (let k = 0; k < m; k++) out[k] += bare[a * m + k] ** 2 * ph.self[a];
     for (let b = a; b < ng; b++) {
       sincSum(ph.hist, (a * ng + b) * ph.nBins, ph.nBins, ph.binWidth, q, tmp);
       for (let k = 0; k < m; k++) out[k] += 2 * g[a * m + k] * g[b * m + k] * tmp[k];
@@ -105,10 +114,12 @@ export function debyeExact(s: Structure, q: Float64Array, radiation: Radiation =
   const m = q.length;
   const out = new Float64Array(m);
   const g = groups.map((gr) => Float64Array.from(q, (qq) => groupFactor(gr, radiation, (qq / (4 * Math.PI)) ** 2)));
+  const bare = groups.map((gr) => Float64Array.from(q, (qq) => groupFactor({ ...gr, biso: 0 }, radiation, (qq / (4 * Math.PI)) ** 2)));
   const p = s.positions;
   for (let i = 0; i < n; i++) {
     const gi = g[groupOf[i]];
-    for (let k = 0; k < m; k++) out[k] += (weight[i] * gi[k]) ** 2;
+    const fi = bare[groupOf[i]];
+    for (let k = 0; k < m; k++) out[k] += (weight[i] * fi[k]) ** 2;
     for (let j = i + 1; j < n; j++) {
       const r = Math.hypot(p[3 * j] - p[3 * i], p[3 * j + 1] - p[3 * i + 1], p[3 * j + 2] - p[3 * i + 2]);
       const gj = g[groupOf[j]];

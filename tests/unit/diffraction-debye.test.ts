@@ -73,6 +73,23 @@ describe('Debye scattering equation', () => {
     for (let k = 0; k < q.length; k++) expect(Math.abs(binned[k] - exact[k]) / max).toBeLessThan(1e-3);
   });
 
+  it('with B: dimer I = 2f²(1 + e^{−2Bs²} sin(Qd)/(Qd)) — pair term damped, self term not (Warren §6)', () => {
+    const d = 2.2;
+    const s = mk([0, 0, 0, 0, 0, d], [13, 13]);
+    s.site = new Uint16Array(2);
+    s.siteClasses = [{ name: 'Al', species: 13, biso: 1.2 }];
+    const q = Float64Array.from([0.7, 2.1, 4.4]);
+    const exact = debyeExact(s, q);
+    const binned = debyeFromHistogram(pairHistogram(s, 0.0001), q);
+    q.forEach((qq, k) => {
+      const s2 = (qq / (4 * Math.PI)) ** 2;
+      const f = xrayFormFactor(13, s2);
+      const ref = 2 * f * f * (1 + Math.exp(-2 * 1.2 * s2) * (Math.sin(qq * d) / (qq * d)));
+      expect(exact[k]).toBeCloseTo(ref, 9);
+      expect(Math.abs(binned[k] - ref) / ref).toBeLessThan(1e-4);
+    });
+  });
+
   it('balanced row ranges cover all pairs with about equal counts', () => {
     const n = 1001;
     const parts = balancedRowRanges(n, 3);
