@@ -223,6 +223,24 @@ print(json.dumps(sorted([[d,100*i/m] for d,i in out], key=lambda t:-t[0])))`);
     }
   });
 
+  it('Kα2 doublet: second line at 2θ from λ(Kα2), half the area, peak list stays Kα1 (common practice, ratio 0.5)', () => {
+    const base = { wavelength: 1.540593, radiation: 'xray' as const, twoThetaMin: 40, twoThetaMax: 46 };
+    const prof = { U: 0, V: 0, W: 0.0004, eta: 0, step: 0.002 };
+    const one = braggPowder(cu, { ...base, profile: prof });
+    const two = braggPowder(cu, { ...base, profile: prof, wavelength2: 1.544414, ratio2: 0.5 });
+    expect(two.peaks).toEqual(one.peaks);
+    const area = (y: Float64Array) => y.reduce((a, b) => a + b, 0) * 0.002;
+    // ≈ 1.5; Lp is evaluated at each line's own 2θ, so not exactly
+    expect(area(two.profile!.intensity) / area(one.profile!.intensity)).toBeCloseTo(1.5, 2);
+    // the Kα2 maximum sits at 2 asin(λ2 / 2d(111))
+    const d111 = 3.615 / Math.sqrt(3);
+    const tt2 = (360 / Math.PI) * Math.asin(1.544414 / (2 * d111));
+    const diff = two.profile!.intensity.map((v, i) => v - one.profile!.intensity[i]);
+    let best = 0;
+    for (let i = 1; i < diff.length; i++) if (diff[i] > diff[best]) best = i;
+    expect(Math.abs(two.profile!.twoTheta[best] - tt2)).toBeLessThan(0.003);
+  });
+
   it('profile: unit-area pseudo-Voigt; Caglioti width; peak areas carry the peak intensities', () => {
     let area = 0;
     for (let x = -50; x <= 50; x += 0.0005) area += pseudoVoigt(x, 0.1, 0.4) * 0.0005;
