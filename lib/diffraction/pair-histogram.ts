@@ -18,7 +18,10 @@ export function pairBlock(a: number, b: number, spec: PairHistogramSpec): number
   return (a <= b ? a * spec.nGroups + b : b * spec.nGroups + a) * spec.nBins;
 }
 
-/** Largest pair distance (bounding-box diagonal) — an upper bound that needs no pair loop. */
+/**
+ * An upper bound on the largest pair distance without a pair loop: the smaller of the bounding-box
+ * diagonal and twice the largest distance from the box centre (tight for balls).
+ */
 export function boundingDiameter(positions: Float64Array): number {
   const n = positions.length / 3;
   if (n === 0) return 0;
@@ -31,7 +34,15 @@ export function boundingDiameter(positions: Float64Array): number {
       if (v > hi[c]) hi[c] = v;
     }
   }
-  return Math.hypot(hi[0] - lo[0], hi[1] - lo[1], hi[2] - lo[2]);
+  const c = [0, 1, 2].map((k) => (lo[k] + hi[k]) / 2);
+  let r2 = 0;
+  for (let i = 0; i < n; i++) {
+    const dx = positions[3 * i] - c[0];
+    const dy = positions[3 * i + 1] - c[1];
+    const dz = positions[3 * i + 2] - c[2];
+    r2 = Math.max(r2, dx * dx + dy * dy + dz * dz);
+  }
+  return Math.min(Math.hypot(hi[0] - lo[0], hi[1] - lo[1], hi[2] - lo[2]), 2 * Math.sqrt(r2));
 }
 
 export function histogramSpec(positions: Float64Array, nGroups: number, binWidth: number): PairHistogramSpec {
@@ -122,6 +133,12 @@ function singleGroupPairs(
     ys[i] = positions[3 * i + 1];
     zs[i] = positions[3 * i + 2];
   }
+  let unit = true;
+  for (let i = 0; i < n && unit; i++) unit = weight[i] === 1;
+  if (unit) {
+    unitPairs(xs, ys, zs, inv, nb, hist, i0, i1);
+    return;
+  }
   const lanes = new Float64Array(4 * nb);
   for (let i = i0; i < i1; i++) {
     const x = xs[i];
@@ -159,4 +176,56 @@ function singleGroupPairs(
     }
   }
   for (let b = 0; b < nb; b++) hist[b] += lanes[4 * b] + lanes[4 * b + 1] + lanes[4 * b + 2] + lanes[4 * b + 3];
+}
+
+/** All weights 1: count pairs in Uint32 lanes (half the cache footprint of doubles). */
+function unitPairs(xs: Float64Array, ys: Float64Array, zs: Float64Array, inv: number, nb: number, hist: Float64Array, i0: number, i1: number): void {
+  const n = xs.length;
+  const lanes = new Uint32Array(4 * nb);
+  // A Uint32 lane could overflow after 2³² pairs in one bin; flush every 2²⁸ pairs to be safe.
+  let sinceFlush = 0;
+  const flush = () => {
+    for (let b = 0; b < nb; b++) {
+      hist[b] += lanes[4 * b] + lanes[4 * b + 1] + lanes[4 * b + 2] + lanes[4 * b + 3];
+    }
+    lanes.fill(0);
+    sinceFlush = 0;
+  };
+  for (let i = i0; i < i1; i++) {
+    const x = xs[i];
+    const y = ys[i];
+    const z = zs[i];
+    let j = i + 1;
+    for (; j + 3 < n; j += 4) {
+      let dx = xs[j] - x;
+      let dy = ys[j] - y;
+      let dz = zs[j] - z;
+      const b0 = (Math.sqrt(dx * dx + dy * dy + dz * dz) * inv) | 0;
+      dx = xs[j + 1] - x;
+      dy = ys[j + 1] - y;
+      dz = zs[j + 1] - z;
+      const b1 = (Math.sqrt(dx * dx + dy * dy + dz * dz) * inv) | 0;
+      dx = xs[j + 2] - x;
+      dy = ys[j + 2] - y;
+      dz = zs[j + 2] - z;
+      const b2 = (Math.sqrt(dx * dx + dy * dy + dz * dz) * inv) | 0;
+      dx = xs[j + 3] - x;
+      dy = ys[j + 3] - y;
+      dz = zs[j + 3] - z;
+      const b3 = (Math.sqrt(dx * dx + dy * dy + dz * dz) * inv) | 0;
+      lanes[b0 << 2]++;
+      lanes[(b1 << 2) | 1]++;
+      lanes[(b2 << 2) | 2]++;
+      lanes[(b3 << 2) | 3]++;
+    }
+    for (; j < n; j++) {
+      const dx = xs[j] - x;
+      const dy = ys[j] - y;
+      const dz = zs[j] - z;
+      lanes[((Math.sqrt(dx * dx + dy * dy + dz * dz) * inv) | 0) << 2]++;
+    }
+    sinceFlush += n - 1 - i;
+    if (sinceFlush > 1 << 28) flush();
+  }
+  flush();
 }
