@@ -90,6 +90,24 @@ describe('Debye scattering equation', () => {
     });
   });
 
+  it('single species with partial occupancies (weighted lanes) matches the exact sum', () => {
+    let seed = 11;
+    const rnd = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
+    const pos: number[] = [];
+    for (let i = 0; i < 150; i++) pos.push(rnd() * 12, rnd() * 12, rnd() * 12);
+    const s = mk(pos, pos.filter((_, i) => i % 3 === 0).map(() => 26));
+    s.occupancy = Float64Array.from({ length: 150 }, (_, i) => (i % 4 === 0 ? 0.5 : 1));
+    const q = Float64Array.from({ length: 60 }, (_, k) => 0.1 * k);
+    const exact = debyeExact(s, q);
+    const binned = debyeFromHistogram(pairHistogram(s, 0.0002), q);
+    let max = 0;
+    for (const v of exact) max = Math.max(max, Math.abs(v));
+    for (let k = 0; k < q.length; k++) expect(Math.abs(binned[k] - exact[k]) / max).toBeLessThan(1e-3);
+    // forward scattering (Σ w f(0))² with 38 half-occupied Fe sites
+    const f0 = xrayFormFactor(26, 0);
+    expect(exact[0] / ((112 + 0.5 * 38) * f0) ** 2).toBeCloseTo(1, 9);
+  });
+
   it('balanced row ranges cover all pairs with about equal counts', () => {
     const n = 1001;
     const parts = balancedRowRanges(n, 3);
