@@ -5,7 +5,7 @@ const config = [
   ...next,
   ...nextTs,
   {
-    ignores: ['node_modules/**', '.next/**', '.next-test/**', '.data/**', 'tests/e2e/artifacts/**', 'next-env.d.ts'],
+    ignores: ['node_modules/**', '.next/**', '.next-*/**', '.data/**', 'tests/e2e/artifacts/**', 'next-env.d.ts'],
   },
   {
     rules: {
