@@ -16,10 +16,12 @@
  *    (k = 2) and their negatives (k = 4, 3) — the slices of the projected 5-cube (de Bruijn 1981). The 5D
  *    basis is orthogonal with |B_j|² = 5a²/2, so Q∥ = (4π/5a) Σ h_j e_j/a and the level phase is 2π k Σh_j/5.
  *    h and h + (1,1,1,1,1) are the same peak: indices are reported with h_5 = 0 (four integers).
- *  - icosahedral: the primitive 6D lattice of lib/tiling/hyperlattice.ts, window the triacontahedron
- *    Σ[−½,½]e_i⊥, Q = Σ h_i E*_i (six integers), with Cahn–Shechtman–Gratias indices and N, M (indexing.ts).
+ *  - icosahedral: the 6D lattice of lib/tiling/hyperlattice.ts (P, F or I), window the triacontahedron
+ *    Σ[−½,½]e_i⊥ on every node, Q = Σ h_i E*_i with h in the dual lattice (P: Z⁶; F: Z⁶ ∪ Z⁶ + ½(1,…,1);
+ *    I: Σh even — hyperlattice.ts item 4), with Cahn–Shechtman–Gratias indices and N, M (indexing.ts).
+ *    One window per node means the amplitude is the window transform for every allowed h.
  */
-import { icosahedralBasis, reciprocalBasis, TAU } from '../tiling/hyperlattice';
+import { icosahedralBasis, inReciprocalLattice, reciprocalBasis, TAU, type HyperlatticeType } from '../tiling/hyperlattice';
 import type { Radiation } from './form-factors';
 import { scatteringFactor } from './form-factors';
 import { intervalTransform, polygonTransform, symmetricBodyTransform, zonotopeBody } from './window-transform';
@@ -37,6 +39,8 @@ export interface HyperOptions {
   biso?: number;
   /** Keep peaks with |F/N|² ≥ threshold · g(0)² (default 1e-4). */
   threshold?: number;
+  /** Icosahedral hyperlattice type (default P); the window is the triacontahedron for each. */
+  lattice?: HyperlatticeType;
 }
 
 export interface HyperPeak {
@@ -207,19 +211,25 @@ export function penrosePeaks(o: HyperOptions): HyperPeak[] {
 
 export function icosahedralPeaks(o: HyperOptions): HyperPeak[] {
   check(o);
+  const lattice = o.lattice ?? 'P';
+  if (lattice !== 'P' && lattice !== 'F' && lattice !== 'I') throw new Error(`lattice: must be P, F or I, got "${String(lattice)}"`);
   const rb = reciprocalBasis(o.aR);
   const body = zonotopeBody(icosahedralBasis(o.aR).perp);
   const unit = Math.PI / o.aR; // |e*_i∥| = |e*_i⊥|
   const qperpMax = o.qperpMax ?? 12 / o.aR;
-  const r2 = (o.qmax ** 2 + qperpMax ** 2) / (2 * unit * unit);
-  const hMax = Math.floor(Math.sqrt(r2) + 1e-9);
+  // F has half-integer h: walk g = 2h ∈ Z⁶ and keep the allowed ones.
+  const twice = lattice === 'F';
+  const r2 = ((o.qmax ** 2 + qperpMax ** 2) / (2 * unit * unit)) * (twice ? 4 : 1);
   const peaks: HyperPeak[] = [];
   const g0 = factor(o, 0);
-  const h = new Int32Array(6);
+  const g = new Int32Array(6);
+  const h = new Float64Array(6);
   const qp = new Float64Array(3);
   const qq = new Float64Array(3);
   const rec = (i: number, left: number) => {
     if (i === 6) {
+      for (let j = 0; j < 6; j++) h[j] = twice ? g[j] / 2 : g[j];
+      if (lattice !== 'P' && !inReciprocalLattice(h, lattice)) return;
       qp.fill(0);
       qq.fill(0);
       for (let j = 0; j < 6; j++) {
@@ -249,12 +259,12 @@ export function icosahedralPeaks(o: HyperOptions): HyperPeak[] {
     }
     const m = Math.floor(Math.sqrt(left) + 1e-9);
     for (let v = -m; v <= m; v++) {
-      h[i] = v;
+      g[i] = v;
       rec(i + 1, left - v * v);
     }
-    h[i] = 0;
+    g[i] = 0;
   };
-  rec(0, Math.min(r2, hMax * hMax * 6));
+  rec(0, r2);
   return finish(peaks, o, g0);
 }
 

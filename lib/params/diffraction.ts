@@ -62,6 +62,8 @@ export const hyperspaceParamsSchema = z.object({
   species: z.number().int().min(0).max(98).default(0),
   biso: z.number().min(0).default(0),
   threshold: z.number().min(0).max(1).default(1e-4),
+  /** Icosahedral hyperlattice type. */
+  lattice: z.enum(['P', 'F', 'I'], { message: 'lattice must be P, F or I' }).default('P'),
 });
 export type HyperspaceParams = z.infer<typeof hyperspaceParamsSchema>;
 

@@ -86,6 +86,7 @@ interface HyperFlags {
   species?: string;
   biso?: string;
   threshold?: string;
+  lattice?: string;
 }
 
 export function registerHyperspaceCommand(d: Command): void {
@@ -100,6 +101,7 @@ export function registerHyperspaceCommand(d: Command): void {
     .option('--species <Z>', 'atomic number on every vertex (0 = unit form factor)')
     .option('--biso <B>', 'isotropic B in Å²')
     .option('--threshold <f>', 'drop peaks with |F/N|² below this × f(0)²')
+    .option('--lattice <t>', 'icosahedral hyperlattice: P, F or I', 'P')
     .action((o: HyperFlags) => {
       oneOf('--format', o.format, ['json'] as const);
       const p = parse(hyperspaceParamsSchema, {
@@ -111,12 +113,14 @@ export function registerHyperspaceCommand(d: Command): void {
         species: num('--species', o.species),
         biso: num('--biso', o.biso),
         threshold: num('--threshold', o.threshold),
+        lattice: o.lattice,
       });
       const peaks = compute(() => hyperspacePeaks(p));
       const out = {
         engine: ENGINE_VERSION,
         units: { ...DIFFRACTION_UNITS, intensity: '|F(Q∥)/N|² of the ideal structure (relative: strongest Q ≠ 0 = 100)' },
         family: p.family,
+        ...(p.family === 'icosahedral' ? { lattice: p.lattice } : {}),
         aR: p.aR,
         indexing:
           p.family === 'icosahedral'

@@ -3,6 +3,7 @@ import { fibonacciPeaks, icosahedralPeaks, penrosePeaks, penroseWindows } from '
 import { intensityAt } from '../../lib/diffraction/intensity-at';
 import { csgFromHyper, hyperFromCsg, qSquaredFromNM } from '../../lib/diffraction/indexing';
 import { fibonacciChain } from '../../lib/tiling/fibonacci';
+import { icosahedralPatch } from '../../lib/tiling/icosahedral';
 import { TAU } from '../../lib/tiling/hyperlattice';
 import type { Structure } from '../../lib/structure/types';
 
@@ -126,5 +127,22 @@ describe('hyperspace diffraction', () => {
       n++;
     }
     expect(n).toBeGreaterThan(20);
+  });
+
+  it('F and I hyperlattices: strongest ideal peaks (F has half-integer indices) match direct sums on patches from lib/tiling/icosahedral.ts within 15 %', () => {
+    const aR = 4.6;
+    for (const lattice of ['F', 'I'] as const) {
+      const patch = icosahedralPatch({ aR, radius: lattice === 'F' ? 40 : 28, lattice });
+      const n = patch.species.length;
+      expect(n).toBeGreaterThan(800);
+      const peaks = icosahedralPeaks({ family: 'icosahedral', aR, qmax: 3.0, lattice, threshold: 1e-2 }).filter((p) => p.qParNorm > 0.5);
+      if (lattice === 'F') expect(peaks.some((p) => !Number.isInteger(p.indices[0]))).toBe(true);
+      if (lattice === 'I') for (const p of peaks) expect(Math.abs(p.indices.reduce((a, b) => a + b) % 2)).toBe(0);
+      const top = peaks.slice().sort((a, b) => b.intensity - a.intensity).slice(0, 8);
+      const q: number[] = [];
+      for (const p of top) q.push(...p.qPar);
+      const direct = intensityAt(patch, Float64Array.from(q));
+      top.forEach((p, i) => expect(Math.abs(direct[i] / n - p.intensity) / p.intensity, `${lattice} ${p.indices}`).toBeLessThan(0.15));
+    }
   });
 });
