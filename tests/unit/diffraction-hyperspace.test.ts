@@ -4,6 +4,7 @@ import { intensityAt } from '../../lib/diffraction/intensity-at';
 import { csgFromHyper, hyperFromCsg, qSquaredFromNM } from '../../lib/diffraction/indexing';
 import { fibonacciChain } from '../../lib/tiling/fibonacci';
 import { icosahedralPatch } from '../../lib/tiling/icosahedral';
+import { penroseTiling } from '../../lib/tiling/penrose';
 import { TAU } from '../../lib/tiling/hyperlattice';
 import type { Structure } from '../../lib/structure/types';
 
@@ -144,5 +145,18 @@ describe('hyperspace diffraction', () => {
       const direct = intensityAt(patch, Float64Array.from(q));
       top.forEach((p, i) => expect(Math.abs(direct[i] / n - p.intensity) / p.intensity, `${lattice} ${p.indices}`).toBeLessThan(0.15));
     }
+  });
+
+  it('Penrose tiling from lib/tiling/penrose.ts (generic γ, Σγ = 0): its strongest peaks match the ideal intensities within 5 %', () => {
+    const t = penroseTiling({ radius: 25, edge: 1, gamma: [0.11, -0.07, 0.23, -0.19, -0.08] });
+    const n = t.species.length;
+    const peaks = penrosePeaks({ family: 'penrose', aR: 1, qmax: 9, qperpMax: 6, threshold: 0.02 })
+      .filter((p) => p.qParNorm > 0)
+      .sort((a, b) => b.intensity - a.intensity)
+      .slice(0, 20);
+    const q: number[] = [];
+    for (const p of peaks) q.push(p.qPar[0], p.qPar[1], 0);
+    const direct = intensityAt(t, Float64Array.from(q));
+    peaks.forEach((p, i) => expect(Math.abs(direct[i] / n - p.intensity)).toBeLessThan(0.05 * p.intensity + 0.01));
   });
 });
