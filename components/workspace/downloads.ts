@@ -1,12 +1,10 @@
 /** Files from the current cut, written in the browser by lib/formats and handed to file-saver. */
 import { saveAs } from 'file-saver';
 import type { Structure } from '@/lib/structure/types';
-import { writeXyz } from '@/lib/formats/xyz';
-import { writeExtxyz } from '@/lib/formats/extxyz';
-import { writeCif } from '@/lib/formats/cif';
-import { writeJson } from '@/lib/formats/json';
+import { writeStructure } from '@/lib/formats/write';
+import type { StructureFormat } from '@/lib/formats/read';
 
-export type StructureFormat = 'xyz' | 'extxyz' | 'cif' | 'json';
+export type { StructureFormat };
 
 export const FORMAT_NAMES: Record<StructureFormat, string> = {
   xyz: 'XYZ',
@@ -21,16 +19,7 @@ export function formatUnavailable(s: Structure, f: StructureFormat): string | nu
 }
 
 export function structureText(s: Structure, f: StructureFormat): string {
-  switch (f) {
-    case 'xyz':
-      return writeXyz(s);
-    case 'extxyz':
-      return writeExtxyz(s);
-    case 'cif':
-      return writeCif(s);
-    case 'json':
-      return writeJson(s);
-  }
+  return writeStructure(s, f);
 }
 
 export function slug(text: string): string {

@@ -7,3 +7,4 @@ export * from './cif-syntax';
 export * from './symop';
 export * from './cif';
 export * from './read';
+export * from './write';

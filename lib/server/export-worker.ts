@@ -6,51 +6,14 @@
  * `next start` and the tests. Exit code 0 = bytes on stdout; 2 = bad params (message on stderr).
  */
 import type { Structure } from '../structure/types';
-import { writeCif, writeExtxyz, writeJson, writeXyz } from '../formats';
-import { ENGINE_VERSION } from '../version';
-
-type Generate = (params: unknown) => Structure;
-
-async function loadGenerate(): Promise<Generate> {
-  const override = process.env.TAUFORGE_EXPORT_GENERATOR; // tests: a module exporting generate()
-  const candidates = override ? [override] : ['../generate'];
-  for (const spec of candidates) {
-    try {
-      const m = (await import(spec)) as { generate?: Generate };
-      if (typeof m.generate === 'function') return m.generate;
-    } catch (e) {
-      if (override) throw e;
-    }
-  }
-  // Until lib/generate.ts lands: the Fibonacci chain engine directly.
-  const { fibonacciChain } = await import('../tiling/fibonacci');
-  return (params) => {
-    const { family, ...rest } = params as { family: string };
-    if (family !== 'fibonacci') throw new Error(`the ${family} engine is not available for exports yet`);
-    return fibonacciChain(rest as Parameters<typeof fibonacciChain>[0]);
-  };
-}
-
-function write(s: Structure, format: string): string {
-  switch (format) {
-    case 'xyz':
-      return writeXyz(s);
-    case 'extxyz':
-      return writeExtxyz(s);
-    case 'cif':
-      return writeCif(s);
-    case 'json':
-      return writeJson(s);
-    default:
-      throw new Error(`unknown format ${format}`);
-  }
-}
+import { writeStructure } from '../formats/write';
+import type { StructureFormat } from '../formats/read';
+import { generate } from '../generate';
 
 async function main() {
   const chunks: Buffer[] = [];
   for await (const c of process.stdin) chunks.push(c as Buffer);
   const job = JSON.parse(Buffer.concat(chunks).toString('utf8')) as { params: unknown; format: string };
-  const generate = await loadGenerate();
   let s: Structure;
   try {
     s = generate(job.params);
@@ -58,8 +21,8 @@ async function main() {
     process.stderr.write(e instanceof Error ? e.message : String(e));
     process.exit(2);
   }
-  s.provenance = { params: job.params, engine: ENGINE_VERSION };
-  const text = write(s, job.format);
+  // generate() records the validated params and the engine version as the file's provenance.
+  const text = writeStructure(s, job.format as StructureFormat);
   process.stdout.write(text, () => process.exit(0));
 }
 
