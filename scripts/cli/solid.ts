@@ -1,43 +1,12 @@
 import type { Command } from 'commander';
-import type { ZodType } from 'zod';
 import { readFileSync } from 'node:fs';
-import { CliError, zodMessage } from './errors';
+import { CliError } from './errors';
+import { emit, format as formatOf, num, parse, run, vec } from './args';
 import { icosahedralApproximantSchema, icosahedralPatchSchema } from '../../lib/params/icosahedral';
 import { generateIcosahedralApproximant, generateIcosahedralPatch } from '../../lib/tiling/decorate';
 import { decagonalModel } from '../../lib/tiling/decagonal';
-import { writeXyz } from '../../lib/formats/xyz';
-import { writeExtxyz } from '../../lib/formats/extxyz';
-import { writeCif } from '../../lib/formats/cif';
-import { writeJson } from '../../lib/formats/json';
-import type { Structure } from '../../lib/structure/types';
+import { STRUCTURE_FORMATS } from '../../lib/formats/write';
 import { atomicNumber } from '../../lib/structure/elements';
-
-const FORMATS = ['xyz', 'extxyz', 'cif', 'json'];
-
-function parse<T>(schema: ZodType<T>, input: unknown): T {
-  const r = schema.safeParse(input);
-  if (!r.success) throw new CliError(zodMessage(r.error));
-  return r.data;
-}
-
-function num(flag: string, v: string | undefined): number | undefined {
-  if (v === undefined) return undefined;
-  const x = Number(v);
-  if (v.trim() === '' || !Number.isFinite(x)) throw new CliError(`${flag}: "${v}" is not a number`);
-  return x;
-}
-
-function vec(flag: string, v: string | undefined): number[] | undefined {
-  if (v === undefined) return undefined;
-  const parts = v.split(',');
-  if (parts.length !== 3) throw new CliError(`${flag}: expected three numbers x,y,z, got "${v}"`);
-  return parts.map((p) => num(flag, p)!);
-}
-
-function format(v: string): string {
-  if (!FORMATS.includes(v)) throw new CliError(`--format: must be one of ${FORMATS.join(', ')}, got "${v}"`);
-  return v;
-}
 
 function decorationFile(path: string | undefined): unknown {
   if (path === undefined) return undefined;
@@ -52,21 +21,6 @@ function decorationFile(path: string | undefined): unknown {
   } catch (err) {
     throw new CliError(`--decoration: "${path}" is not valid JSON (${err instanceof Error ? err.message : String(err)})`);
   }
-}
-
-/** Generators throw RangeError naming the field (e.g. the point cap); that is a user error here. */
-function run(make: () => Structure): Structure {
-  try {
-    return make();
-  } catch (err) {
-    if (err instanceof RangeError) throw new CliError(err.message);
-    throw err;
-  }
-}
-
-function write(s: Structure, fmt: string): void {
-  const text = fmt === 'json' ? writeJson(s) : fmt === 'extxyz' ? writeExtxyz(s) : fmt === 'cif' ? writeCif(s) : writeXyz(s);
-  process.stdout.write(text.endsWith('\n') ? text : text + '\n');
 }
 
 type Opts = Record<string, string | undefined>;
@@ -85,9 +39,9 @@ export function registerSolidCommands(program: Command): void {
     .option('--species <El>', 'element for the vertices (default X)')
     .option('--decoration <file>', 'JSON file with site classes {"classes": […]}')
     .option('--max-points <n>', 'refuse to build more points than this (default 2000000)')
-    .option('--format <fmt>', FORMATS.join(', '), 'xyz')
+    .option('--format <fmt>', STRUCTURE_FORMATS.join(', '), 'xyz')
     .action((o: Opts) => {
-      const fmt = format(String(o.format));
+      const fmt = formatOf(String(o.format), STRUCTURE_FORMATS);
       if (o.family !== 'icosahedral') throw new CliError(`--family: patch supports icosahedral, got "${o.family}"`);
       const p = parse(icosahedralPatchSchema, {
         family: 'icosahedral',
@@ -100,7 +54,7 @@ export function registerSolidCommands(program: Command): void {
         decoration: decorationFile(o.decoration),
         maxPoints: num('--max-points', o.maxPoints),
       });
-      write(run(() => generateIcosahedralPatch(p)), fmt);
+      emit(run(() => generateIcosahedralPatch(p)), fmt);
     });
 
   program
@@ -114,9 +68,9 @@ export function registerSolidCommands(program: Command): void {
     .option('--species <El>', 'element for the vertices (default X)')
     .option('--decoration <file>', 'JSON file with site classes {"classes": […]}')
     .option('--max-points <n>', 'refuse to build more points than this (default 2000000)')
-    .option('--format <fmt>', FORMATS.join(', '), 'xyz')
+    .option('--format <fmt>', STRUCTURE_FORMATS.join(', '), 'xyz')
     .action((o: Opts) => {
-      const fmt = format(String(o.format));
+      const fmt = formatOf(String(o.format), STRUCTURE_FORMATS);
       if (o.family === 'decagonal') {
         // Decagonal: Penrose layers stacked along c (lib/tiling/decagonal.ts); --aR is the rhombus edge.
         if (o.lattice !== 'P' || o.offset !== undefined || o.decoration !== undefined)
@@ -130,7 +84,7 @@ export function registerSolidCommands(program: Command): void {
           const sp = parse(icosahedralPatchSchema.shape.species, o.species);
           if (sp) s.species.fill(atomicNumber(sp));
         }
-        write(s, fmt);
+        emit(s, fmt);
         return;
       }
       if (o.family !== 'icosahedral') throw new CliError(`--family: must be icosahedral or decagonal, got "${o.family}"`);
@@ -144,6 +98,6 @@ export function registerSolidCommands(program: Command): void {
         decoration: decorationFile(o.decoration),
         maxPoints: num('--max-points', o.maxPoints),
       });
-      write(run(() => generateIcosahedralApproximant(p)), fmt);
+      emit(run(() => generateIcosahedralApproximant(p)), fmt);
     });
 }

@@ -1,48 +1,12 @@
 import type { Command } from 'commander';
-import type { ZodType } from 'zod';
-import { CliError, zodMessage } from './errors';
+import { CliError } from './errors';
+import { format, num, parse, run, emit } from './args';
 import { convergents, GOLDEN_MEAN, SILVER_MEAN } from '../../lib/tiling/continued-fraction';
 import { fibonacciChain } from '../../lib/tiling/fibonacci';
 import { penroseTiling } from '../../lib/tiling/penrose';
 import { octagonalTiling } from '../../lib/tiling/octagonal';
 import { chainParamsSchema, convergentsParamsSchema } from '../../lib/params/chain';
 import { planarParamsSchema } from '../../lib/params/planar';
-import { writeXyz } from '../../lib/formats/xyz';
-import { writeJson } from '../../lib/formats/json';
-import type { Structure } from '../../lib/structure/types';
-
-function parse<T>(schema: ZodType<T>, input: unknown): T {
-  const r = schema.safeParse(input);
-  if (!r.success) throw new CliError(zodMessage(r.error));
-  return r.data;
-}
-
-/** A flag that must be a number; commander hands us strings. */
-function num(flag: string, v: string | undefined): number | undefined {
-  if (v === undefined) return undefined;
-  const x = Number(v);
-  if (v.trim() === '' || !Number.isFinite(x)) throw new CliError(`${flag}: "${v}" is not a number`);
-  return x;
-}
-
-function format(v: string, allowed: string[]): string {
-  if (!allowed.includes(v)) throw new CliError(`--format: must be one of ${allowed.join(', ')}, got "${v}"`);
-  return v;
-}
-
-/** Generators throw RangeError naming the field for bad input; that is a user error here. */
-function run(make: () => Structure): Structure {
-  try {
-    return make();
-  } catch (err) {
-    if (err instanceof RangeError) throw new CliError(err.message);
-    throw err;
-  }
-}
-
-function writeStructure(s: Structure, fmt: string): void {
-  process.stdout.write(fmt === 'json' ? writeJson(s) : writeXyz(s));
-}
 
 /** convergents, chain, tiling — the 1D/2D tiling engine. */
 export function registerTilingCommands(program: Command): void {
@@ -94,7 +58,7 @@ export function registerTilingCommands(program: Command): void {
     .option('--max-points <n>', 'refuse to build more points than this')
     .option('--format <fmt>', 'xyz or json', 'xyz')
     .action((o: Record<string, string | boolean | undefined>) => {
-      const fmt = format(String(o.format), ['xyz', 'json']);
+      const fmt = format(String(o.format), ['xyz', 'json'] as const);
       const p = parse(chainParamsSchema, {
         order: num('--order', o.order as string),
         approximant: o.approximant === true,
@@ -103,7 +67,7 @@ export function registerTilingCommands(program: Command): void {
         ratio: num('--ratio', o.ratio as string | undefined),
         maxPoints: num('--max-points', o.maxPoints as string | undefined),
       });
-      writeStructure(run(() => fibonacciChain(p)), fmt);
+      emit(run(() => fibonacciChain(p)), fmt);
     });
 
   program
@@ -116,7 +80,7 @@ export function registerTilingCommands(program: Command): void {
     .option('--max-points <n>', 'refuse to build more points than this')
     .option('--format <fmt>', 'xyz or json', 'xyz')
     .action((o: Record<string, string | undefined>) => {
-      const fmt = format(String(o.format), ['xyz', 'json']);
+      const fmt = format(String(o.format), ['xyz', 'json'] as const);
       if (o.family !== 'penrose' && o.family !== 'octagonal') {
         throw new CliError(`--family: must be penrose or octagonal, got "${o.family}"`);
       }
@@ -137,6 +101,6 @@ export function registerTilingCommands(program: Command): void {
         maxPoints: num('--max-points', o.maxPoints),
       });
       const { family, ...rest } = p;
-      writeStructure(run(() => (family === 'penrose' ? penroseTiling(rest) : octagonalTiling(rest))), fmt);
+      emit(run(() => (family === 'penrose' ? penroseTiling(rest) : octagonalTiling(rest))), fmt);
     });
 }
