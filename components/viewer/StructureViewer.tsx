@@ -91,6 +91,7 @@ export function StructureViewer({
     renderFrames: (k) => handleRef.current?.renderFrames(k) ?? { msPerFrame: NaN, triangles: 0, calls: 0 },
     atomScreen: (i) => handleRef.current?.atomScreen(i) ?? null,
     frames: () => handleRef.current?.frames() ?? 0,
+    store,
   }));
 
   // Extent and batches do not depend on the radius scale except for the margin: compute at scale 1.

@@ -24,6 +24,8 @@ export interface ViewerHandle {
   atomScreen(i: number): { x: number; y: number } | null;
   /** Frames drawn so far. */
   frames(): number;
+  /** The view store this viewer follows (tests read and set it). */
+  store: ViewStore;
 }
 
 export interface RigProps {
@@ -184,6 +186,7 @@ export function Rig({ store, centre, radius, positions, radii, cell, slab, ball,
         return { x: r.left + ((p[0] + 1) / 2) * r.width, y: r.top + ((1 - p[1]) / 2) * r.height };
       },
       frames: () => frameCountRef.current,
+      store,
     };
     handleRef.current = h;
     const w = window as unknown as { __tauforgeViewer?: ViewerHandle };
@@ -192,7 +195,7 @@ export function Rig({ store, centre, radius, positions, radii, cell, slab, ball,
       if (handleRef.current === h) handleRef.current = null;
       if (w.__tauforgeViewer === h) delete w.__tauforgeViewer;
     };
-  }, [gl, scene, view, positions, handleRef, exposeTestHook]);
+  }, [gl, scene, view, positions, handleRef, exposeTestHook, store]);
 
   return null;
 }

@@ -6,12 +6,13 @@
  * forced to finish with a 1-pixel gl.readPixels (window.__tauforgeViewer.renderFrames).
  *
  * Server: TAUFORGE_BASE_URL when set (any running build or dev server); otherwise a production build in
- * .next-bench (built once, reused while .next-bench/BUILD_ID exists; TAUFORGE_BENCH_REBUILD=1 forces it)
- * served by `next start` on a free port and stopped at the end. `next build` rewrites tsconfig.json's
+ * .next-bench served by `next start` on a free port and stopped at the end. The build is removed afterwards
+ * (eslint and tsc would otherwise read it) unless TAUFORGE_BENCH_KEEP=1, which keeps it for the next run
+ * (reused while .next-bench/BUILD_ID exists; TAUFORGE_BENCH_REBUILD=1 forces a fresh one). `next build` rewrites tsconfig.json's
  * include list for its folder; the bench puts the file back as it found it.
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
-import { existsSync, readFileSync, writeFileSync } from 'node:fs';
+import { existsSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -70,7 +71,7 @@ async function server(): Promise<{ base: string; stop: () => Promise<void> }> {
     stdio: 'ignore',
   });
   const base = `http://127.0.0.1:${port}`;
-  const stop = () =>
+  const halt = () =>
     new Promise<void>((resolve) => {
       if (child.exitCode !== null) return resolve();
       const t = setTimeout(() => child.kill('SIGKILL'), 10_000);
@@ -80,6 +81,10 @@ async function server(): Promise<{ base: string; stop: () => Promise<void> }> {
       });
       child.kill('SIGTERM');
     });
+  const stop = async () => {
+    await halt();
+    if (process.env.TAUFORGE_BENCH_KEEP !== '1') rmSync(path.join(root, DIST), { recursive: true, force: true });
+  };
   try {
     await waitForHttp(`${base}/lab/viewer?n=1`, child);
   } catch (e) {
