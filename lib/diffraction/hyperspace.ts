@@ -72,6 +72,14 @@ function check(o: HyperOptions): void {
   if (o.qperpMax !== undefined && !(o.qperpMax > 0)) throw new Error(`qperpMax: must be positive (Å⁻¹), got ${o.qperpMax}`);
 }
 
+/** Refuse enumerations that would take minutes; names the fields to change. */
+const MAX_CANDIDATES = 2e7;
+function guard(count: number): void {
+  if (count > MAX_CANDIDATES) {
+    throw new Error(`qmax: about ${count.toExponential(1)} module points to visit; lower qmax or qperpMax (limit ${MAX_CANDIDATES.toExponential(0)})`);
+  }
+}
+
 function finish(peaks: HyperPeak[], o: HyperOptions, g0: number): HyperPeak[] {
   const thr = (o.threshold ?? 1e-4) * g0 * g0;
   const kept = peaks.filter((p) => p.intensity >= thr);
@@ -156,6 +164,7 @@ export function penrosePeaks(o: HyperOptions): HyperPeak[] {
   const py = [0, 1, 2, 3, 4].map((j) => Math.sin((4 * Math.PI * j) / 5));
   // |Q∥|² + |Q⊥|² = f²·(5/2)·(|h|² − (Σh)²/5) ≥ f²|h|²/2 with h_5 = 0 (Cauchy–Schwarz on four entries).
   const r2 = (2 * (o.qmax ** 2 + qperpMax ** 2)) / (f * f);
+  guard(((Math.PI * Math.PI) / 2) * r2 * r2); // volume of the 4-ball of radius √r2
   const peaks: HyperPeak[] = [];
   const g0 = factor(o, 0);
   const h = [0, 0, 0, 0, 0];
@@ -220,6 +229,7 @@ export function icosahedralPeaks(o: HyperOptions): HyperPeak[] {
   // F has half-integer h: walk g = 2h ∈ Z⁶ and keep the allowed ones.
   const twice = lattice === 'F';
   const r2 = ((o.qmax ** 2 + qperpMax ** 2) / (2 * unit * unit)) * (twice ? 4 : 1);
+  guard(((Math.PI ** 3) / 6) * r2 ** 3); // volume of the 6-ball of radius √r2
   const peaks: HyperPeak[] = [];
   const g0 = factor(o, 0);
   const g = new Int32Array(6);

@@ -159,4 +159,9 @@ describe('hyperspace diffraction', () => {
     const direct = intensityAt(t, Float64Array.from(q));
     peaks.forEach((p, i) => expect(Math.abs(direct[i] / n - p.intensity)).toBeLessThan(0.05 * p.intensity + 0.01));
   });
+
+  it('refuses enumerations that are far too large, naming qmax', () => {
+    expect(() => icosahedralPeaks({ family: 'icosahedral', aR: 4.6, qmax: 40 })).toThrow(/qmax/);
+    expect(() => fibonacciPeaks({ family: 'fibonacci', aR: -1, qmax: 2 })).toThrow(/aR/);
+  });
 });
