@@ -3,6 +3,7 @@ import type { Structure } from '../../lib/structure/types';
 import { debyeExact, debyeFromHistogram, pairHistogram } from '../../lib/diffraction/debye';
 import { balancedRowRanges } from '../../lib/diffraction/pair-histogram';
 import { xrayFormFactor } from '../../lib/diffraction/form-factors';
+import { debyePowder } from '../../lib/diffraction/debye-powder';
 
 const mk = (pos: number[], z: number[]): Structure => ({
   positions: Float64Array.from(pos),
@@ -120,5 +121,27 @@ describe('Debye scattering equation', () => {
     });
     expect(counts.reduce((a, b) => a + b)).toBe((n * (n - 1)) / 2);
     for (const c of counts) expect(Math.abs(c - (n * (n - 1)) / 6)).toBeLessThan(n);
+  });
+
+  it('Debye powder of a 20 Å fcc Cu ball peaks at the Bragg angles of fcc Cu (111, 200, 220, 311 at Cu Kα1; finite-size shifts < 0.3°)', () => {
+    const pos: number[] = [];
+    const a = 3.615;
+    const R = 20;
+    const m = Math.ceil(R / a);
+    for (let i = -m; i <= m; i++)
+      for (let j = -m; j <= m; j++)
+        for (let k = -m; k <= m; k++)
+          for (const b of [[0, 0, 0], [0, 0.5, 0.5], [0.5, 0, 0.5], [0.5, 0.5, 0]]) {
+            const p = [(i + b[0]) * a, (j + b[1]) * a, (k + b[2]) * a];
+            if (Math.hypot(p[0], p[1], p[2]) <= R) pos.push(...p);
+          }
+    const s = mk(pos, pos.filter((_, i) => i % 3 === 0).map(() => 29));
+    const r = debyePowder(s, { wavelength: 1.540593, radiation: 'xray', twoThetaMin: 35, twoThetaMax: 95, step: 0.02 });
+    const strong = r.maxima.filter((p) => p.intensity > 10).map((p) => p.twoTheta);
+    for (const hkl of [[1, 1, 1], [2, 0, 0], [2, 2, 0], [3, 1, 1]]) {
+      const d = a / Math.hypot(hkl[0], hkl[1], hkl[2]);
+      const tt = (360 / Math.PI) * Math.asin(1.540593 / (2 * d));
+      expect(Math.min(...strong.map((x) => Math.abs(x - tt))), `${hkl}`).toBeLessThan(0.3);
+    }
   });
 });
