@@ -165,6 +165,7 @@ export function mapSpots(map: ZoneMap, qmax: number, threshold = 1e-3): ZoneSpot
       const dya = fy - 2 * v + gy !== 0 ? (0.5 * (fy - gy)) / (fy - 2 * v + gy) : 0;
       const qx = -qmax + (a + dxa) * step;
       const qy = -qmax + (b + dya) * step;
+      if (Math.hypot(qx, qy) > qmax) continue; // the square grid's corners reach √2·qmax
       spots.push({ qx, qy, qz: 0, q: Math.hypot(qx, qy), intensity: v, relative: 0 });
     }
   }

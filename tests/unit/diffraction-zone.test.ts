@@ -68,7 +68,9 @@ describe('zone axes', () => {
     }
     const direct = intensityAt(patch, Float64Array.from(q));
     pick.forEach(([a, b], i) => expect(Math.abs(map.intensity[b * grid + a] - direct[i]) / direct[i]).toBeLessThan(1e-9));
-    const spots = mapSpots(map, qmax, 0.05).filter((s) => s.q > 0.3);
+    const all = mapSpots(map, qmax, 0.05);
+    expect(Math.max(...all.map((s) => s.q))).toBeLessThanOrEqual(qmax);
+    const spots = all.filter((s) => s.q > 0.3);
     const ideal = icosahedralPeaks({ family: 'icosahedral', aR, qmax, threshold: 1e-3 });
     const u = map.frame.axis;
     const plane = ideal.filter((p) => Math.abs(p.qPar[0] * u[0] + p.qPar[1] * u[1] + p.qPar[2] * u[2]) < 1e-9);
