@@ -20,7 +20,7 @@ import type { Structure, Vec3 } from '../structure/types';
 import { TAU } from '../tiling/hyperlattice';
 import type { Radiation } from './form-factors';
 import { groupAtoms, groupFactor } from './scatterers';
-import { gridPartialSums } from './cartesian-sum';
+import { gridPartialSums, type PlaneGrid } from './cartesian-sum';
 import { enumerateHkl, structureFactorsHkl } from './structure-factor';
 import { gVector, reciprocalCell } from './lattice';
 
@@ -97,28 +97,42 @@ export interface ZoneMap {
   intensity: Float64Array;
 }
 
-/** |F(Q)|²/N on a square grid of the zone plane (averaged over layers when slab > 0). */
-export function zoneMap(s: Structure, o: ZoneOptions): ZoneMap {
+export interface ZoneLayers {
+  frame: { axis: Vec3; e1: Vec3; e2: Vec3 };
+  n: number;
+  step: number;
+  /** One plane grid per layer (offset t along the beam). */
+  layers: { t: number; grid: PlaneGrid }[];
+}
+
+/** The grids a zone map sums over: one plane through the origin, or 5 layers spanning ±slab. */
+export function zoneLayers(s: Structure, o: ZoneOptions): ZoneLayers {
   if (!(o.qmax > 0)) throw new Error(`qmax: must be positive (Å⁻¹), got ${o.qmax}`);
   const n = o.grid ?? 201;
   if (!Number.isInteger(n) || n < 3 || n > 2048) throw new Error(`grid: must be an integer 3..2048, got ${n}`);
   const frame = zoneFrame(o.axis, s);
   const { e1, e2, axis } = frame;
   const step = (2 * o.qmax) / (n - 1);
-  const { groups, groupOf, weight } = groupAtoms(s);
+  const slab = o.slab ?? 0;
+  const count = slab > 0 ? 5 : 1;
+  const layers: ZoneLayers['layers'] = [];
+  for (let layer = 0; layer < count; layer++) {
+    const t = count === 1 ? 0 : -slab + (2 * slab * layer) / (count - 1);
+    const q0: Vec3 = [0, 1, 2].map((c) => -o.qmax * (e1[c] + e2[c]) + t * axis[c]) as Vec3;
+    layers.push({ t, grid: { q0, du: e1.map((x) => x * step) as Vec3, dv: e2.map((x) => x * step) as Vec3, na: n, nb: n } });
+  }
+  return { frame, n, step, layers };
+}
+
+/** Combine per-group grid sums of each layer into |F(Q)|²/N, averaged over layers. */
+export function zoneMapFromSums(s: Structure, o: ZoneOptions, z: ZoneLayers, sums: { re: Float64Array; im: Float64Array }[]): ZoneMap {
+  const { groups } = groupAtoms(s);
+  const { n, step } = z;
   const cells = n * n;
   const out = new Float64Array(cells);
-  const slab = o.slab ?? 0;
-  const layers = slab > 0 ? 5 : 1;
-  const re = new Float64Array(groups.length * cells);
-  const im = new Float64Array(groups.length * cells);
   const atoms = Math.max(1, s.species.length);
-  for (let layer = 0; layer < layers; layer++) {
-    const t = layers === 1 ? 0 : -slab + (2 * slab * layer) / (layers - 1);
-    re.fill(0);
-    im.fill(0);
-    const q0: Vec3 = [0, 1, 2].map((c) => -o.qmax * (e1[c] + e2[c]) + t * axis[c]) as Vec3;
-    gridPartialSums(s.positions, groupOf, weight, { q0, du: e1.map((x) => x * step) as Vec3, dv: e2.map((x) => x * step) as Vec3, na: n, nb: n }, re, im);
+  z.layers.forEach(({ t }, li) => {
+    const { re, im } = sums[li];
     for (let b = 0; b < n; b++) {
       for (let a = 0; a < n; a++) {
         const i = b * n + a;
@@ -132,11 +146,25 @@ export function zoneMap(s: Structure, o: ZoneOptions): ZoneMap {
           r += f * re[g * cells + i];
           c += f * im[g * cells + i];
         }
-        out[i] += (r * r + c * c) / atoms / layers;
+        out[i] += (r * r + c * c) / atoms / z.layers.length;
       }
     }
-  }
-  return { frame, n, step, intensity: out };
+  });
+  return { frame: z.frame, n, step, intensity: out };
+}
+
+/** |F(Q)|²/N on a square grid of the zone plane (averaged over layers when slab > 0). */
+export function zoneMap(s: Structure, o: ZoneOptions): ZoneMap {
+  const z = zoneLayers(s, o);
+  const { groups, groupOf, weight } = groupAtoms(s);
+  const cells = z.n * z.n;
+  const sums = z.layers.map(({ grid }) => {
+    const re = new Float64Array(groups.length * cells);
+    const im = new Float64Array(groups.length * cells);
+    gridPartialSums(s.positions, groupOf, weight, grid, re, im);
+    return { re, im };
+  });
+  return zoneMapFromSums(s, o, z, sums);
 }
 
 /** Local maxima (8 neighbours) of a zone map above threshold × the strongest off-centre maximum. */

@@ -117,4 +117,23 @@ describe('zone axes', () => {
       expect(byPos.get(`${Math.round(-p.qx * 1e5)},${Math.round(-p.qy * 1e5)}`)!).toBeCloseTo(p.intensity, 6);
     }
   });
+
+  it('worker-thread grid sums (lib/server/workers) give the same map as the in-process sum', async () => {
+    const { DiffractionPool } = await import('../../lib/server/workers/diffraction-pool');
+    const { zoneLayers, zoneMapFromSums } = await import('../../lib/diffraction/zone-axis');
+    const { groupAtoms } = await import('../../lib/diffraction/scatterers');
+    const o = { axis: '3' as const, qmax: 2.0, grid: 41, slab: 0.05 };
+    const ref = zoneMap(patch, o);
+    const z = zoneLayers(patch, o);
+    const { groups, groupOf, weight } = groupAtoms(patch);
+    const pool = new DiffractionPool(2);
+    try {
+      const sums = [];
+      for (const { grid } of z.layers) sums.push(await pool.gridPartialSums(patch.positions, groupOf, weight, grid, groups.length));
+      const par = zoneMapFromSums(patch, o, z, sums);
+      for (let i = 0; i < ref.intensity.length; i++) expect(Math.abs(par.intensity[i] - ref.intensity[i])).toBeLessThan(1e-9 * (ref.intensity[i] + 1));
+    } finally {
+      await pool.close();
+    }
+  });
 });

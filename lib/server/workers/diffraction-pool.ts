@@ -6,6 +6,7 @@
 import { Worker } from 'node:worker_threads';
 import { fileURLToPath } from 'node:url';
 import type { HklRows } from '../../diffraction/hkl-sum';
+import type { PlaneGrid } from '../../diffraction/cartesian-sum';
 import { balancedRowRanges, type PairHistogramSpec } from '../../diffraction/pair-histogram';
 import type { DiffractionJob } from './diffraction-worker';
 
@@ -58,6 +59,22 @@ export class DiffractionPool {
     const t = this.threads;
     const outs = (await Promise.all(
       this.workers.map((w, i) => this.run(w, { kind: 'hkl', frac, groupOf, weight, rows, nGroups, j0: Math.floor((n * i) / t), j1: Math.floor((n * (i + 1)) / t) })),
+    )) as { re: Float64Array; im: Float64Array }[];
+    const { re, im } = outs[0];
+    for (const o of outs.slice(1)) {
+      for (let i = 0; i < re.length; i++) {
+        re[i] += o.re[i];
+        im[i] += o.im[i];
+      }
+    }
+    return { re, im };
+  }
+
+  async gridPartialSums(positions: Float64Array, groupOf: Uint16Array, weight: Float64Array, grid: PlaneGrid, nGroups: number): Promise<{ re: Float64Array; im: Float64Array }> {
+    const n = groupOf.length;
+    const t = this.threads;
+    const outs = (await Promise.all(
+      this.workers.map((w, i) => this.run(w, { kind: 'grid', positions, groupOf, weight, grid, nGroups, j0: Math.floor((n * i) / t), j1: Math.floor((n * (i + 1)) / t) })),
     )) as { re: Float64Array; im: Float64Array }[];
     const { re, im } = outs[0];
     for (const o of outs.slice(1)) {
