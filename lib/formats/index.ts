@@ -8,3 +8,4 @@ export * from './symop';
 export * from './cif';
 export * from './read';
 export * from './write';
+export * from './measured';

@@ -4,3 +4,4 @@ export * from './icosahedral';
 export * from './decoration';
 export * from './planar';
 export * from './decagonal';
+export * from './diffraction';
