@@ -45,6 +45,7 @@ const FORMATS = [
   ['extxyz', 'Extended XYZ'],
   ['cif', 'CIF'],
   ['json', 'Tauforge JSON'],
+  ['peaks-csv', 'Powder peak list (CSV, Cu Kα1)'],
 ] as const;
 
 export function ExportPanel({ projectId, revision, revisionNumber }: { projectId: number; revision: number; revisionNumber: number }) {

@@ -19,3 +19,4 @@ export * from './indexing';
 export * from './hyperspace';
 export * from './zone-axis';
 export * from './compare';
+export * from './peak-table';

@@ -9,20 +9,31 @@ import type { Structure } from '../structure/types';
 import { writeStructure } from '../formats/write';
 import type { StructureFormat } from '../formats/read';
 import { generate } from '../generate';
+import { braggPowder } from '../diffraction/powder';
+import { peakTableCsv } from '../diffraction/peak-table';
+import { XRAY_LINES } from '../diffraction/wavelengths';
+
+/** The exported peak list: a laboratory Cu Kα1 X-ray pattern, the most common first comparison. */
+const PEAKS = { radiation: 'xray' as const, wavelength: XRAY_LINES.Cu.ka1, twoThetaMin: 5, twoThetaMax: 120 };
+
+function render(s: Structure, format: string): string {
+  if (format !== 'peaks-csv') return writeStructure(s, format as StructureFormat);
+  if (!s.cell) throw new RangeError('the peak list needs a periodic cell: cut an approximant (finite patches give a Debye profile, not reflections)');
+  return peakTableCsv(braggPowder(s, PEAKS).peaks, PEAKS);
+}
 
 async function main() {
   const chunks: Buffer[] = [];
   for await (const c of process.stdin) chunks.push(c as Buffer);
   const job = JSON.parse(Buffer.concat(chunks).toString('utf8')) as { params: unknown; format: string };
-  let s: Structure;
+  let text: string;
   try {
-    s = generate(job.params);
+    // generate() records the validated params and the engine version as the file's provenance.
+    text = render(generate(job.params), job.format);
   } catch (e) {
     process.stderr.write(e instanceof Error ? e.message : String(e));
     process.exit(2);
   }
-  // generate() records the validated params and the engine version as the file's provenance.
-  const text = writeStructure(s, job.format as StructureFormat);
   process.stdout.write(text, () => process.exit(0));
 }
 

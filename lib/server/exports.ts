@@ -15,15 +15,17 @@ import { access } from './projects';
 import { runExportJob } from './jobs';
 import { ENGINE_VERSION } from '../version';
 
-export const EXPORT_FORMATS = ['xyz', 'extxyz', 'cif', 'json'] as const;
+/** Coordinates, plus 'peaks-csv': the powder peak list of a periodic cell (Cu Kα1 X-rays, 2θ 5–120°). */
+export const EXPORT_FORMATS = ['xyz', 'extxyz', 'cif', 'json', 'peaks-csv'] as const;
 export type ExportFormat = (typeof EXPORT_FORMATS)[number];
 
-const EXT: Record<ExportFormat, string> = { xyz: 'xyz', extxyz: 'extxyz', cif: 'cif', json: 'json' };
+const EXT: Record<ExportFormat, string> = { xyz: 'xyz', extxyz: 'extxyz', cif: 'cif', json: 'json', 'peaks-csv': 'peaks.csv' };
 const MEDIA: Record<ExportFormat, string> = {
   xyz: 'chemical/x-xyz',
   extxyz: 'chemical/x-xyz',
   cif: 'chemical/x-cif',
   json: 'application/json',
+  'peaks-csv': 'text/csv',
 };
 
 export const createExportSchema = z.strictObject({

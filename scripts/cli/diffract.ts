@@ -12,6 +12,7 @@ import { DiffractionPool } from '../../lib/server/workers/diffraction-pool';
 import { intensityAt } from '../../lib/diffraction/intensity-at';
 import { parseWavelength, XRAY_LINES } from '../../lib/diffraction/wavelengths';
 import { DIFFRACTION_UNITS, UNITS_COMMENT } from '../../lib/diffraction/units';
+import { peakTableCsv } from '../../lib/diffraction/peak-table';
 import { ENGINE_VERSION } from '../../lib/version';
 import { registerZoneCommand, registerHyperspaceCommand } from './diffract-more';
 import { registerCompareCommand } from './diffract-compare';
@@ -110,10 +111,7 @@ async function powderCommand(o: PowderFlags): Promise<void> {
       };
       process.stdout.write(JSON.stringify(out) + '\n');
     } else {
-      const lines = [UNITS_COMMENT, `# radiation ${p.radiation}, wavelength ${lambda} Å; intensity = m|F|²Lp, largest = 100`];
-      lines.push('twoTheta,d,q,h,k,l,multiplicity,intensity');
-      for (const k of peaks) lines.push([k.twoTheta, k.d, k.q, ...k.hkl, k.multiplicity, k.intensity].join(','));
-      process.stdout.write(lines.join('\n') + '\n');
+      process.stdout.write(peakTableCsv(res.peaks, { radiation: p.radiation, wavelength: lambda }));
     }
     return;
   }
