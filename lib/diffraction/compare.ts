@@ -10,7 +10,8 @@
  * Measured x on the |Q| or d axis is converted to 2θ with the given wavelength; the simulation is
  * interpolated linearly onto the measured points (points outside the simulated range are left out).
  * Peak table: local maxima of the measured pattern above `peakThreshold` × (max − min) prominence over
- * the neighbouring minima, each matched to the nearest simulated reflection in 2θ.
+ * the neighbouring minima, each matched to the nearest simulated reflection in 2θ (reflections at the
+ * same 2θ count as one line: the strongest hkl, the summed intensity).
  */
 import type { MeasuredPattern } from '../formats/measured';
 
@@ -132,6 +133,9 @@ export function findPeaks(x: ArrayLike<number>, y: ArrayLike<number>, threshold:
   return out;
 }
 
+/** Reflections closer than this in 2θ (degrees) are one line of the peak table. */
+const COINCIDENT_TWO_THETA = 1e-4;
+
 export function comparePatterns(
   measured: MeasuredPattern,
   sim: { twoTheta: Float64Array; intensity: Float64Array },
@@ -164,11 +168,23 @@ export function comparePatterns(
     let best: SimReflection | null = null;
     for (const r of reflections) if (!best || Math.abs(r.twoTheta - p.x) < Math.abs(best.twoTheta - p.x)) best = r;
     const d = o.wavelength ? o.wavelength / (2 * Math.sin((p.x * Math.PI) / 360)) : undefined;
+    // Reflections at one 2θ are one line: a cell written in P1 lists every symmetry-equivalent hkl on its
+    // own, and in a cubic cell different families share h²+k²+l² (so d = a/√(h²+k²+l²)). Name the
+    // strongest of them and give their summed intensity, not whichever came first in the list.
+    let line = best;
+    let sum = 0;
+    if (best) {
+      for (const r of reflections) {
+        if (Math.abs(r.twoTheta - best.twoTheta) > COINCIDENT_TWO_THETA) continue;
+        sum += r.intensity;
+        if (r.intensity > line!.intensity) line = r;
+      }
+    }
     return {
       twoTheta: p.x,
       d,
       intensity: p.y,
-      nearest: best ? { twoTheta: best.twoTheta, d: best.d, hkl: best.hkl, intensity: best.intensity } : null,
+      nearest: best && line ? { twoTheta: best.twoTheta, d: best.d, hkl: line.hkl, intensity: sum } : null,
       misfit: best ? p.x - best.twoTheta : null,
     };
   });

@@ -61,4 +61,32 @@ print(json.dumps(list(np.linalg.lstsq(A,y*np.sqrt(w),rcond=None)[0])))`,
     expect(rd.scale).toBeCloseTo(3.7, 3);
     expect(() => comparePatterns(readMeasured(dLines.join('\n')), sim.profile!, refl)).toThrow(/wavelength/);
   });
+
+  it('coincident reflections make one peak-table line: the strongest hkl and the summed intensity', () => {
+    // Cubic d-spacing d = a/√(h²+k²+l²) and Bragg's law λ = 2d sinθ: (1 9 4) and (8 5 3) both have
+    // h²+k²+l² = 98, so a P1 list gives them at one 2θ; (8 5 3) is the strong one here.
+    const a = 20.4887;
+    const lambda = 1.540593;
+    const line = (hkl: number[], intensity: number) => {
+      const d = a / Math.hypot(hkl[0], hkl[1], hkl[2]);
+      return { twoTheta: (360 / Math.PI) * Math.asin(lambda / (2 * d)), d, hkl, intensity };
+    };
+    const refl = [line([1, -9, -4], 0.1), line([8, 5, 3], 49), line([-8, 5, 3], 48), line([7, 7, 1], 3)];
+    const tt = refl[0].twoTheta;
+    expect(Math.abs(refl[1].twoTheta - tt)).toBeLessThan(1e-9);
+    // A Gaussian peak at that 2θ on a flat background, sampled every 0.02°.
+    const xs: number[] = [];
+    const ys: number[] = [];
+    for (let x = tt - 1; x <= tt + 1; x += 0.02) {
+      xs.push(x);
+      ys.push(10 + 1000 * Math.exp(-(((x - tt) / 0.06) ** 2)));
+    }
+    const m = readMeasured(xs.map((x, i) => `${x.toFixed(4)} ${ys[i].toFixed(3)}`).join('\n'));
+    const sim = { twoTheta: Float64Array.from(xs), intensity: Float64Array.from(ys) };
+    const r = comparePatterns(m, sim, refl, { wavelength: lambda });
+    expect(r.peaks).toHaveLength(1);
+    expect(r.peaks[0].nearest!.hkl).toEqual([8, 5, 3]);
+    expect(r.peaks[0].nearest!.intensity).toBeCloseTo(0.1 + 49 + 48, 9);
+    expect(Math.abs(r.peaks[0].misfit!)).toBeLessThan(0.011);
+  });
 });
