@@ -34,7 +34,9 @@ export const LABELS: Record<string, Label> = {
   gamma: { label: 'Grid offsets γ', hint: 'Σγ = 0 gives the tiling proper.' },
   long: { label: 'Long segment', unit: 'Å' },
   ratio: { label: 'Long/short ratio', hint: 'τ ≈ 1.618 for the ideal chain.' },
-  layers: { label: 'Layers per period' },
+  layers: { label: 'Layers per period', hint: 'Penrose layers in one period along the tenfold axis.' },
+  spacing: { label: 'Layer spacing', unit: 'Å', hint: 'Distance between neighbouring layers along the tenfold axis.' },
+  shift: { label: 'Layer shift', unit: 'Å, in plane', hint: 'How far each layer sits sideways from the one below.' },
   c: { label: 'Period along the axis', unit: 'Å' },
 };
 

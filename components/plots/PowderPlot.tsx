@@ -130,11 +130,12 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
             <caption className="px-2 py-1 text-left text-sm font-semibold">Peak matching ({comparison.peaks.filter((m) => m.nearest).length} of {comparison.peaks.length} measured peaks matched)</caption>
             <thead>
               <tr className="text-left text-ink-soft">
-                <th className="px-2 font-medium">Measured 2θ</th>
-                <th className="px-2 font-medium">Measured height</th>
-                <th className="px-2 font-medium">Calculated 2θ</th>
-                <th className="px-2 font-medium">hkl</th>
-                <th className="px-2 font-medium">Δ2θ</th>
+                <th className="px-2 font-medium">Measured 2θ (°)</th>
+                <th className="px-2 font-medium">Measured height (file units)</th>
+                <th className="px-2 font-medium">Calculated 2θ (°)</th>
+                <th className="px-2 font-medium">hkl (strongest)</th>
+                <th className="px-2 font-medium">Calculated intensity (rel.)</th>
+                <th className="px-2 font-medium">Δ2θ (°)</th>
               </tr>
             </thead>
             <tbody>
@@ -144,6 +145,7 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
                   <td className="px-2 font-mono">{m.intensity.toPrecision(4)}</td>
                   <td className="px-2 font-mono">{m.nearest ? m.nearest.twoTheta.toFixed(3) : 'no match'}</td>
                   <td className="px-2 font-mono">{m.nearest?.hkl?.join(' ') ?? ''}</td>
+                  <td className="px-2 font-mono">{m.nearest ? m.nearest.intensity.toPrecision(3) : ''}</td>
                   <td className="px-2 font-mono">{m.misfit !== null ? m.misfit.toFixed(3) : ''}</td>
                 </tr>
               ))}

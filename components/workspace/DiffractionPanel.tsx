@@ -20,7 +20,14 @@ export interface DatasetRef {
   url: string;
 }
 
-export function DiffractionPanel({ structure, fileBase, datasets = [] }: { structure: Structure; fileBase: string; datasets?: DatasetRef[] }) {
+/** Where a local file can be kept as a project dataset (editors only). */
+export interface DatasetTarget {
+  projectId: string;
+  canEdit: boolean;
+  onStored: (d: DatasetRef) => void;
+}
+
+export function DiffractionPanel({ structure, fileBase, datasets = [], target }: { structure: Structure; fileBase: string; datasets?: DatasetRef[]; target?: DatasetTarget }) {
   const [sub, setSub] = useState<'zone' | 'powder'>('zone');
   const [axis, setAxis] = useState('5');
   const [qmax, setQmax] = useState('3');
@@ -29,8 +36,10 @@ export function DiffractionPanel({ structure, fileBase, datasets = [] }: { struc
   const [tt0, setTt0] = useState('10');
   const [tt1, setTt1] = useState('90');
   const [fwhm, setFwhm] = useState('0.15');
-  const [measured, setMeasured] = useState<{ name: string; data: MeasuredPattern } | null>(null);
+  // What is laid over the simulation: a local file (kept as File so it can be stored) or a project dataset.
+  const [measured, setMeasured] = useState<{ name: string; data: MeasuredPattern; file?: File; datasetId?: string } | null>(null);
   const [measErr, setMeasErr] = useState<string | null>(null);
+  const [keepState, setKeepState] = useState<{ busy?: boolean; ok?: string; error?: string }>({});
   const zone = useJob<'zone'>('diffraction');
   const powder = useJob<'powder'>('diffraction');
 
@@ -46,23 +55,41 @@ export function DiffractionPanel({ structure, fileBase, datasets = [] }: { struc
   const rangeErr = !(Number(tt0) >= 0 && Number(tt1) <= 180 && Number(tt1) > Number(tt0)) ? '2θ range: need 0 ≤ start < end ≤ 180 degrees' : null;
   const fwhmErr = !(Number(fwhm) > 0 && Number(fwhm) <= 5) ? 'peak width: must be between 0 and 5 degrees' : null;
 
-  const comparison = useMemo(() => {
-    if (!measured || !powder.result) return null;
+  // A comparison that cannot be made says why (e.g. the measured range lies outside the simulated one).
+  const { comparison, compareErr } = useMemo(() => {
+    if (!measured || !powder.result) return { comparison: null, compareErr: null };
     try {
-      return comparePatterns(measured.data, powder.result, powder.result.peaks, { wavelength: powder.result.wavelength, background: true });
-    } catch {
-      return null;
+      return { comparison: comparePatterns(measured.data, powder.result, powder.result.peaks, { wavelength: powder.result.wavelength, background: true }), compareErr: null };
+    } catch (e) {
+      return { comparison: null, compareErr: compareMessage((e as Error).message, measured.data, powder.result.twoTheta) };
     }
   }, [measured, powder.result]);
 
-  const loadText = (name: string, text: string) => {
+  const loadText = (name: string, text: string, from: { file?: File; datasetId?: string }) => {
+    setKeepState({});
     try {
-      setMeasured({ name, data: readMeasured(text) });
+      setMeasured({ name, data: readMeasured(text), ...from });
       setMeasErr(null);
     } catch (e) {
       setMeasured(null);
-      setMeasErr((e as Error).message);
+      setMeasErr(`${name}: ${(e as Error).message}`);
     }
+  };
+
+  const keepInProject = async (file: File) => {
+    if (!target) return;
+    setKeepState({ busy: true });
+    const fd = new FormData();
+    fd.set('file', file);
+    fd.set('kind', 'pattern');
+    const res = await fetch(`/api/projects/${encodeURIComponent(target.projectId)}/datasets`, { method: 'POST', body: fd }).catch(() => null);
+    if (!res) return setKeepState({ error: 'The server could not be reached; nothing was stored.' });
+    const body = (await res.json().catch(() => null)) as { id?: number; filename?: string; downloadUrl?: string; error?: { message?: string } } | null;
+    if (!res.ok || body?.id === undefined) return setKeepState({ error: body?.error?.message ?? `Storing the file failed (HTTP ${res.status}); nothing was stored.` });
+    const ref: DatasetRef = { id: String(body.id), name: body.filename ?? file.name, url: body.downloadUrl ?? '' };
+    target.onStored(ref);
+    setMeasured((m) => (m && m.file === file ? { name: m.name, data: m.data, datasetId: ref.id } : m));
+    setKeepState({ ok: `${ref.name} is now a dataset of this project.` });
   };
 
   return (
@@ -173,7 +200,8 @@ export function DiffractionPanel({ structure, fileBase, datasets = [] }: { struc
                 aria-label="Measured pattern file"
                 onChange={(e) => {
                   const f = e.target.files?.[0];
-                  if (f) void f.text().then((t) => loadText(f.name, t));
+                  e.target.value = '';
+                  if (f) void f.text().then((t) => loadText(f.name, t, { file: f }));
                 }}
               />
             </label>
@@ -181,13 +209,19 @@ export function DiffractionPanel({ structure, fileBase, datasets = [] }: { struc
               <select
                 aria-label="Dataset from this project"
                 className={input}
-                defaultValue=""
+                value={measured?.datasetId ?? ''}
                 onChange={(e) => {
                   const d = datasets.find((x) => x.id === e.target.value);
-                  if (d)
-                    void fetch(d.url)
-                      .then((r) => (r.ok ? r.text() : Promise.reject(new Error(`dataset: could not load ${d.name} (HTTP ${r.status})`))))
-                      .then((t) => loadText(d.name, t), (err: Error) => setMeasErr(err.message));
+                  if (!d) return setMeasured(null);
+                  void fetch(d.url)
+                    .then((r) => (r.ok ? r.text() : Promise.reject(new Error(`${d.name}: could not be loaded (HTTP ${r.status})`))))
+                    .then(
+                      (t) => loadText(d.name, t, { datasetId: d.id }),
+                      (err: Error) => {
+                        setMeasured(null);
+                        setMeasErr(err.message);
+                      },
+                    );
                 }}
               >
                 <option value="">…or a dataset of this project</option>
@@ -206,7 +240,23 @@ export function DiffractionPanel({ structure, fileBase, datasets = [] }: { struc
                 </button>
               </span>
             ) : null}
-            {measErr ? <span className="text-xs text-clay">{measErr}</span> : null}
+            {measured?.file && target?.canEdit ? (
+              <button type="button" disabled={keepState.busy} className="rounded border border-rule px-2 py-0.5 text-xs hover:border-tide disabled:opacity-50" onClick={() => void keepInProject(measured.file!)}>
+                {keepState.busy ? 'Storing…' : 'Keep in this project'}
+              </button>
+            ) : null}
+            {keepState.ok ? <span className="text-xs text-tide" role="status">{keepState.ok}</span> : null}
+            {keepState.error ? <span className="text-xs text-clay" role="alert">{keepState.error}</span> : null}
+            {measErr ? (
+              <span className="text-xs text-clay" role="alert">
+                {measErr}
+              </span>
+            ) : null}
+            {compareErr ? (
+              <span className="basis-full text-xs text-clay" role="alert" data-testid="compare-error">
+                {compareErr}
+              </span>
+            ) : null}
           </div>
           <Progress label="Powder" running={powder.running} stage={powder.stage} fraction={powder.fraction} startedAt={powder.startedAt} onCancel={powder.cancel} />
           {powder.error ? <p className="text-sm text-clay">{powder.error.message}</p> : null}
@@ -215,4 +265,13 @@ export function DiffractionPanel({ structure, fileBase, datasets = [] }: { struc
       )}
     </div>
   );
+}
+
+/** The comparison's own reason, with both 2θ ranges when the measured and simulated ones do not overlap. */
+function compareMessage(reason: string, m: MeasuredPattern, simTwoTheta: ArrayLike<number>): string {
+  const text = reason.replace(/^[a-z]+: /, '');
+  if (!/range/.test(reason) || m.axis !== '2theta') return `Cannot compare: ${text}.`;
+  const s0 = simTwoTheta[0];
+  const s1 = simTwoTheta[simTwoTheta.length - 1];
+  return `Cannot compare: ${text}. The measured pattern covers 2θ ${m.x[0].toFixed(2)}–${m.x[m.x.length - 1].toFixed(2)}°, the simulation ${s0.toFixed(2)}–${s1.toFixed(2)}°; set the 2θ range to overlap and compute again.`;
 }

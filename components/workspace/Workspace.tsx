@@ -45,6 +45,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
   const [conflict, setConflict] = useState<RevisionRef | null>(null);
   const [forkError, setForkError] = useState<string | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
+  const [datasetList, setDatasetList] = useState<DatasetRef[]>(datasets ?? []);
   const cut = useJob<'generate'>('cut');
   const [cutFor, setCutFor] = useState<string | null>(null);
   const estimate = useJob<'estimate'>('estimate');
@@ -311,7 +312,12 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
             ) : shownView === 'perp' ? (
               <PerpView structure={structure} fileBase={fileBase} />
             ) : (
-              <DiffractionPanel structure={structure} fileBase={fileBase} datasets={datasets} />
+              <DiffractionPanel
+                structure={structure}
+                fileBase={fileBase}
+                datasets={datasetList}
+                target={project && !lab ? { projectId: project.id, canEdit: project.canEdit, onStored: (d) => setDatasetList((l) => [d, ...l.filter((x) => x.id !== d.id)]) } : undefined}
+              />
             )}
           </div>
         </section>
@@ -320,7 +326,9 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
   );
 }
 
-function CutFacts({ summary, stale, ms }: { summary: { count: number; numberDensity?: number; massDensity?: number; formula?: string; cellLengths?: [number, number, number] } | null; stale: boolean; ms: number | null }) {
+function CutFacts({ summary, stale, ms }: { summary: { count: number; numberDensity?: number; massDensity?: number; formula?: string; composition?: { symbol: string }[]; cellLengths?: [number, number, number] } | null; stale: boolean; ms: number | null }) {
+  // Undecorated tiling vertices carry species 0 (written X); say so instead of a formula "X1.0000".
+  const bare = summary?.composition?.length === 1 && summary.composition[0].symbol === 'X';
   const ref = useRef<HTMLDivElement>(null);
   return (
     <div ref={ref} className="ml-auto flex min-h-6 flex-wrap items-center gap-x-4 text-xs text-ink-soft" aria-live="polite">
@@ -335,7 +343,7 @@ function CutFacts({ summary, stale, ms }: { summary: { count: number; numberDens
           {summary.cellLengths ? <span>a = {summary.cellLengths[0].toFixed(3)} Å</span> : null}
           {summary.numberDensity ? <span>{summary.numberDensity.toFixed(5)} atoms/Å³</span> : null}
           {summary.massDensity ? <span>{summary.massDensity.toFixed(3)} g/cm³</span> : null}
-          {summary.formula ? <span>{summary.formula}</span> : null}
+          {bare ? <span title="Decorate the model to give the points species">vertices only, no species</span> : summary.formula ? <span>{summary.formula}</span> : null}
           {ms !== null ? <span>{(ms / 1000).toFixed(2)} s</span> : null}
           {stale ? <span className="rounded bg-brass-pale px-1.5 text-brass">model changed since this cut</span> : null}
         </>
