@@ -34,6 +34,9 @@ export function ModelPanel({ params, onChange, engineErrors }: ModelPanelProps) 
     for (const [k, v] of engineErrors) if (!m.has(k)) m.set(k, v);
     return m;
   }, [byPath, engineErrors]);
+  // A periodic approximant (planar and decagonal families) has no patch radius; do not offer a field it ignores.
+  const periodic = typeof params.approximant === 'object' && params.approximant !== null;
+  const skip = useMemo(() => (periodic ? new Set([...FRAME_KEYS, 'radius']) : FRAME_KEYS), [periodic]);
   const extra = [...errors.entries()].filter(([k]) => k === '' || k === 'family' || (info?.shape.kind === 'object' && !info.shape.fields.some((f) => k === f.key || k.startsWith(`${f.key}.`))));
 
   return (
@@ -67,7 +70,7 @@ export function ModelPanel({ params, onChange, engineErrors }: ModelPanelProps) 
         </fieldset>
       ) : null}
       {info ? (
-        <Field name="" path={[]} info={info} value={params} errors={errors} skip={FRAME_KEYS} onChange={(v) => onChange({ ...(v as Params), family: params.family, ...(params.mode ? { mode: params.mode } : {}) })} />
+        <Field name="" path={[]} info={info} value={params} errors={errors} skip={skip} onChange={(v) => onChange({ ...(v as Params), family: params.family, ...(params.mode ? { mode: params.mode } : {}) })} />
       ) : (
         <p className="rounded-md border border-brass bg-brass-pale p-2 text-sm">The {params.family} engine has not arrived in this build yet; pick another family.</p>
       )}

@@ -340,7 +340,7 @@ function CutFacts({ summary, stale, ms }: { summary: { count: number; numberDens
             </span>{' '}
             points
           </span>
-          {summary.cellLengths ? <span>a = {summary.cellLengths[0].toFixed(3)} Å</span> : null}
+          {summary.cellLengths ? <span>{cellText(summary.cellLengths)}</span> : null}
           {summary.numberDensity ? <span>{summary.numberDensity.toFixed(5)} atoms/Å³</span> : null}
           {summary.massDensity ? <span>{summary.massDensity.toFixed(3)} g/cm³</span> : null}
           {bare ? <span title="Decorate the model to give the points species">vertices only, no species</span> : summary.formula ? <span>{summary.formula}</span> : null}
@@ -350,4 +350,10 @@ function CutFacts({ summary, stale, ms }: { summary: { count: number; numberDens
       ) : null}
     </div>
   );
+}
+
+/** a = … Å for a cubic cell, otherwise a, b, c (a decagonal approximant is orthorhombic). */
+function cellText([a, b, c]: [number, number, number]): string {
+  const same = (x: number, y: number) => Math.abs(x - y) < 1e-6 * Math.max(x, y);
+  return same(a, b) && same(b, c) ? `a = ${a.toFixed(3)} Å` : `a, b, c = ${a.toFixed(3)}, ${b.toFixed(3)}, ${c.toFixed(3)} Å`;
 }

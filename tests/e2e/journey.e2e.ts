@@ -174,4 +174,44 @@ describe('journey', () => {
     await student.getByText(/Forked from “Journey 2\/1 \d+” revision 2/).waitFor();
     await screenshot(student, 'journey-forked');
   });
+
+  it('decagonal approximant: the form drops the patch radius, the CIF is orthorhombic and holds every point', async () => {
+    // Outside reference: a rhombus tiling has as many vertices as tiles (Euler, V − E + F = 1 with every
+    // tile four-sided), and Penrose thick:thin = τ (de Bruijn 1981), so the vertex density per layer is
+    // (τ + 1)/(τ sin 72° + sin 36°) per edge². An approximant's phason strain moves it slightly: 1 %.
+    const page = await signedIn('lead@harrowgate.test');
+    await page.click('text=New project');
+    await page.check('input[value=decagonal]');
+    await page.fill('input[name=name]', `Journey decagonal ${Date.now()}`);
+    await page.click('button[type=submit]');
+    await page.waitForURL(/\/projects\/\d+$/);
+    await page.getByRole('link', { name: 'Open workspace' }).click();
+    await page.waitForSelector('[data-testid=estimate]');
+    expect(await page.getByLabel(/Patch radius/).count()).toBe(1);
+    expect(await page.getByLabel(/Layer spacing/).inputValue()).toBe('2.04');
+    await page.getByLabel('Periodic approximant', { exact: true }).check();
+    await expect.poll(() => page.getByLabel(/Patch radius/).count()).toBe(0);
+    const edge = Number(await page.getByLabel(/Edge length/).inputValue());
+    const layers = Number(await page.getByLabel(/Layers per period/).inputValue());
+    await page.getByRole('button', { name: /Generate|Cut again/ }).click();
+    await page.waitForSelector('[data-testid=atom-count]', { timeout: 60_000 });
+    const count = Number((await page.textContent('[data-testid=atom-count]'))!.replace(/,/g, ''));
+    await screenshot(page, 'journey-decagonal');
+
+    await page.getByLabel('File format').selectOption('cif');
+    const cif = await download(page, () => page.getByRole('button', { name: 'Download' }).click());
+    const cifFile = path.join(work, cif.name);
+    writeFileSync(cifFile, cif.text);
+    const py = spawnSync('/usr/bin/python3', ['-c', 'import gemmi, sys; s = gemmi.read_small_structure(sys.argv[1]); c = s.cell; print(len(s.sites), c.a, c.b, c.c, c.alpha, c.beta, c.gamma)', cifFile], { encoding: 'utf8' });
+    expect(py.status, py.stderr).toBe(0);
+    const [sites, a, b, , alpha, beta, gamma] = py.stdout.trim().split(/\s+/).map(Number);
+    expect(sites).toBe(count);
+    expect([alpha, beta, gamma]).toEqual([90, 90, 90]);
+    expect(await page.textContent('body')).toContain(`a, b, c = ${a.toFixed(3)}, ${b.toFixed(3)}`);
+    const tau = (1 + Math.sqrt(5)) / 2;
+    const deg = Math.PI / 180;
+    const perEdge2 = (tau + 1) / (tau * Math.sin(72 * deg) + Math.sin(36 * deg));
+    const perLayer = count / layers;
+    expect(Math.abs(perLayer / ((a * b) / edge ** 2) - perEdge2) / perEdge2).toBeLessThan(0.01);
+  });
 });
