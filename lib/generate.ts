@@ -51,6 +51,13 @@ function generateParsed(p: ModelParams): Structure {
   }
 }
 
+/**
+ * Planar patches keep whole tiles whose centre lies inside the radius, so their vertices fill a disc
+ * about 0.65 edge wider (fitted to our own Penrose and Ammann–Beenker cuts of radius 3–40 edges:
+ * 0.46–0.81; an estimate, not a bound).
+ */
+const RIM = 0.65;
+
 function planarCellArea(family: 'penrose' | 'octagonal', gamma: number[] | undefined, a: { p: number; q: number }): number {
   const spec = family === 'penrose' ? penroseSpec(gamma ?? [0, 0, 0, 0, 0], a) : octagonalSpec(gamma ?? [0, 0, 0, 0], a);
   const [[ax, ay], [bx, by]] = approximantCell(spec).a;
@@ -70,13 +77,12 @@ export function estimateCount(input: unknown): number {
     case 'octagonal': {
       const density = p.family === 'penrose' ? PENROSE_DENSITY : OCTAGONAL_DENSITY;
       if (p.approximant) return Math.round(density * planarCellArea(p.family, p.gamma, p.approximant));
-      // Tiles are kept when their centre is inside the radius, so vertices reach about one edge further.
-      return Math.round(density * Math.PI * (p.radius! / p.edge + 1) ** 2);
+      return Math.round(density * Math.PI * (p.radius! / p.edge + RIM) ** 2);
     }
     case 'decagonal': {
       const perLayer = p.approximant
         ? PENROSE_DENSITY * planarCellArea('penrose', p.gamma, p.approximant)
-        : PENROSE_DENSITY * Math.PI * (p.radius! / p.edge + 1) ** 2;
+        : PENROSE_DENSITY * Math.PI * (p.radius! / p.edge + RIM) ** 2;
       return Math.round(perLayer * p.layers);
     }
     case 'icosahedral': {
