@@ -7,6 +7,8 @@
  * gives ranges with equal pair counts. Histograms of parts simply add.
  */
 
+import { pairRowKernel } from './pair-kernel';
+
 export interface PairHistogramSpec {
   nGroups: number;
   binWidth: number;
@@ -54,7 +56,11 @@ export function histogramSpec(positions: Float64Array, nGroups: number, binWidth
   return { nGroups, binWidth, nBins };
 }
 
-/** Add pairs (i, j), i0 ≤ i < i1, i < j < N, into hist (length nGroups² · nBins). */
+/**
+ * Add pairs (i, j), i0 ≤ i < i1, i < j < N, into hist (length nGroups² · nBins). A pair's bin is
+ * trunc(√(dx² + dy² + dz²) · (1/Δ)) in doubles, whichever loop runs. With all weights 1 the WebAssembly
+ * SIMD kernel counts them (`simd = false` forces the JS loops, for checking the two agree).
+ */
 export function accumulatePairs(
   positions: Float64Array,
   groupOf: Uint16Array,
@@ -63,11 +69,15 @@ export function accumulatePairs(
   hist: Float64Array,
   i0 = 0,
   i1 = groupOf.length,
+  simd = true,
 ): void {
   const n = groupOf.length;
   const inv = 1 / spec.binWidth;
   const nb = spec.nBins;
   const ng = spec.nGroups;
+  let unit = true;
+  for (let i = 0; i < n && unit; i++) unit = weight[i] === 1;
+  if (simd && unit && i1 > i0 && simdUnitPairs(positions, groupOf, spec, inv, hist, i0, i1)) return;
   if (ng === 1) {
     singleGroupPairs(positions, weight, inv, nb, hist, i0, i1);
     return;
@@ -248,4 +258,90 @@ function unitPairs(xs: Float64Array, ys: Float64Array, zs: Float64Array, inv: nu
     }
   }
   flush();
+}
+
+/**
+ * All weights 1 (any number of groups) on the WebAssembly SIMD kernel of pair-kernel.ts; false when the
+ * kernel is unavailable (the JS loops above then run). Same pairs, same bins, same integer counts.
+ *
+ * Atoms are copied into the kernel's memory sorted by group (stable), so for a row i the partners j > i
+ * of group b are one contiguous run: group b's segment from start_b + #{k ≤ i : g_k = b} on. Each run
+ * goes to the kernel in column tiles (as in unitPairs: ROWS rows reuse COLS columns from cache) and is
+ * counted into the lane histogram of the group pair (g_i, b). Rows stay in the caller's [i0, i1) order,
+ * so thread splits by row ranges cover exactly the same pairs as the JS loops.
+ */
+function simdUnitPairs(
+  positions: Float64Array,
+  groupOf: Uint16Array,
+  spec: PairHistogramSpec,
+  inv: number,
+  hist: Float64Array,
+  i0: number,
+  i1: number,
+): boolean {
+  const n = groupOf.length;
+  const ng = spec.nGroups;
+  const nb = spec.nBins;
+  const k = pairRowKernel(n, nb, inv, ng * ng);
+  if (!k) return false;
+  const start = new Int32Array(ng + 1);
+  for (let i = 0; i < n; i++) start[groupOf[i] + 1]++;
+  for (let g = 0; g < ng; g++) start[g + 1] += start[g];
+  const fill = start.slice(0, ng);
+  const at = new Int32Array(n); // sorted slot of atom i
+  for (let i = 0; i < n; i++) {
+    const s = fill[groupOf[i]]++;
+    at[i] = s;
+    k.xs[s] = positions[3 * i];
+    k.ys[s] = positions[3 * i + 1];
+    k.zs[s] = positions[3 * i + 2];
+  }
+  // before[b] = #{k < a : g_k = b} at the start of each row block a
+  const before = new Int32Array(ng);
+  for (let i = 0; i < i0; i++) before[groupOf[i]]++;
+  const seen = new Int32Array(ng);
+  const lanes = k.lanes;
+  let sinceFlush = 0;
+  for (let a = i0; a < i1; a += ROWS) {
+    const e = Math.min(i1, a + ROWS);
+    for (let b = 0; b < ng; b++) {
+      const end = start[b + 1];
+      // the first partner any row of the block can have in group b, then tiles of COLS from there
+      for (let c = start[b] + before[b]; c < end; c += COLS) {
+        const d = Math.min(end, c + COLS);
+        seen.set(before);
+        for (let i = a; i < e; i++) {
+          const gi = groupOf[i];
+          seen[gi]++;
+          const from = start[b] + seen[b];
+          const j = from > c ? from : c;
+          if (j >= d) continue;
+          const s = at[i];
+          k.row(k.xs[s], k.ys[s], k.zs[s], j, d, gi <= b ? gi * ng + b : b * ng + gi);
+          sinceFlush += d - j;
+        }
+        if (sinceFlush > 1 << 28) {
+          flushLanes(lanes, hist, ng, nb);
+          sinceFlush = 0;
+        }
+      }
+    }
+    for (let i = a; i < e; i++) before[groupOf[i]]++;
+  }
+  flushLanes(lanes, hist, ng, nb);
+  return true;
+}
+
+/** Add the four lanes of each used lane histogram (a ≤ b) into hist and zero them. */
+function flushLanes(lanes: Uint32Array, hist: Float64Array, ng: number, nb: number): void {
+  for (let a = 0; a < ng; a++) {
+    for (let b = a; b < ng; b++) {
+      const h = (a * ng + b) * nb;
+      for (let t = 0; t < nb; t++) {
+        const l = 4 * (h + t);
+        hist[h + t] += lanes[l] + lanes[l + 1] + lanes[l + 2] + lanes[l + 3];
+      }
+    }
+  }
+  lanes.fill(0);
 }
