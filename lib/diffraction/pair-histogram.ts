@@ -5,6 +5,10 @@
  *
  * The loop over i is split by [i0, i1) so callers may spread it across threads; `balancedRowRanges`
  * gives ranges with equal pair counts. Histograms of parts simply add.
+ *
+ * With all weights 1 (the common case: no partial occupancy) pairs are counted as integers by the
+ * WebAssembly SIMD kernel of pair-kernel.ts, ≈ 2× the JS loops below, which remain for weighted atoms
+ * and wherever WebAssembly SIMD is missing. Both give the same bins (tests/unit/diffraction-pairs).
  */
 
 import { pairRowKernel } from './pair-kernel';
@@ -200,7 +204,7 @@ function singleGroupPairs(
   for (let b = 0; b < nb; b++) hist[b] += lanes[4 * b] + lanes[4 * b + 1] + lanes[4 * b + 2] + lanes[4 * b + 3];
 }
 
-/** All weights 1: count pairs in Uint32 lanes (half the cache footprint of doubles); tiles as above. */
+/** All weights 1 without the SIMD kernel: count pairs in Uint32 lanes (half the cache footprint of doubles); tiles as above. */
 
 function unitPairs(xs: Float64Array, ys: Float64Array, zs: Float64Array, inv: number, nb: number, hist: Float64Array, i0: number, i1: number): void {
   const n = xs.length;

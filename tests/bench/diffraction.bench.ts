@@ -139,6 +139,7 @@ async function debyeBench(pool: DiffractionPool): Promise<void> {
   let total = 0;
   for (const v of hist) total += v;
   console.log(`  pair histogram (2 workers): ${((t1 - t0) / 1000).toFixed(2)} s, ${(((t1 - t0) * 1e6) / pairs).toFixed(2)} ns/pair per 2 threads; pairs counted ${total === pairs ? 'all' : total}`);
+  console.log(`  worker busy: ${pool.lastJobMs.map((ms) => (ms / 1000).toFixed(2)).join(' s, ')} s`);
   console.log(`  pattern on ${q.length} Q points: ${((t2 - t1) / 1000).toFixed(2)} s`);
   console.log(`  total ${((t2 - t0) / 1000).toFixed(2)} s (target < 10 s); I(Q=3.01 Å⁻¹, 111)/N = ${(I[Math.round(((3.01 - 0.5) * 2999) / 7.5)] / n).toFixed(1)}`);
 }

@@ -23,6 +23,8 @@ type JobResult = { re: Float64Array; im: Float64Array } | { hist: Float64Array }
 
 export class DiffractionPool {
   private readonly workers: Worker[];
+  /** Time each worker spent on its share of the last call, ms (to see that all of them were busy). */
+  lastJobMs: number[] = [];
 
   constructor(readonly threads = 2) {
     if (!Number.isInteger(threads) || threads < 1) throw new Error(`threads: must be a positive integer, got ${threads}`);
@@ -31,8 +33,9 @@ export class DiffractionPool {
 
   private run(w: Worker, job: DiffractionJob): Promise<JobResult> {
     return new Promise((resolve, reject) => {
-      const onMessage = (m: { ok: boolean; out?: JobResult; error?: string }) => {
+      const onMessage = (m: { ok: boolean; out?: JobResult; ms?: number; error?: string }) => {
         w.off('error', onError);
+        this.lastJobMs[this.workers.indexOf(w)] = m.ms ?? NaN;
         if (m.ok) resolve(m.out!);
         else reject(new Error(m.error));
       };

@@ -6,6 +6,7 @@
  * Messages: { kind: 'hkl', frac, groupOf, weight, rows, nGroups, j0, j1 } → { re, im }
  *           { kind: 'pairs', positions, groupOf, weight, spec, i0, i1 } → { hist }
  *           { kind: 'grid', positions, groupOf, weight, grid, nGroups, j0, j1 } → { re, im }
+ * Every answer also carries `ms`, the job's time inside the worker (to check that all workers were busy).
  */
 import { parentPort } from 'node:worker_threads';
 import { hklPartialSums, type HklRows } from '../../diffraction/hkl-sum';
@@ -40,9 +41,11 @@ if (parentPort) {
   const port = parentPort;
   port.on('message', (job: DiffractionJob) => {
     try {
+      const t0 = performance.now();
       const out = runJob(job);
+      const ms = performance.now() - t0;
       const transfer = 'hist' in out ? [out.hist.buffer] : [out.re.buffer, out.im.buffer];
-      port.postMessage({ ok: true, out }, transfer as ArrayBuffer[]);
+      port.postMessage({ ok: true, out, ms }, transfer as ArrayBuffer[]);
     } catch (e) {
       port.postMessage({ ok: false, error: (e as Error).message });
     }
