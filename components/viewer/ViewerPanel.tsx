@@ -1,6 +1,6 @@
 'use client';
 /** The controls beside the view: camera, look down an axis, slice, cluster, bonds, sizes, picture. */
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { saveAs } from 'file-saver';
 import type { Structure } from '@/lib/structure/types';
 import { axesOfFold, directionLabel, directionVector, type Direction, type Fold } from '@/lib/view/axes';
@@ -67,9 +67,24 @@ export interface ViewerPanelProps {
   note?: string;
 }
 
+/**
+ * The 5-, 3- and 2-fold axes are those of the icosahedral setting; chains, planar tilings and
+ * decagonal stacks (whose tenfold or stacking axis is z) get [uvw] directions only.
+ */
+function hasIcosahedralAxes(structure: Structure): boolean {
+  const family = (structure.provenance?.params as { family?: unknown } | undefined)?.family;
+  return family === undefined || family === 'icosahedral';
+}
+
 export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPanelProps) {
   const s = store();
   const cell = structure.cell;
+  const ico = hasIcosahedralAxes(structure);
+  const slabIsFold = s.slab.direction.kind === 'fold';
+  const setSlab = s.setSlab;
+  useEffect(() => {
+    if (!ico && slabIsFold) setSlab({ direction: { kind: 'uvw', uvw: [0, 0, 1] }, offset: 0 });
+  }, [ico, slabIsFold, setSlab]);
   const [fold3, setFold3] = useState(0);
   const [fold2, setFold2] = useState(0);
   const [uvw, setUvw] = useState<Vec3>([0, 0, 1]);
@@ -101,6 +116,8 @@ export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPane
       </Section>
 
       <Section title="Look down">
+        {ico ? (
+        <>
         <div className="flex flex-wrap gap-1" role="group" aria-label="Five-fold axes">
           {axesOfFold(5).map((_, i) => (
             <button key={i} type="button" className={button} onClick={() => s.snapTo({ kind: 'fold', fold: 5, index: i })} aria-label={`Look down five-fold axis ${i + 1}`}>
@@ -130,6 +147,12 @@ export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPane
             Look
           </button>
         </div>
+        </>
+        ) : (
+          <button type="button" className={button} onClick={() => s.snapTo({ kind: 'uvw', uvw: [0, 0, 1] })}>
+            Look down z (stacking or tenfold axis)
+          </button>
+        )}
         <div className="grid grid-cols-[1fr_auto] items-center gap-1">
           <TripleInput label={`Direction [uvw] ${basis}`} value={uvw} onChange={setUvw} />
           <button type="button" className={button} disabled={uvw.every((x) => x === 0)} onClick={() => s.snapTo({ kind: 'uvw', uvw })}>
@@ -148,9 +171,13 @@ export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPane
         </label>
         <div className="grid grid-cols-2 gap-1">
           <select className={input} aria-label="Slab normal" value={slabKindOf(slabDir)} onChange={(e) => setSlabKind(e.target.value as SlabKind)}>
-            <option value="fold5">5-fold axis</option>
-            <option value="fold3">3-fold axis</option>
-            <option value="fold2">2-fold axis</option>
+            {ico ? (
+              <>
+                <option value="fold5">5-fold axis</option>
+                <option value="fold3">3-fold axis</option>
+                <option value="fold2">2-fold axis</option>
+              </>
+            ) : null}
             <option value="uvw">[uvw]</option>
             <option value="hkl">(hkl) plane</option>
           </select>
