@@ -314,15 +314,38 @@ function simdUnitPairs(
       for (let c = start[b] + before[b]; c < end; c += COLS) {
         const d = Math.min(end, c + COLS);
         seen.set(before);
-        for (let i = a; i < e; i++) {
+        // Rows two at a time: row2 loads each j once for both. Partners start later for the second row
+        // (ja ≤ jb), so row i alone takes [ja, jb), both take whole fours from jb, each the rest.
+        for (let i = a; i < e; i += 2) {
           const gi = groupOf[i];
           seen[gi]++;
-          const from = start[b] + seen[b];
-          const j = from > c ? from : c;
-          if (j >= d) continue;
+          const fa = start[b] + seen[b];
+          const ja = fa > c ? fa : c;
+          const ha = gi <= b ? gi * ng + b : b * ng + gi;
           const s = at[i];
-          k.row(k.xs[s], k.ys[s], k.zs[s], j, d, gi <= b ? gi * ng + b : b * ng + gi);
-          sinceFlush += d - j;
+          if (i + 1 === e) {
+            if (ja < d) k.row(k.xs[s], k.ys[s], k.zs[s], ja, d, ha);
+            sinceFlush += d > ja ? d - ja : 0;
+            break;
+          }
+          const g2 = groupOf[i + 1];
+          seen[g2]++;
+          const fb = start[b] + seen[b];
+          const jb = fb > c ? fb : c;
+          const hb = g2 <= b ? g2 * ng + b : b * ng + g2;
+          const t = at[i + 1];
+          if (jb >= d) {
+            if (ja < d) k.row(k.xs[s], k.ys[s], k.zs[s], ja, d, ha);
+          } else {
+            if (ja < jb) k.row(k.xs[s], k.ys[s], k.zs[s], ja, jb, ha);
+            const m = jb + ((d - jb) & ~3);
+            if (m > jb) k.row2(k.xs[s], k.ys[s], k.zs[s], k.xs[t], k.ys[t], k.zs[t], jb, m, ha, hb);
+            if (m < d) {
+              k.row(k.xs[s], k.ys[s], k.zs[s], m, d, ha);
+              k.row(k.xs[t], k.ys[t], k.zs[t], m, d, hb);
+            }
+          }
+          sinceFlush += (d > ja ? d - ja : 0) + (d > jb ? d - jb : 0);
         }
         if (sinceFlush > 1 << 28) {
           flushLanes(lanes, hist, ng, nb);

@@ -108,10 +108,10 @@ function dist2x2(off: number): number[] {
  * 32 bits of each f64 lane are base + bin·16, the byte offset of the bin's four lanes (memory < 2³¹).
  * Cheap vector instructions instead of a saturating truncation, a clamp, a shift and an add.
  */
-function binAndCount(lane0: number): number[] {
-  const inc = (lane: number) => [...get(B), ...i32x4Lane(2 * (lane - lane0)), ...tee(K), ...get(K), ...i32Load(4 * lane), ...i32c(1), I32_ADD, ...i32Store(4 * lane)];
+function binAndCount(lane0: number, vtop = VTOP, vinv = VINV, vmagic = VMAGIC, b = B, k = K): number[] {
+  const inc = (lane: number) => [...get(b), ...i32x4Lane(2 * (lane - lane0)), ...tee(k), ...get(k), ...i32Load(4 * lane), ...i32c(1), I32_ADD, ...i32Store(4 * lane)];
   return [
-    ...F64X2_SQRT, ...get(VINV), ...F64X2_MUL, ...get(VTOP), ...F64X2_PMIN, ...F64X2_FLOOR, ...get(VMAGIC), ...F64X2_ADD, ...set(B),
+    ...F64X2_SQRT, ...get(vinv), ...F64X2_MUL, ...get(vtop), ...F64X2_PMIN, ...F64X2_FLOOR, ...get(vmagic), ...F64X2_ADD, ...set(b),
     ...inc(lane0),
     ...inc(lane0 + 1),
   ];
@@ -167,6 +167,66 @@ function rowBody(): number[] {
   return [...uleb(body.length), ...body];
 }
 
+// Parameters and locals of `row2`.
+const R2 = { X1: 0, Y1: 1, Z1: 2, X2: 3, Y2: 4, Z2: 5, P: 6, PE: 7, OY: 8, OZ: 9, INV: 10, TOPF: 11, M1: 12, M2: 13 };
+const R2V = { X1: 14, Y1: 15, Z1: 16, X2: 17, Y2: 18, Z2: 19, INV: 20, TOP: 21, M1: 22, M2: 23, T: 24, B: 25, LX: 26, LY: 27, LZ: 28 };
+const R2K = 29;
+
+/** d² of the two j in LX, LY, LZ to the atom in vx, vy, vz (same operations and order as dist2x2). */
+function dist2From(vx: number, vy: number, vz: number): number[] {
+  const t = R2V.T;
+  return [
+    ...get(R2V.LX), ...get(vx), ...F64X2_SUB, ...tee(t), ...get(t), ...F64X2_MUL,
+    ...get(R2V.LY), ...get(vy), ...F64X2_SUB, ...tee(t), ...get(t), ...F64X2_MUL,
+    ...F64X2_ADD,
+    ...get(R2V.LZ), ...get(vz), ...F64X2_SUB, ...tee(t), ...get(t), ...F64X2_MUL,
+    ...F64X2_ADD,
+  ];
+}
+
+/**
+ * row2(x1, y1, z1, x2, y2, z2, p, pe, oy, oz, inv, topf, magic1, magic2): two rows against the same j,
+ * (pe − p) a multiple of 32 bytes (four j). Each j coordinate is loaded once for both rows; row 1
+ * counts into lanes 0, 1 of its histogram, row 2 into lanes 2, 3 of its own.
+ */
+function row2Body(): number[] {
+  const V = R2V;
+  const load = (off: number) => [
+    ...get(R2.P), ...v128Load(off), ...set(V.LX),
+    ...get(R2.P), ...get(R2.OY), I32_ADD, ...v128Load(off), ...set(V.LY),
+    ...get(R2.P), ...get(R2.OZ), I32_ADD, ...v128Load(off), ...set(V.LZ),
+  ];
+  const both = [
+    ...dist2From(V.X1, V.Y1, V.Z1), ...binAndCount(0, V.TOP, V.INV, V.M1, V.B, R2K),
+    ...dist2From(V.X2, V.Y2, V.Z2), ...binAndCount(2, V.TOP, V.INV, V.M2, V.B, R2K),
+  ];
+  const loop = [
+    0x02, 0x40,
+    0x03, 0x40,
+    ...get(R2.P), ...get(R2.PE), I32_GE_U, 0x0d, 1,
+    ...load(0), ...both,
+    ...load(16), ...both,
+    ...get(R2.P), ...i32c(32), I32_ADD, ...set(R2.P),
+    0x0c, 0,
+    END, END,
+  ];
+  const prologue = [
+    ...get(R2.X1), ...F64X2_SPLAT, ...set(V.X1),
+    ...get(R2.Y1), ...F64X2_SPLAT, ...set(V.Y1),
+    ...get(R2.Z1), ...F64X2_SPLAT, ...set(V.Z1),
+    ...get(R2.X2), ...F64X2_SPLAT, ...set(V.X2),
+    ...get(R2.Y2), ...F64X2_SPLAT, ...set(V.Y2),
+    ...get(R2.Z2), ...F64X2_SPLAT, ...set(V.Z2),
+    ...get(R2.INV), ...F64X2_SPLAT, ...set(V.INV),
+    ...get(R2.TOPF), ...F64X2_SPLAT, ...set(V.TOP),
+    ...get(R2.M1), ...F64X2_SPLAT, ...set(V.M1),
+    ...get(R2.M2), ...F64X2_SPLAT, ...set(V.M2),
+  ];
+  const locals = [2, 15, V128, 1, I32];
+  const body = [...locals, ...prologue, ...loop, END];
+  return [...uleb(body.length), ...body];
+}
+
 function section(id: number, content: number[]): number[] {
   return [id, ...uleb(content.length), ...content];
 }
@@ -174,11 +234,15 @@ function section(id: number, content: number[]): number[] {
 const name = (s: string) => [...uleb(s.length), ...Array.from(s, (c) => c.charCodeAt(0))];
 
 function moduleBytes(): Uint8Array<ArrayBuffer> {
-  const type = [1, 0x60, 12, F64, F64, F64, I32, I32, I32, I32, F64, I32, I32, F64, F64, 0];
+  const type = [
+    2,
+    ...[0x60, 12, F64, F64, F64, I32, I32, I32, I32, F64, I32, I32, F64, F64, 0],
+    ...[0x60, 14, F64, F64, F64, F64, F64, F64, I32, I32, I32, I32, F64, F64, F64, F64, 0],
+  ];
   const imports = [1, ...name('env'), ...name('mem'), 0x02, 0x00, 1]; // memory, min 1 page, no max
-  const funcs = [1, 0];
-  const exports = [1, ...name('row'), 0x00, 0];
-  const code = [1, ...rowBody()];
+  const funcs = [2, 0, 1];
+  const exports = [2, ...name('row'), 0x00, 0, ...name('row2'), 0x00, 1];
+  const code = [2, ...rowBody(), ...row2Body()];
   return Uint8Array.from([
     0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00,
     ...section(1, type),
@@ -197,6 +261,8 @@ export interface PairRowKernel {
   zs: Float64Array;
   /** Count the pairs of (x, y, z) with atoms j0 ≤ j < j1 into lane histogram `hist`. */
   row(x: number, y: number, z: number, j0: number, j1: number, hist: number): void;
+  /** The same for two atoms at once (j1 − j0 a multiple of 4), into histograms hist1 and hist2. */
+  row2(x1: number, y1: number, z1: number, x2: number, y2: number, z2: number, j0: number, j1: number, hist1: number, hist2: number): void;
 }
 
 let compiled: WebAssembly.Module | null | undefined;
@@ -233,6 +299,8 @@ export function pairRowKernel(n: number, nBins: number, inv: number, hists = 1):
   const inst = new WebAssembly.Instance(mod, { env: { mem } });
   type RowFn = (x: number, y: number, z: number, p: number, pe: number, oy: number, oz: number, inv: number, top: number, base: number, magic: number, topf: number) => void;
   const rowFn = inst.exports.row as RowFn;
+  type Row2Fn = (x1: number, y1: number, z1: number, x2: number, y2: number, z2: number, p: number, pe: number, oy: number, oz: number, inv: number, topf: number, m1: number, m2: number) => void;
+  const row2Fn = inst.exports.row2 as Row2Fn;
   const buf = mem.buffer;
   const top = nBins - 1;
   return {
@@ -241,5 +309,7 @@ export function pairRowKernel(n: number, nBins: number, inv: number, hists = 1):
     ys: new Float64Array(buf, xo + col, n),
     zs: new Float64Array(buf, xo + 2 * col, n),
     row: (x, y, z, j0, j1, hist) => rowFn(x, y, z, xo + 8 * j0, xo + 8 * j1, col, 2 * col, inv, top, hist * histBytes, 2 ** 48 + hist * nBins, top),
+    row2: (x1, y1, z1, x2, y2, z2, j0, j1, h1, h2) =>
+      row2Fn(x1, y1, z1, x2, y2, z2, xo + 8 * j0, xo + 8 * j1, col, 2 * col, inv, top, 2 ** 48 + h1 * nBins, 2 ** 48 + h2 * nBins),
   };
 }
