@@ -16,6 +16,11 @@
  *    (k = 2) and their negatives (k = 4, 3) — the slices of the projected 5-cube (de Bruijn 1981). The 5D
  *    basis is orthogonal with |B_j|² = 5a²/2, so Q∥ = (4π/5a) Σ h_j e_j/a and the level phase is 2π k Σh_j/5.
  *    h and h + (1,1,1,1,1) are the same peak: indices are reported with h_5 = 0 (four integers).
+ *  - octagonal: Z⁴, e_j = a(cos jπ/4, sin jπ/4), e⊥_j = a(cos 3jπ/4, sin 3jπ/4), j = 0…3 (lib/tiling/octagonal.ts,
+ *    edge a = aR), one window for every node: the regular octagon W = Σ_j [0,1]·e⊥_j of edge a (the projected
+ *    4-cube, Beenker 1982), centred at ½Σe⊥_j rather than at 0. The 4D basis B_j = (e_j, e⊥_j) is orthogonal
+ *    (cos kπ/4 + cos 3kπ/4 = 0 for k = 1, 2, 3) with |B_j|² = 2a², so B*_j = (π/a²)·B_j: Q∥ = (π/a²) Σ h_j e_j,
+ *    Q⊥ = (π/a²) Σ h_j e⊥_j, four integers with no redundancy. A grid offset γ moves W by P⊥γ: phases only.
  *  - icosahedral: the 6D lattice of lib/tiling/hyperlattice.ts (P, F or I), window the triacontahedron
  *    Σ[−½,½]e_i⊥ on every node, Q = Σ h_i E*_i with h in the dual lattice (P: Z⁶; F: Z⁶ ∪ Z⁶ + ½(1,…,1);
  *    I: Σh even — hyperlattice.ts item 4), with Cahn–Shechtman–Gratias indices and N, M (indexing.ts).
@@ -26,8 +31,10 @@ import type { Radiation } from './form-factors';
 import { scatteringFactor } from './form-factors';
 import { intervalTransform, polygonTransform, symmetricBodyTransform, zonotopeBody } from './window-transform';
 import { csgFromHyper } from './indexing';
+import { octagonalSpec } from '../tiling/octagonal';
+import { convexPolygon } from '../tiling/planar-window';
 
-export type HyperFamily = 'fibonacci' | 'penrose' | 'icosahedral';
+export type HyperFamily = 'fibonacci' | 'penrose' | 'octagonal' | 'icosahedral';
 
 export interface HyperOptions {
   family: HyperFamily;
@@ -218,6 +225,94 @@ export function penrosePeaks(o: HyperOptions): HyperPeak[] {
   return finish(peaks, o, g0);
 }
 
+/**
+ * The Ammann–Beenker window for edge a (Å): the octagon P⊥([0,1]⁴) with the perpendicular map the generator
+ * writes to Structure.perp (octagonalSpec(…).perpOut, γ = 0), as counter-clockwise vertices, its centre
+ * ½Σe⊥_j and its area. Also the unit parallel and perpendicular directions used for the module.
+ */
+export function octagonalWindow(a: number): { vertices: number[]; centre: [number, number]; area: number; par: number[][]; perp: number[][] } {
+  const spec = octagonalSpec([0, 0, 0, 0]);
+  const perp = spec.perpOut;
+  const pts: number[] = [];
+  for (let mask = 0; mask < 16; mask++) {
+    let x = 0;
+    let y = 0;
+    for (let j = 0; j < 4; j++) {
+      if ((mask >> j) & 1) {
+        x += a * perp[0][j];
+        y += a * perp[1][j];
+      }
+    }
+    pts.push(x, y);
+  }
+  const w = convexPolygon(pts);
+  if (!w || w.corners.length !== 16) throw new Error('octagonal: window is not an octagon (internal error)');
+  let cx = 0;
+  let cy = 0;
+  for (let j = 0; j < 4; j++) {
+    cx += (a * perp[0][j]) / 2;
+    cy += (a * perp[1][j]) / 2;
+  }
+  return { vertices: Array.from(w.corners), centre: [cx, cy], area: w.area, par: spec.par, perp };
+}
+
+export function octagonalPeaks(o: HyperOptions): HyperPeak[] {
+  check(o);
+  const a = o.aR;
+  const win = octagonalWindow(a);
+  const qperpMax = o.qperpMax ?? 12 / a;
+  const f = Math.PI / a; // |B*_j| per component direction: Q = (π/a)·Σ h_j (ê_j, ê⊥_j)
+  const ex = win.par[0];
+  const ey = win.par[1];
+  const px = win.perp[0];
+  const py = win.perp[1];
+  // |Q∥|² + |Q⊥|² = 2f²|h|² (orthogonal basis, |ê_j|² + |ê⊥_j|² = 2).
+  const r2 = (o.qmax ** 2 + qperpMax ** 2) / (2 * f * f);
+  guard(((Math.PI * Math.PI) / 2) * r2 * r2); // volume of the 4-ball of radius √r2
+  const peaks: HyperPeak[] = [];
+  const g0 = factor(o, 0);
+  const h = [0, 0, 0, 0];
+  const m0 = Math.floor(Math.sqrt(r2) + 1e-9);
+  for (h[0] = -m0; h[0] <= m0; h[0]++) {
+    const l1 = r2 - h[0] * h[0];
+    const m1 = Math.floor(Math.sqrt(l1) + 1e-9);
+    for (h[1] = -m1; h[1] <= m1; h[1]++) {
+      const l2 = l1 - h[1] * h[1];
+      const m2 = Math.floor(Math.sqrt(l2) + 1e-9);
+      for (h[2] = -m2; h[2] <= m2; h[2]++) {
+        const l3 = l2 - h[2] * h[2];
+        const m3 = Math.floor(Math.sqrt(Math.max(l3, 0)) + 1e-9);
+        for (h[3] = -m3; h[3] <= m3; h[3]++) {
+          let qx = 0;
+          let qy = 0;
+          let rx = 0;
+          let ry = 0;
+          for (let j = 0; j < 4; j++) {
+            qx += h[j] * ex[j];
+            qy += h[j] * ey[j];
+            rx += h[j] * px[j];
+            ry += h[j] * py[j];
+          }
+          qx *= f;
+          qy *= f;
+          rx *= f;
+          ry *= f;
+          const qp = Math.hypot(qx, qy);
+          const qq = Math.hypot(rx, ry);
+          if (qp > o.qmax + 1e-12 || qq > qperpMax) continue;
+          // Σ_K e^{iQ∥·x_K} = Σ_K e^{−iQ⊥·y_K} (Q·X = 2π h·K), so F/N = (1/|W|)∫_W e^{−iQ⊥·y} dy.
+          const [ar, ai] = polygonTransform(win.vertices, win.centre, [rx, ry]);
+          const g = factor(o, qp);
+          const re = ar * g;
+          const im = ai * g;
+          peaks.push({ indices: h.slice(), qPar: [qx, qy], qParNorm: qp, qPerp: [rx, ry], qPerpNorm: qq, re, im, intensity: re * re + im * im, relative: 0 });
+        }
+      }
+    }
+  }
+  return finish(peaks, o, g0);
+}
+
 export function icosahedralPeaks(o: HyperOptions): HyperPeak[] {
   check(o);
   const lattice = o.lattice ?? 'P';
@@ -284,9 +379,11 @@ export function hyperspacePeaks(o: HyperOptions): HyperPeak[] {
       return fibonacciPeaks(o);
     case 'penrose':
       return penrosePeaks(o);
+    case 'octagonal':
+      return octagonalPeaks(o);
     case 'icosahedral':
       return icosahedralPeaks(o);
     default:
-      throw new Error(`family: must be fibonacci, penrose or icosahedral, got "${String(o.family)}"`);
+      throw new Error(`family: must be fibonacci, penrose, octagonal or icosahedral, got "${String(o.family)}"`);
   }
 }

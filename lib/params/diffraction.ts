@@ -52,7 +52,8 @@ export const zoneParamsSchema = z.object({
 export type ZoneParams = z.infer<typeof zoneParamsSchema>;
 
 export const hyperspaceParamsSchema = z.object({
-  family: z.enum(['icosahedral', 'penrose', 'fibonacci'], { message: 'family must be icosahedral, penrose or fibonacci' }),
+  family: z.enum(['icosahedral', 'penrose', 'octagonal', 'fibonacci'], { message: 'family must be icosahedral, penrose, octagonal or fibonacci' }),
+  /** Quasilattice constant in Å: rhombohedron edge (icosahedral), tile edge (penrose, octagonal), long segment (fibonacci). */
   aR: z.number().positive('aR must be a positive length in Å'),
   qmax: z.number().positive('qmax must be positive (Å⁻¹)').max(30),
   /** Largest |Q⊥| kept, Å⁻¹ (bounds the enumeration; the window transform decays as |Q⊥|⁻²). */

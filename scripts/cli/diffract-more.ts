@@ -110,8 +110,8 @@ interface HyperFlags {
 export function registerHyperspaceCommand(d: Command): void {
   d.command('hyperspace')
     .description('Ideal quasicrystal diffraction: indexed Bragg peaks of the Fourier module.')
-    .requiredOption('--family <f>', 'icosahedral, penrose or fibonacci')
-    .requiredOption('--aR <A>', 'quasilattice constant (rhombohedron/rhombus edge, long chain segment) in Å')
+    .requiredOption('--family <f>', 'icosahedral, penrose, octagonal or fibonacci')
+    .requiredOption('--aR <A>', 'quasilattice constant (rhombohedron edge, penrose/octagonal tile edge, long chain segment) in Å')
     .requiredOption('--qmax <Q>', 'largest |Q∥| in Å⁻¹')
     .option('--format <fmt>', 'json', 'json')
     .option('--qperp-max <Q>', 'largest |Q⊥| in Å⁻¹')
@@ -145,6 +145,8 @@ export function registerHyperspaceCommand(d: Command): void {
             ? 'six integers in the basis of lib/tiling/hyperlattice.ts, plus Cahn, Shechtman & Gratias, J. Mater. Res. 1 (1986) 13 indices h/h\' k/k\' l/l\' with N, M'
             : p.family === 'penrose'
               ? 'four integers (h1..h4, h5 = 0) of the Z⁵ reciprocal lattice, penrose.ts basis'
+              : p.family === 'octagonal'
+                ? 'four integers (h0..h3) of the Z⁴ reciprocal lattice, octagonal.ts basis: Q∥ = (π/aR) Σ h_j (cos jπ/4, sin jπ/4)'
               : 'two integers (h, k) dual to the (L, S) steps of the chain',
         peaks: peaks.map((k) => ({
           indices: k.indices,
