@@ -11,7 +11,7 @@ import { approximantLatticeConstant } from '../tiling/approximant';
 import { TAU } from '../tiling/hyperlattice';
 import { estimateCount, generate } from '../generate';
 import { parseAxis, zoneFrame, zonePattern } from '../diffraction/zone-axis';
-import { indexIcosahedralSpot } from './zone-index';
+import { indexIcosahedralSpot, indexOctagonalSpot } from './zone-index';
 import type { CutSummary, JobRequest, JobResultMap, PowderCurve, SeriesRow, ZoneResult } from './protocol';
 
 export type Report = (stage: string, fraction?: number) => void;
@@ -131,15 +131,16 @@ function powder(job: Extract<JobRequest, { kind: 'powder' }>): PowderCurve {
 
 const AXIS_NAMES: Record<string, string> = { '5': 'a five-fold axis', '3': 'a three-fold axis', '2': 'a two-fold axis' };
 
-/** Zone pattern; icosahedral spots get six-index labels and |Q⊥| (zone-index.ts). */
+/** Zone pattern; icosahedral spots get six-index labels, octagonal-tiling spots four, with |Q⊥| (zone-index.ts). */
 export function zone(job: Extract<JobRequest, { kind: 'zone' }>): ZoneResult {
   const s = job.structure;
   const axis = parseAxis(job.axis);
   const grid = 201;
   const { spots } = zonePattern(s, { axis, qmax: job.qmax, radiation: job.radiation, grid, slab: job.slab });
   const frame = zoneFrame(axis, s);
-  const pr = s.provenance.params as { family?: string; aR?: number } | null;
+  const pr = s.provenance.params as { family?: string; aR?: number; edge?: number } | null;
   const aR = pr?.family === 'icosahedral' && typeof pr.aR === 'number' ? pr.aR : null;
+  const edge = pr?.family === 'octagonal' && s.dim === 2 && typeof pr.edge === 'number' ? pr.edge : null;
   const tol = (2 * job.qmax) / (grid - 1);
   let top = 0;
   for (const p of spots) if (p.q > tol) top = Math.max(top, p.intensity);
@@ -147,7 +148,11 @@ export function zone(job: Extract<JobRequest, { kind: 'zone' }>): ZoneResult {
     .filter((p) => p.q > tol && p.q <= job.qmax)
     .map((p) => {
       const q3: [number, number, number] = [0, 1, 2].map((k) => p.qx * frame.e1[k] + p.qy * frame.e2[k] + p.qz * frame.axis[k]) as [number, number, number];
-      const found = aR ? indexIcosahedralSpot(q3, aR, tol) : null;
+      const found = aR
+        ? indexIcosahedralSpot(q3, aR, tol)
+        : edge && Math.abs(q3[2]) <= tol
+          ? indexOctagonalSpot([q3[0], q3[1]], edge, tol)
+          : null;
       // A label is only worth showing for a small perpendicular part (a strong quasicrystal reflection).
       const idx = found && found.qPerp < 2 * p.q + 1 ? found : null;
       return {

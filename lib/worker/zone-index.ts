@@ -46,3 +46,46 @@ export function indexIcosahedralSpot(q: [number, number, number], aR: number, to
       }
   return best;
 }
+
+/**
+ * Four-index labels and |Q⊥| for spots of an Ammann–Beenker (octagonal) tiling of edge a, in the basis of
+ * lib/tiling/octagonal.ts and lib/diffraction/hyperspace.ts: Q∥ = (π/a) Σ h_j (cos jπ/4, sin jπ/4), so
+ *   qx·a/π = h0 + (h1 − h3)/√2,   qy·a/π = h2 + (h1 + h3)/√2,
+ * and, with e⊥_j = (cos 3jπ/4, sin 3jπ/4), Q⊥·a/π = (h0 − (h1 − h3)/√2, −h2 + (h1 + h3)/√2): each component
+ * m + n/√2 of Q∥ has the Galois conjugate m − n/√2 as its perpendicular part (up to sign). As for the
+ * icosahedral case, among the pairs within tol we keep the index with the smallest |Q⊥|; the two √2
+ * parts n_x = h1 − h3 and n_y = h1 + h3 must have equal parity.
+ */
+export interface OctagonalSpotIndex {
+  label: string;
+  /** [h0, h1, h2, h3] */
+  h: number[];
+  qPerp: number;
+  /** |Q∥ − Q∥(index)|, Å⁻¹. */
+  miss: number;
+}
+
+export function indexOctagonalSpot(q: [number, number], edge: number, tol: number, maxIndex = 12): OctagonalSpotIndex | null {
+  const c = Math.PI / edge;
+  const r = Math.SQRT1_2;
+  const per = q.map((qc) => {
+    const v = qc / c;
+    const out: { m: number; n: number; perp: number; miss: number }[] = [];
+    for (let n = -maxIndex; n <= maxIndex; n++) {
+      const m = Math.round(v - n * r);
+      const miss = Math.abs(m + n * r - v) * c;
+      if (miss <= tol) out.push({ m, n, perp: (m - n * r) * c, miss });
+    }
+    return out.sort((a, b) => Math.abs(a.perp) - Math.abs(b.perp)).slice(0, 6);
+  });
+  let best: OctagonalSpotIndex | null = null;
+  for (const x of per[0]) {
+    for (const y of per[1]) {
+      if ((x.n - y.n) % 2 !== 0) continue;
+      const h = [x.m, (x.n + y.n) / 2, y.m, (y.n - x.n) / 2].map((v) => v + 0); // no −0
+      const qPerp = Math.hypot(x.perp, y.perp);
+      if (!best || qPerp < best.qPerp) best = { label: h.join(' '), h, qPerp, miss: Math.hypot(x.miss, y.miss) };
+    }
+  }
+  return best;
+}

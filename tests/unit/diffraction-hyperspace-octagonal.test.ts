@@ -4,6 +4,8 @@ import { registerDiffractCommands } from '../../scripts/cli/diffract';
 import { hyperspacePeaks, octagonalPeaks, octagonalWindow } from '../../lib/diffraction/hyperspace';
 import { intensityAt } from '../../lib/diffraction/intensity-at';
 import { octagonalTiling } from '../../lib/tiling/octagonal';
+import { zone } from '../../lib/worker/engine';
+import { indexOctagonalSpot } from '../../lib/worker/zone-index';
 
 describe('hyperspace diffraction: octagonal (Ammann–Beenker) tiling from Z⁴', () => {
   it('ideal intensities are 8-fold symmetric: rotating Q∥ by 45° maps every peak onto a peak of equal intensity (the tiling has point symmetry 8mm)', () => {
@@ -107,6 +109,28 @@ describe('hyperspace diffraction: octagonal (Ammann–Beenker) tiling from Z⁴'
     expect(top.length).toBe(8);
     // |e_0 + e_1 + e_2|² = 3 + 2(cos 45° + cos 90° + cos 45°) = 3 + 2√2 = (1 + √2)².
     for (const p of top) expect(p.qParNorm).toBeCloseTo((Math.PI / 2) * (1 + Math.SQRT2), 5);
+  });
+
+  it('workspace zone pattern of a generated patch (beam ⊥ the tiling): the strongest spots get the four indices and |Q⊥| of the ideal module (Q∥ components m + n/√2, Q⊥ their conjugates m − n/√2)', () => {
+    const edge = 1.5;
+    const ideal = octagonalPeaks({ family: 'octagonal', aR: edge, qmax: 6, threshold: 1e-3 }).filter((p) => p.qParNorm > 0);
+    // Every ideal peak is recovered from its Q∥ alone.
+    for (const p of ideal.filter((x) => x.relative > 1)) {
+      const idx = indexOctagonalSpot([p.qPar[0], p.qPar[1]], edge, 1e-6)!;
+      expect(idx.h, `${p.indices}`).toEqual(p.indices);
+      expect(idx.qPerp).toBeCloseTo(p.qPerpNorm, 9);
+    }
+    const patch = octagonalTiling({ family: 'octagonal', radius: 30 * edge, edge });
+    const z = zone({ kind: 'zone', structure: patch, axis: '0,0,1', qmax: 6, slab: 0, radiation: 'xray' });
+    const strong = z.spots.filter((s) => s.intensity > 0.5);
+    expect(strong.length).toBeGreaterThanOrEqual(8);
+    for (const sp of strong) {
+      const match = ideal.find((p) => p.indices.join(' ') === sp.label);
+      expect(match, `spot ${sp.label} at ${sp.qPar}`).toBeDefined();
+      expect(Math.abs(sp.qPar - match!.qParNorm)).toBeLessThan(0.05);
+      expect(sp.qPerp!).toBeCloseTo(match!.qPerpNorm, 6);
+      expect(match!.relative).toBeGreaterThan(25);
+    }
   });
 
   it('refuses enumerations that are far too large, naming qmax', () => {
