@@ -28,7 +28,7 @@ import type { HyperlatticeType } from './hyperlattice';
 import { TAU, hyperlatticeCosets, hyperlatticeSteps, icosahedralBasis, icosahedralDirections, inHyperlattice } from './hyperlattice';
 import { Int6Set } from './icosa-hashset';
 import type { CutClass } from './icosa-cut';
-import { DEFAULT_MAX_POINTS, assertUnderCap, classWindows, siteClassesOf, vertexClass } from './icosa-cut';
+import { DEFAULT_MAX_POINTS, assertUnderCap, classWindows, projectShifted, siteClassesOf, vertexClass } from './icosa-cut';
 import type { Window } from './window';
 import { windowContains, windowVolume, zonotopeWindow } from './window';
 
@@ -135,21 +135,6 @@ interface CellCut {
   cls: number;
 }
 
-function perpUnits(n: ArrayLike<number>, s: ArrayLike<number>, M: Float64Array, out: Float64Array, o: number): void {
-  let x = 0;
-  let y = 0;
-  let z = 0;
-  for (let i = 0; i < 6; i++) {
-    const c = n[i] + s[i];
-    x += c * M[3 * i];
-    y += c * M[3 * i + 1];
-    z += c * M[3 * i + 2];
-  }
-  out[o] = x;
-  out[o + 1] = y;
-  out[o + 2] = z;
-}
-
 function seedCell(f: ApproximantFrame, lattice: HyperlatticeType, s: ArrayLike<number>, explore: Window): Int32Array | null {
   // The window is centred on the offset: look for the node whose strained image is nearest to it.
   const n = new Int32Array(6);
@@ -167,7 +152,7 @@ function seedCell(f: ApproximantFrame, lattice: HyperlatticeType, s: ArrayLike<n
       r = Math.floor(r / side);
     }
     if (lattice === 'F' && !inHyperlattice(n, 'F')) continue;
-    perpUnits(n, s, f.M, u, 0);
+    projectShifted(n, s, f.M, u, 0);
     if (!windowContains(explore, u[0], u[1], u[2])) continue;
     const d = Math.hypot(u[0] - c[0], u[1] - c[1], u[2] - c[2]);
     if (d < bestD) {
@@ -185,7 +170,7 @@ function cutCell(f: ApproximantFrame, lattice: HyperlatticeType, s: Float64Array
   if (!seed) return { shift: s, set, u, keep: new Int32Array(0), cls };
   reduce(seed, s, f.p, f.q);
   set.add(seed);
-  perpUnits(seed, s, f.M, u, 0);
+  projectShifted(seed, s, f.M, u, 0);
   const steps = hyperlatticeSteps(lattice === 'F' ? 'F' : 'P');
   const su = new Float64Array(3 * steps.length);
   steps.forEach((st, k) => {

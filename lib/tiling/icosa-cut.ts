@@ -77,3 +77,19 @@ export function siteClassesOf(classes: CutClass[]): SiteClass[] {
 }
 
 export { windowOuterRadius };
+
+/** (n + shift)·m for one 6D node, written at out[o..o+2]: m holds six 3D images (a projection, or a strained one). */
+export function projectShifted(n: ArrayLike<number>, shift: ArrayLike<number>, m: Float64Array, out: Float64Array, o: number): void {
+  let x = 0;
+  let y = 0;
+  let z = 0;
+  for (let i = 0; i < 6; i++) {
+    const c = n[i] + shift[i];
+    x += c * m[3 * i];
+    y += c * m[3 * i + 1];
+    z += c * m[3 * i + 2];
+  }
+  out[o] = x;
+  out[o + 1] = y;
+  out[o + 2] = z;
+}

@@ -20,7 +20,7 @@ import type { HyperlatticeType, IcosahedralBasis } from './hyperlattice';
 import { hyperlatticeCellVolume, hyperlatticeCosets, hyperlatticeSteps, icosahedralBasis, inHyperlattice, toHyper } from './hyperlattice';
 import { Int6Set } from './icosa-hashset';
 import type { CutClass } from './icosa-cut';
-import { DEFAULT_MAX_POINTS, assertUnderCap, classWindows, siteClassesOf, vertexClass } from './icosa-cut';
+import { DEFAULT_MAX_POINTS, assertUnderCap, classWindows, projectShifted, siteClassesOf, vertexClass } from './icosa-cut';
 import type { Window } from './window';
 import { windowContains, windowVolume, zonotopeWindow } from './window';
 
@@ -63,21 +63,6 @@ function stepImages(steps: Int8Array[], basis: IcosahedralBasis): { sp: Float64A
   return { sp, sq };
 }
 
-function imageOf(n: ArrayLike<number>, shift: ArrayLike<number>, m: Float64Array, out: Float64Array, o: number): void {
-  let x = 0;
-  let y = 0;
-  let z = 0;
-  for (let i = 0; i < 6; i++) {
-    const c = n[i] + shift[i];
-    x += c * m[3 * i];
-    y += c * m[3 * i + 1];
-    z += c * m[3 * i + 2];
-  }
-  out[o] = x;
-  out[o + 1] = y;
-  out[o + 2] = z;
-}
-
 /**
  * Seed: the hyperlattice node nearest to the 6D point (centre, offset) lies within the projected unit
  * cube of it, hence its perpendicular image is in W0 + offset; we scan its 3⁶ neighbourhood, nearest first,
@@ -98,9 +83,9 @@ function findSeed(basis: IcosahedralBasis, lattice: HyperlatticeType, shift: Arr
       r = Math.floor(r / 3);
     }
     if (lattice === 'F' && !inHyperlattice(n, 'F')) continue;
-    imageOf(n, shift, basis.perp, q, 0);
+    projectShifted(n, shift, basis.perp, q, 0);
     if (!windowContains(explore, q[0], q[1], q[2])) continue;
-    imageOf(n, shift, basis.par, p, 0);
+    projectShifted(n, shift, basis.par, p, 0);
     cand.push({ d: Math.hypot(p[0] - centre[0], p[1] - centre[1], p[2] - centre[2]), k, n: Int32Array.from(n) });
   }
   if (cand.length === 0) return null;
@@ -128,8 +113,8 @@ export function cutBall(
   let par = new Float64Array(3 * 1024);
   let perp = new Float64Array(3 * 1024);
   set.add(seed);
-  imageOf(seed, shift, basis.par, par, 0);
-  imageOf(seed, shift, basis.perp, perp, 0);
+  projectShifted(seed, shift, basis.par, par, 0);
+  projectShifted(seed, shift, basis.perp, perp, 0);
   const [cx, cy, cz] = centre;
   const d0 = Math.hypot(par[0] - cx, par[1] - cy, par[2] - cz);
   const lim = Math.max(radius, d0) + WALK_MARGIN * basis.aR;
@@ -170,8 +155,8 @@ export function cutBall(
         perp = gq;
       }
       // Recompute from integers rather than accumulate, so images never drift along long walks.
-      imageOf(m, shift, basis.par, par, 3 * idx);
-      imageOf(m, shift, basis.perp, perp, 3 * idx);
+      projectShifted(m, shift, basis.par, par, 3 * idx);
+      projectShifted(m, shift, basis.perp, perp, 3 * idx);
     }
   }
   const r2 = radius * radius * (1 + 2e-12);
