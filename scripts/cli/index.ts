@@ -9,6 +9,12 @@ import { registerSolidCommands } from './solid';
 import { registerDiffractCommands } from './diffract';
 import { CliError } from './errors';
 
+// `… | head` closes the pipe early; that is the reader's choice, not an error.
+process.stdout.on('error', (err: NodeJS.ErrnoException) => {
+  if (err.code === 'EPIPE') process.exit(0);
+  throw err;
+});
+
 const program = new Command();
 program
   .name('tauforge')
