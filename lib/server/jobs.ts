@@ -5,7 +5,8 @@ import { pathToFileURL } from 'node:url';
 import { ApiError } from './errors';
 
 const TIMEOUT_MS = 120_000;
-const MAX_BYTES = 512 * 1024 * 1024;
+// Below MariaDB's max_allowed_packet (256 MiB, set by db/server/mariadb.mjs) so the row can be stored.
+const MAX_BYTES = 200 * 1024 * 1024;
 
 export function runExportJob(params: unknown, format: string): Promise<Buffer> {
   // `next start`, `next dev` and vitest all run from the project root.
@@ -33,7 +34,7 @@ export function runExportJob(params: unknown, format: string): Promise<Buffer> {
       const msg = Buffer.concat(err).toString('utf8').trim().split('\n')[0]?.slice(0, 500) ?? '';
       if (code === 0) resolve(Buffer.concat(out));
       else if (code === 2) reject(new ApiError('unprocessable', `This revision cannot be generated: ${msg}`));
-      else if (signal) reject(new ApiError('unprocessable', size > MAX_BYTES ? 'The export would be larger than 512 MB; cut a smaller model.' : 'The export took longer than two minutes and was stopped; cut a smaller model.'));
+      else if (signal) reject(new ApiError('unprocessable', size > MAX_BYTES ? 'The export would be larger than 200 MB; cut a smaller model.' : 'The export took longer than two minutes and was stopped; cut a smaller model.'));
       else reject(new Error(`export worker failed (${code}): ${msg}`));
     });
     child.stdin.end(JSON.stringify({ params, format }));
