@@ -21,9 +21,10 @@
  * parallel images span the cell. Parallel positions keep the exact directions e_j, so the tiles are the
  * same unit rhombi; only the cut is tilted (a linear phason strain).
  */
-import { convexPolygon, polygonContains, type Polygon } from './planar-window';
+import { convexPolygon, type Polygon } from './planar-window';
 import { integerKernel, reduceBasis2 } from './planar-lattice';
 import { checkPointCap } from './planar-parse';
+import { ZTable } from './planar-table';
 
 export interface PlanarSpec {
   /** Hyperlattice dimension (4 or 5). */
@@ -99,27 +100,6 @@ function sliceWindow(P: number[][], n: number, c: number | null): Polygon | null
   return w && w.area > 1e-12 ? w : null;
 }
 
-/** Numeric key of K: base 2^b digits with offset, exact in a double. */
-function keyer(n: number) {
-  const bits = Math.floor(52 / n);
-  const base = 2 ** bits;
-  const half = base / 2;
-  return {
-    half,
-    key(K: ArrayLike<number>): number {
-      let k = 0;
-      for (let j = n - 1; j >= 0; j--) {
-        const v = K[j] + half;
-        if (v < 0 || v >= base) {
-          throw new RangeError(`radius: the patch is too large (hyperlattice index beyond ±${half - 1})`);
-        }
-        k = k * base + v;
-      }
-      return k;
-    },
-  };
-}
-
 /**
  * Period lattice of a rational cut: integer periods t1, t2 (P t = 0, and Σt = 0 with index levels) and their
  * parallel images a, b (edge 1), Lagrange–Gauss reduced.
@@ -154,34 +134,57 @@ export function buildPlanar(
     pg0 += perp[0][j] * gamma[j];
     pg1 += perp[1][j] * gamma[j];
   }
-  const windows = new Map<number, Polygon | null>();
-  const windowFor = (level: number): Polygon | null => {
-    if (!spec.levels) level = 0;
-    let w = windows.get(level);
-    if (w === undefined) {
-      const c = level - sumGamma;
-      w = spec.levels ? (c > 0 && c < n ? sliceWindow(perp, n, c) : null) : sliceWindow(perp, n, null);
-      windows.set(level, w);
-    }
-    return w;
-  };
+  // Windows by index level. With levels only ΣK ∈ (Σγ, Σγ + n) has a slice of positive width, so the
+  // levels lo … lo + n + 1 (lo = ⌊Σγ⌋) cover every non-empty window; all others are null.
+  const lo = spec.levels ? Math.floor(sumGamma) : 0;
+  const wins: (Polygon | null)[] = [];
+  for (let level = lo; level <= (spec.levels ? lo + n + 1 : lo); level++) {
+    const c = level - sumGamma;
+    wins.push(spec.levels ? (c > 0 && c < n ? sliceWindow(perp, n, c) : null) : sliceWindow(perp, n, null));
+  }
+  // Edges of all windows in flat arrays (window w: edges wOff[w] … wOff[w+1]; none when it is null).
+  const nW = wins.length, levels = spec.levels;
+  const wOff = new Int32Array(nW + 1);
+  for (let w = 0; w < nW; w++) wOff[w + 1] = wOff[w] + (wins[w]?.support.length ?? 0);
+  const WN = new Float64Array(2 * wOff[nW]), WS = new Float64Array(wOff[nW]), WT = new Float64Array(wOff[nW]);
+  const WC = new Uint8Array(wOff[nW]);
+  for (let w = 0; w < nW; w++) {
+    const p = wins[w];
+    if (!p) continue;
+    WN.set(p.normals, 2 * wOff[w]);
+    WS.set(p.support, wOff[w]);
+    WC.set(p.closed, wOff[w]);
+    WT.fill(p.tol, wOff[w], wOff[w + 1]);
+  }
+  const P0 = Float64Array.from(perp[0]), P1 = Float64Array.from(perp[1]);
+  const E0 = Float64Array.from(par[0]), E1 = Float64Array.from(par[1]);
   const inV = (K: ArrayLike<number>): boolean => {
     let lev = 0, x = -pg0, y = -pg1;
     for (let j = 0; j < n; j++) {
       lev += K[j];
-      x += perp[0][j] * K[j];
-      y += perp[1][j] * K[j];
+      x += P0[j] * K[j];
+      y += P1[j] * K[j];
     }
-    const w = windowFor(lev);
-    return w !== null && polygonContains(w, x, y);
+    const w = levels ? lev - lo : 0;
+    if (w < 0 || w >= nW) return false;
+    // polygonContains (planar-window.ts) on the flattened edges of window w.
+    for (let e = wOff[w], end = wOff[w + 1]; e < end; e++) {
+      const d = WN[2 * e] * x + WN[2 * e + 1] * y - WS[e];
+      if (d > WT[e]) return false;
+      if (d >= -WT[e] && !WC[e]) return false;
+    }
+    return wOff[w + 1] > wOff[w];
   };
-  const px = (K: ArrayLike<number>) => {
+  // Parallel position of K into (pxX, pxY); no allocation.
+  let pxX = 0, pxY = 0;
+  const px = (K: ArrayLike<number>): void => {
     let x = 0, y = 0;
     for (let j = 0; j < n; j++) {
-      x += par[0][j] * K[j];
-      y += par[1][j] * K[j];
+      x += E0[j] * K[j];
+      y += E1[j] * K[j];
     }
-    return [x, y] as [number, number];
+    pxX = x;
+    pxY = y;
   };
 
   // Region to search and the cell, if any.
@@ -189,9 +192,11 @@ export function buildPlanar(
   let periods: [number[], number[]] | undefined;
   let inRegion: (x: number, y: number) => boolean;
   let reduce: ((K: Int32Array) => void) | undefined;
+  let estimate: number;
   if ('radius' in extent) {
     const R = extent.radius;
-    checkPointCap(spec.density * Math.PI * (R + 1) ** 2, maxPoints, `a patch of radius ${R}`);
+    estimate = spec.density * Math.PI * (R + 1) ** 2;
+    checkPointCap(estimate, maxPoints, `a patch of radius ${R}`);
     const R2 = (R + 2) ** 2;
     inRegion = (x, y) => x * x + y * y <= R2;
   } else {
@@ -200,21 +205,21 @@ export function buildPlanar(
     cell = red.a;
     const [[ax, ay], [bx, by]] = cell;
     const det = ax * by - ay * bx;
-    checkPointCap(spec.density * Math.abs(det), maxPoints, 'the approximant cell');
+    estimate = spec.density * Math.abs(det);
+    checkPointCap(estimate, maxPoints, 'the approximant cell');
     // Fractional coordinates f = x·B⁻¹ with B rows a, b.
-    const frac = (x: number, y: number): [number, number] => [(x * by - y * bx) / det, (ay * x - ax * y) / -det];
     const mA = 2.5 / Math.hypot(ax, ay) / Math.abs(Math.sin(Math.atan2(by, bx) - Math.atan2(ay, ax)));
     const mB = 2.5 / Math.hypot(bx, by) / Math.abs(Math.sin(Math.atan2(by, bx) - Math.atan2(ay, ax)));
     inRegion = (x, y) => {
-      const [f, g] = frac(x, y);
+      const f = (x * by - y * bx) / det, g = (ay * x - ax * y) / -det;
       return f >= -mA && f <= 1 + mA && g >= -mB && g <= 1 + mB;
     };
-    const [t1, t2] = periods;
+    const t1 = Int32Array.from(periods[0]), t2 = Int32Array.from(periods[1]);
     // Representative of K modulo T: fractional coordinates in [−1e-9, 1 − 1e-9). Exact algebraic positions
     // never sit within 1e-9 of that shifted edge, so translates of one vertex always pick the same one.
     reduce = (K) => {
-      const [x, y] = px(K);
-      const [f, g] = frac(x, y);
+      px(K);
+      const f = (pxX * by - pxY * bx) / det, g = (ay * pxX - ax * pxY) / -det;
       const i = Math.floor(f + 1e-9), k = Math.floor(g + 1e-9);
       if (i === 0 && k === 0) return;
       for (let j = 0; j < n; j++) K[j] -= i * t1[j] + k * t2[j];
@@ -223,7 +228,6 @@ export function buildPlanar(
 
   // Start: a vertex near the origin, among K_j ∈ ⌈γ_j⌉ + {−1, 0, 1} (the mesh of the dual grid at the
   // origin is one of them); the closest to the origin, ties by lexicographic K.
-  const { key } = keyer(n);
   let start: Int32Array | null = null;
   let best = Infinity;
   const cand = new Int32Array(n);
@@ -234,8 +238,8 @@ export function buildPlanar(
       c = Math.floor(c / 3);
     }
     if (!inV(cand)) continue;
-    const [x, y] = px(cand);
-    const d = Math.round((x * x + y * y) * 1e9);
+    px(cand);
+    const d = Math.round((pxX * pxX + pxY * pxY) * 1e9);
     if (d < best) {
       best = d;
       start = cand.slice();
@@ -243,89 +247,211 @@ export function buildPlanar(
   }
   if (!start) throw new Error('gamma: no vertex found near the origin (internal error)');
 
-  // Breadth-first search over ±δ_j within the region.
-  const seen = new Map<number, number>();
-  let idx: number[] = [];
-  const push = (K: Int32Array) => {
-    seen.set(key(K), idx.length / n);
-    for (let j = 0; j < n; j++) idx.push(K[j]);
-  };
-  push(start);
-  const K = new Int32Array(n);
-  for (let head = 0; head < idx.length / n; head++) {
-    for (let s = 0; s < 2 * n; s++) {
-      for (let j = 0; j < n; j++) K[j] = idx[head * n + j];
-      K[s >> 1] += s & 1 ? -1 : 1;
-      if (seen.has(key(K)) || !inV(K)) continue;
-      const [x, y] = px(K);
-      if (!inRegion(x, y)) continue;
-      push(K);
+  // Breadth-first search over ±δ_j within the region. Step s changes K_{s>>1} by +1 (s even) or −1 (s odd);
+  // nb[2n·v + s] records what lies there: a searched vertex's index, −1 (not a vertex: outside the window)
+  // or −2 (a vertex outside the search region). The tile pass reads its corner tests from this table.
+  const n2 = 2 * n;
+  const half = 2 ** Math.floor(52 / n) / 2;
+  const seen = new ZTable(n, Math.min(Math.ceil(1.2 * estimate) + 64, 4 * maxPoints + 1000));
+  let nb = new Int32Array(n2 * (seen.pts.length / n));
+  let vx = new Float64Array(seen.pts.length / n), vy = new Float64Array(seen.pts.length / n);
+  const add = (K: Int32Array): number => {
+    const i = seen.insert(K);
+    if (i >= vx.length) {
+      const m = 2 * vx.length;
+      const nb2 = new Int32Array(n2 * m);
+      nb2.set(nb);
+      nb = nb2;
+      const x2 = new Float64Array(m), y2 = new Float64Array(m);
+      x2.set(vx);
+      y2.set(vy);
+      vx = x2;
+      vy = y2;
     }
-    if (idx.length / n > 4 * maxPoints + 1000) throw new Error('maxPoints: search grew past the estimate (internal error)');
-  }
-
-  // Tiles. Quasiperiodic: faces with centre within R. Approximant: faces whose base K is a cell representative.
-  const reps = new Map<number, number>();
-  const outIdx: number[] = [];
-  const kinds: number[] = [];
-  const corners: number[] = [];
-  const A = new Int32Array(n), B = new Int32Array(n), C = new Int32Array(n);
-  const vertexOf = (V: Int32Array): number => {
-    const W = V.slice();
-    if (reduce) reduce(W);
-    const k = key(W);
-    let i = reps.get(k);
-    if (i === undefined) {
-      i = outIdx.length / n;
-      reps.set(k, i);
-      for (let j = 0; j < n; j++) outIdx.push(W[j]);
-    }
+    vx[i] = pxX;
+    vy[i] = pxY;
     return i;
   };
-  let bases: number[] = idx;
-  if (reduce) {
-    // Cell representatives among the searched vertices, in search order.
-    const keep = new Map<number, number>();
-    const list: number[] = [];
-    const W = new Int32Array(n);
-    for (let v = 0; v < idx.length / n; v++) {
-      for (let j = 0; j < n; j++) W[j] = idx[v * n + j];
-      reduce(W);
-      const k = key(W);
-      if (keep.has(k)) continue;
-      keep.set(k, list.length);
-      for (let j = 0; j < n; j++) list.push(W[j]);
-    }
-    bases = list;
-  }
-  idx = [];
-  const R = 'radius' in extent ? extent.radius : 0;
-  for (let v = 0; v < bases.length / n; v++) {
-    for (let j = 0; j < n; j++) K[j] = bases[v * n + j];
-    if (reduce) vertexOf(K);
-    for (let a = 0; a < n; a++) {
-      for (let b = a + 1; b < n; b++) {
-        A.set(K);
-        A[a]++;
-        C.set(A);
-        C[b]++;
-        B.set(K);
-        B[b]++;
-        if (!inV(A) || !inV(B) || !inV(C)) continue;
-        if (!reduce) {
-          const [x, y] = px(K);
-          const cx = x + (par[0][a] + par[0][b]) / 2, cy = y + (par[1][a] + par[1][b]) / 2;
-          if (cx * cx + cy * cy > R * R) continue;
+  px(start);
+  add(start);
+  const K = new Int32Array(n);
+  for (let head = 0; head < seen.size; head++) {
+    const pts = seen.pts;
+    for (let j = 0; j < n; j++) K[j] = pts[head * n + j];
+    for (let s = 0; s < n2; s++) {
+      // K = head ± δ_{s>>1}; the step is undone at the end of the iteration.
+      const dj = s >> 1, step = s & 1 ? -1 : 1;
+      const kj = (K[dj] += step);
+      // Only K_{s>>1} moved, and the head was in range: its range check stands for the whole of K. The
+      // searched set holds window points only, so outside the window there is nothing to look up.
+      if (kj < -half || kj >= half) seen.find(K);
+      let r = -1;
+      if (inV(K)) {
+        r = seen.find(K);
+        if (r < 0) {
+          px(K);
+          r = inRegion(pxX, pxY) ? add(K) : -2;
         }
-        kinds.push(spec.kindOf(a, b));
-        // Corners counter-clockwise: K, K+δ_a, K+δ_a+δ_b, K+δ_b when det(e_a, e_b) > 0, else reversed.
-        if (par[0][a] * par[1][b] - par[1][a] * par[0][b] > 0) corners.push(vertexOf(K), vertexOf(A), vertexOf(C), vertexOf(B));
-        else corners.push(vertexOf(K), vertexOf(B), vertexOf(C), vertexOf(A));
+      }
+      nb[head * n2 + s] = r;
+      K[dj] -= step;
+    }
+    if (seen.size > 4 * maxPoints + 1000) throw new Error('maxPoints: search grew past the estimate (internal error)');
+  }
+  const nV = seen.size;
+  const vpts = seen.pts;
+
+  // Output vertices in order of first use as a tile corner: outOf[v] for searched vertices, `extra` (with
+  // extraOut) for the rare corner outside the search region.
+  let outIdx = new Int32Array(n * Math.max(16, nV));
+  let nOut = 0;
+  const emit = (V: ArrayLike<number>, o: number): number => {
+    if ((nOut + 1) * n > outIdx.length) {
+      const b = new Int32Array(2 * outIdx.length);
+      b.set(outIdx);
+      outIdx = b;
+    }
+    for (let j = 0; j < n; j++) outIdx[nOut * n + j] = V[o + j];
+    return nOut++;
+  };
+  const kindAB = new Int32Array(n * n), ccwAB = new Uint8Array(n * n);
+  for (let a = 0; a < n; a++) {
+    for (let b = a + 1; b < n; b++) {
+      kindAB[a * n + b] = spec.kindOf(a, b);
+      ccwAB[a * n + b] = par[0][a] * par[1][b] - par[1][a] * par[0][b] > 0 ? 1 : 0;
+    }
+  }
+  // About one tile per vertex (Euler), so the estimate rarely needs a regrow.
+  let kinds = new Uint8Array(Math.max(1024, Math.ceil(1.1 * Math.min(estimate, maxPoints))));
+  let corners = new Uint32Array(4 * kinds.length);
+  let nT = 0;
+  const pushTile = (kd: number, c0: number, c1: number, c2: number, c3: number) => {
+    if (nT >= kinds.length) {
+      const k2 = new Uint8Array(2 * kinds.length);
+      k2.set(kinds);
+      kinds = k2;
+      const c2a = new Uint32Array(2 * corners.length);
+      c2a.set(corners);
+      corners = c2a;
+    }
+    kinds[nT] = kd;
+    corners[4 * nT] = c0;
+    corners[4 * nT + 1] = c1;
+    corners[4 * nT + 2] = c2;
+    corners[4 * nT + 3] = c3;
+    nT++;
+  };
+  const A = new Int32Array(n), B = new Int32Array(n), C = new Int32Array(n);
+
+  if (!reduce) {
+    // Quasiperiodic: faces with centre within R, bases in search order.
+    const R = (extent as { radius: number }).radius;
+    const outOf = new Int32Array(nV).fill(-1);
+    const extra = new ZTable(n, 64);
+    const extraOut: number[] = [];
+    const outSearched = (v: number): number => {
+      let o = outOf[v];
+      if (o < 0) o = outOf[v] = emit(vpts, v * n);
+      return o;
+    };
+    const outOther = (V: Int32Array): number => {
+      const v = seen.find(V);
+      if (v >= 0) return outSearched(v);
+      let e = extra.find(V);
+      if (e < 0) {
+        e = extra.insert(V);
+        extraOut.push(emit(V, 0));
+      }
+      return extraOut[e];
+    };
+    // Output index of corner K_v + δ_d1 (+ δ_d2 when d2 ≥ 0), searched index i or −2 / −3 when not searched.
+    const corner = (i: number, v: number, V: Int32Array, d1: number, d2: number): number => {
+      if (i >= 0) return outSearched(i);
+      for (let j = 0; j < n; j++) V[j] = vpts[v * n + j];
+      V[d1]++;
+      if (d2 >= 0) V[d2]++;
+      return outOther(V);
+    };
+    for (let v = 0; v < nV; v++) {
+      const row = v * n2;
+      for (let a = 0; a < n; a++) {
+        const ia = nb[row + 2 * a];
+        if (ia === -1) continue;
+        for (let b = a + 1; b < n; b++) {
+          const ib = nb[row + 2 * b];
+          if (ib === -1) continue;
+          // C = K + δ_a + δ_b: known from either neighbour's row when that neighbour was searched.
+          const ic = ia >= 0 ? nb[ia * n2 + 2 * b] : ib >= 0 ? nb[ib * n2 + 2 * a] : -3;
+          if (ic === -1) continue;
+          if (ic === -3) {
+            for (let j = 0; j < n; j++) C[j] = vpts[v * n + j];
+            C[a]++;
+            C[b]++;
+            if (!inV(C)) continue;
+          }
+          const cx = vx[v] + (par[0][a] + par[0][b]) / 2, cy = vy[v] + (par[1][a] + par[1][b]) / 2;
+          if (cx * cx + cy * cy > R * R) continue;
+          // Corners counter-clockwise: K, K+δ_a, K+δ_a+δ_b, K+δ_b when det(e_a, e_b) > 0, else reversed.
+          // Output indices are assigned in that call order.
+          const oK = outSearched(v);
+          let oA: number, oB: number, oC: number;
+          if (ccwAB[a * n + b]) {
+            oA = corner(ia, v, A, a, -1);
+            oC = ic >= 0 ? outSearched(ic) : corner(-1, v, C, a, b);
+            oB = corner(ib, v, B, b, -1);
+            pushTile(kindAB[a * n + b], oK, oA, oC, oB);
+          } else {
+            oB = corner(ib, v, B, b, -1);
+            oC = ic >= 0 ? outSearched(ic) : corner(-1, v, C, a, b);
+            oA = corner(ia, v, A, a, -1);
+            pushTile(kindAB[a * n + b], oK, oB, oC, oA);
+          }
+        }
+      }
+    }
+  } else {
+    // Approximant: faces whose base K is a cell representative; vertices are cell representatives too.
+    const red = reduce;
+    const reps = new ZTable(n, Math.max(64, Math.ceil(estimate)));
+    const repOut: number[] = [];
+    const W = new Int32Array(n);
+    const vertexOf = (V: Int32Array): number => {
+      W.set(V);
+      red(W);
+      let i = reps.find(W);
+      if (i < 0) {
+        i = reps.insert(W);
+        repOut.push(emit(W, 0));
+      }
+      return repOut[i];
+    };
+    // Cell representatives among the searched vertices, in search order.
+    const keep = new ZTable(n, Math.max(64, Math.ceil(estimate)));
+    for (let v = 0; v < nV; v++) {
+      for (let j = 0; j < n; j++) W[j] = vpts[v * n + j];
+      red(W);
+      if (keep.find(W) < 0) keep.insert(W);
+    }
+    for (let v = 0; v < keep.size; v++) {
+      for (let j = 0; j < n; j++) K[j] = keep.pts[v * n + j];
+      vertexOf(K);
+      for (let a = 0; a < n; a++) {
+        for (let b = a + 1; b < n; b++) {
+          A.set(K);
+          A[a]++;
+          C.set(A);
+          C[b]++;
+          B.set(K);
+          B[b]++;
+          if (!inV(A) || !inV(B) || !inV(C)) continue;
+          if (ccwAB[a * n + b]) pushTile(kindAB[a * n + b], vertexOf(K), vertexOf(A), vertexOf(C), vertexOf(B));
+          else pushTile(kindAB[a * n + b], vertexOf(K), vertexOf(B), vertexOf(C), vertexOf(A));
+        }
       }
     }
   }
 
-  const N = outIdx.length / n;
+  const N = nOut;
   checkPointCap(N, maxPoints, 'the tiling');
   const xy = new Float64Array(2 * N);
   const pp = new Float64Array(2 * N);
@@ -349,10 +475,10 @@ export function buildPlanar(
   return {
     xy,
     perp: pp,
-    index: Int32Array.from(outIdx),
+    index: outIdx.slice(0, n * N),
     level,
-    kind: Uint8Array.from(kinds),
-    corners: Uint32Array.from(corners),
+    kind: kinds.slice(0, nT),
+    corners: corners.slice(0, 4 * nT),
     cell,
     periods,
   };

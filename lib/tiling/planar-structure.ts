@@ -30,7 +30,12 @@ export function planarStructure(
   if (useLevels) {
     const levels = Array.from(new Set(r.level)).sort((a, b) => a - b);
     siteClasses = levels.map((l) => ({ name: `index ${l}`, species: 0 }));
-    site = Uint16Array.from(r.level, (l) => levels.indexOf(l));
+    // Class of each level by a table over the (few, consecutive-ish) levels present.
+    const low = levels[0];
+    const classOf = new Uint16Array(levels[levels.length - 1] - low + 1);
+    levels.forEach((l, i) => (classOf[l - low] = i));
+    site = new Uint16Array(N);
+    for (let i = 0; i < N; i++) site[i] = classOf[r.level[i] - low];
   } else {
     siteClasses = [{ name: 'vertex', species: 0 }];
     site = new Uint16Array(N);
