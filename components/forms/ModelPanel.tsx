@@ -4,7 +4,7 @@
  * from that schema and the expected number of points before anything is generated.
  */
 import { useMemo } from 'react';
-import { Field } from './SchemaFields';
+import { Field, FieldFamily } from './SchemaFields';
 import { introspect, issuesByPath } from './introspect';
 import { FAMILIES, FAMILY_NAMES, FRAME_KEYS, ICO_MODES, icoMode, schemaFor, starterParams, validate, withIcoMode, type Params } from './families';
 
@@ -70,7 +70,9 @@ export function ModelPanel({ params, onChange, engineErrors }: ModelPanelProps) 
         </fieldset>
       ) : null}
       {info ? (
-        <Field name="" path={[]} info={info} value={params} errors={errors} skip={skip} onChange={(v) => onChange({ ...(v as Params), family: params.family, ...(params.mode ? { mode: params.mode } : {}) })} />
+        <FieldFamily.Provider value={params.family}>
+          <Field name="" path={[]} info={info} value={params} errors={errors} skip={skip} onChange={(v) => onChange({ ...(v as Params), family: params.family, ...(params.mode ? { mode: params.mode } : {}) })} />
+        </FieldFamily.Provider>
       ) : (
         <p className="rounded-md border border-brass bg-brass-pale p-2 text-sm">The {params.family} engine has not arrived in this build yet; pick another family.</p>
       )}

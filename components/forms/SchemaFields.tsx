@@ -4,7 +4,7 @@
  * lists of site classes, occupation-domain shapes. Every control has a label, its unit, and the schema's
  * message for it, shown inline as soon as the value is wrong.
  */
-import { useId, useState } from 'react';
+import { createContext, useContext, useId, useState } from 'react';
 import type { FieldInfo } from './introspect';
 import { initialValue } from './introspect';
 import { labelOf } from './labels';
@@ -19,7 +19,12 @@ export interface FieldProps {
   /** Keys not to draw (only at the top level). */
   skip?: Set<string>;
   labelOverride?: string;
+  /** Allowed values shown inside a group's box (see Label.groupHint). */
+  groupHint?: string;
 }
+
+/** The model family being edited, for wording that differs by family (labels.ts). */
+export const FieldFamily = createContext<string | undefined>(undefined);
 
 const inputCls =
   'w-full rounded-md border border-rule bg-card px-2 py-1 text-sm text-ink focus:border-tide aria-[invalid=true]:border-clay aria-[invalid=true]:bg-clay-pale/40';
@@ -74,13 +79,14 @@ function joinPath(p: (string | number)[]): string {
 
 const TUPLE_NAMES: Record<number, string[]> = { 2: ['x', 'y'], 3: ['x', 'y', 'z'], 6: ['1', '2', '3', '4', '5', '6'] };
 
-export function Field({ name, path, info, value, onChange, errors, skip, labelOverride }: FieldProps) {
+export function Field({ name, path, info, value, onChange, errors, skip, labelOverride, groupHint: groupHintProp }: FieldProps) {
   const uid = useId();
+  const family = useContext(FieldFamily);
   const key = joinPath(path);
   const id = `f-${key || 'root'}-${uid.replace(/:/g, '')}`;
   const errId = `${id}-err`;
   const err = errors.get(key);
-  const { label, unit, hint } = labelOf(name);
+  const { label, unit, hint, group, groupHint } = labelOf(name, family);
   const title = labelOverride ?? label;
   const s = info.shape;
   const labelEl = (
@@ -99,7 +105,7 @@ export function Field({ name, path, info, value, onChange, errors, skip, labelOv
           <input type="checkbox" checked={on} onChange={(e) => onChange(e.target.checked ? defaultFor(name, info) : undefined)} className="accent-tide" />
           {title}
         </label>
-        {on ? <Field {...{ name, path, value, onChange, errors }} info={{ ...info, optional: false }} labelOverride={labelOverride} /> : <Hint text={hint} />}
+        {on ? <Field {...{ name, path, value, onChange, errors }} info={{ ...info, optional: false }} labelOverride={labelOverride ?? group} groupHint={groupHint} /> : <Hint text={hint} />}
         <ErrorText id={errId} message={on ? undefined : err} />
       </div>
     );
@@ -226,6 +232,7 @@ export function Field({ name, path, info, value, onChange, errors, skip, labelOv
         <fieldset className="rounded-md border border-rule p-2">
           <legend className="px-1 text-xs font-semibold text-ink">{title}</legend>
           {body}
+          {!err && groupHintProp ? <Hint text={groupHintProp} /> : null}
         </fieldset>
       );
     }

@@ -3,6 +3,10 @@ export interface Label {
   label: string;
   unit?: string;
   hint?: string;
+  /** Title of the box an optional group opens into, when the switch's own words would only repeat. */
+  group?: string;
+  /** Allowed values, shown inside that box. */
+  groupHint?: string;
 }
 
 export const LABELS: Record<string, Label> = {
@@ -28,7 +32,7 @@ export const LABELS: Record<string, Label> = {
   mix: { label: 'Mixed occupancy', hint: 'Element → fraction; fractions sum to at most 1.' },
   occupancy: { label: 'Occupancy', unit: '0–1' },
   edge: { label: 'Edge length', unit: 'Å' },
-  approximant: { label: 'Periodic approximant' },
+  approximant: { label: 'Periodic approximant', group: 'Order p/q', groupHint: 'Convergents of τ: 1/1, 2/1, 3/2, 5/3, 8/5 …' },
   p: { label: 'p' },
   q: { label: 'q' },
   gamma: { label: 'Grid offsets γ', hint: 'Σγ = 0 gives the tiling proper.' },
@@ -40,6 +44,13 @@ export const LABELS: Record<string, Label> = {
   c: { label: 'Period along the axis', unit: 'Å' },
 };
 
-export function labelOf(key: string): Label {
-  return LABELS[key] ?? { label: key.replace(/([a-z])([A-Z])/g, '$1 $2').replace(/^./, (c) => c.toUpperCase()) };
+/** Wording that differs by model family (the octagonal tiling's approximants follow 1+√2, not τ). */
+const FAMILY_LABELS: Record<string, Record<string, Partial<Label>>> = {
+  octagonal: { approximant: { groupHint: 'Convergents of 1+√2 (Pell ratios): 2/1, 5/2, 12/5, 29/12 …' } },
+};
+
+export function labelOf(key: string, family?: string): Label {
+  const base = LABELS[key] ?? { label: key.replace(/([a-z])([A-Z])/g, '$1 $2').replace(/^./, (c) => c.toUpperCase()) };
+  const own = family ? FAMILY_LABELS[family]?.[key] : undefined;
+  return own ? { ...base, ...own } : base;
 }

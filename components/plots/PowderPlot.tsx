@@ -8,8 +8,10 @@ import type { PowderCurve } from '@/lib/worker/protocol';
 import type { CompareResult } from '@/lib/diffraction/compare';
 import { csv, saveSvgPng, saveText } from '@/components/workspace/downloads';
 
+// A wide, low frame: with the measured-pattern box above it the whole plot, x axis included, stays in view
+// on a 1280×800 screen; the peak table scrolls below.
 const W = 900;
-const H = 380;
+const H = 300;
 const M = { l: 52, r: 12, t: 10, b: 34 };
 
 function path(xs: ArrayLike<number>, ys: ArrayLike<number>, X: (x: number) => number, Y: (y: number) => number): string {
@@ -64,30 +66,40 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
 
   return (
     <div className="space-y-2">
-      <div className="flex flex-wrap items-center gap-3 text-xs">
-        <span className="inline-flex items-center gap-1">
-          <span className="inline-block h-0.5 w-4 bg-tide" /> calculated (λ = {curve.wavelength.toFixed(4)} Å)
-        </span>
+      {/* One row: the legend (which may wrap within its own box), then R values and the buttons, which never wrap. */}
+      <div className="flex items-center gap-3 text-xs">
+        <div className="flex min-w-0 flex-1 flex-wrap items-center gap-x-3 gap-y-0.5">
+          <span className="inline-flex items-center gap-1">
+            <span className="inline-block h-0.5 w-4 bg-tide" /> calculated (λ = {curve.wavelength.toFixed(4)} Å)
+          </span>
+          {comparison ? (
+            <>
+              <span className="inline-flex min-w-0 items-center gap-1">
+                <span className="inline-block h-2 w-2 shrink-0 rounded-full bg-ink" />
+                <span className="max-w-64 truncate" title={measuredName}>
+                  measured{measuredName ? `: ${measuredName}` : ''}
+                </span>
+              </span>
+              <span className="inline-flex items-center gap-1">
+                <span className="inline-block h-0.5 w-4 bg-clay" /> difference
+              </span>
+            </>
+          ) : null}
+        </div>
         {comparison ? (
-          <>
-            <span className="inline-flex items-center gap-1">
-              <span className="inline-block h-2 w-2 rounded-full bg-ink" /> measured{measuredName ? `: ${measuredName}` : ''}
-            </span>
-            <span className="inline-flex items-center gap-1">
-              <span className="inline-block h-0.5 w-4 bg-clay" /> difference
-            </span>
-            <span className="font-mono" data-testid="rwp">
-              R_wp = {(100 * comparison.rwp).toFixed(1)} %
-            </span>
-            <span className="font-mono">R_p = {(100 * comparison.rp).toFixed(1)} %</span>
-          </>
+          <span className="flex shrink-0 gap-3 whitespace-nowrap font-mono">
+            <span data-testid="rwp">R_wp = {(100 * comparison.rwp).toFixed(1)} %</span>
+            <span>R_p = {(100 * comparison.rp).toFixed(1)} %</span>
+          </span>
         ) : null}
-        <button type="button" className="ml-auto rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={() => svgRef.current && void saveSvgPng(svgRef.current, `${fileBase}-powder.png`)}>
-          Save PNG
-        </button>
-        <button type="button" className="rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={exportCsv}>
-          CSV
-        </button>
+        <span className="flex shrink-0 gap-2">
+          <button type="button" className="rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={() => svgRef.current && void saveSvgPng(svgRef.current, `${fileBase}-powder.png`)}>
+            Save PNG
+          </button>
+          <button type="button" className="rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={exportCsv}>
+            CSV
+          </button>
+        </span>
       </div>
       <svg ref={svgRef} viewBox={`0 0 ${W} ${H}`} className="w-full rounded-md border border-rule bg-card" role="img" aria-label="Powder pattern">
         <rect x={0} y={0} width={W} height={H} fill="#fffdf8" />

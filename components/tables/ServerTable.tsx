@@ -71,7 +71,8 @@ export function ServerTable<T>(props: ServerTableProps<T>) {
       )}
       <div className="overflow-x-auto rounded-lg border border-rule bg-card">
         <table className="w-full text-left text-sm" aria-label={props.label}>
-          <thead className="border-b border-rule bg-paper text-xs uppercase tracking-wide text-ink-soft">
+          {/* Mixed case for every header: sort buttons do not inherit text-transform, so plain headers must not have one either. */}
+          <thead className="border-b border-rule bg-paper text-xs tracking-wide text-ink-soft">
             {table.getHeaderGroups().map((hg) => (
               <tr key={hg.id}>
                 {hg.headers.map((h) => {

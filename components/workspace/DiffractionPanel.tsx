@@ -233,7 +233,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
               </select>
             ) : null}
             {measured ? (
-              <span className="text-xs text-ink-soft">
+              <span className="min-w-0 break-all text-xs text-ink-soft">
                 {measured.name}: {measured.data.x.length} points{measured.data.axis !== '2theta' ? ` (read as ${measured.data.axis === 'q' ? '|Q|' : 'd'}, converted to 2θ)` : ''}
                 <button type="button" className="ml-2 text-clay underline" onClick={() => setMeasured(null)}>
                   remove
@@ -258,9 +258,15 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
               </span>
             ) : null}
           </div>
-          <Progress label="Powder" running={powder.running} stage={powder.stage} fraction={powder.fraction} startedAt={powder.startedAt} onCancel={powder.cancel} />
           {powder.error ? <p className="text-sm text-clay">{powder.error.message}</p> : null}
-          {powder.result ? <PowderPlot curve={powder.result} comparison={comparison} measuredName={measured?.name} fileBase={fileBase} /> : <p className="text-sm text-ink-soft">Compute the powder pattern; open a measured one to lay over it.</p>}
+          {/* The progress strip lies over the top of the plot while a profile is computed, so it leaves no empty
+              band above the plot the rest of the time (and lets clicks through when idle). */}
+          <div className="relative">
+            <div className={`absolute inset-x-0 top-0 z-10 rounded-md ${powder.running ? 'bg-card/95 px-2' : 'pointer-events-none'}`}>
+              <Progress label="Powder" running={powder.running} stage={powder.stage} fraction={powder.fraction} startedAt={powder.startedAt} onCancel={powder.cancel} />
+            </div>
+            {powder.result ? <PowderPlot curve={powder.result} comparison={comparison} measuredName={measured?.name} fileBase={fileBase} /> : <p className="py-2 text-sm text-ink-soft">Compute the powder pattern; open a measured one to lay over it.</p>}
+          </div>
         </div>
       )}
     </div>
