@@ -432,11 +432,51 @@ export function buildPlanar(
       red(W);
       if (keep.find(W) < 0) keep.insert(W);
     }
+    // Output index of searched vertex i's representative, cached (vertexOf is idempotent).
+    const repOf = new Int32Array(nV).fill(-1);
+    const vertexOfSearched = (i: number): number => {
+      let o = repOf[i];
+      if (o < 0) {
+        for (let j = 0; j < n; j++) C[j] = vpts[i * n + j];
+        o = repOf[i] = vertexOf(C);
+      }
+      return o;
+    };
     for (let v = 0; v < keep.size; v++) {
       for (let j = 0; j < n; j++) K[j] = keep.pts[v * n + j];
       vertexOf(K);
+      // Corner tests from the neighbour table when the representative was searched (it nearly always is).
+      const sv = seen.find(K);
       for (let a = 0; a < n; a++) {
         for (let b = a + 1; b < n; b++) {
+          const kd = kindAB[a * n + b];
+          if (sv >= 0) {
+            const row = sv * n2;
+            const ia = nb[row + 2 * a], ib = nb[row + 2 * b];
+            if (ia === -1 || ib === -1) continue;
+            const ic = ia >= 0 ? nb[ia * n2 + 2 * b] : ib >= 0 ? nb[ib * n2 + 2 * a] : -3;
+            if (ic === -1) continue;
+            A.set(K);
+            A[a]++;
+            C.set(A);
+            C[b]++;
+            B.set(K);
+            B[b]++;
+            if (ic === -3 && !inV(C)) continue;
+            const oK = vertexOf(K);
+            if (ccwAB[a * n + b]) {
+              const oA = ia >= 0 ? vertexOfSearched(ia) : vertexOf(A);
+              const oC = ic >= 0 ? vertexOfSearched(ic) : vertexOf(C);
+              const oB = ib >= 0 ? vertexOfSearched(ib) : vertexOf(B);
+              pushTile(kd, oK, oA, oC, oB);
+            } else {
+              const oB = ib >= 0 ? vertexOfSearched(ib) : vertexOf(B);
+              const oC = ic >= 0 ? vertexOfSearched(ic) : vertexOf(C);
+              const oA = ia >= 0 ? vertexOfSearched(ia) : vertexOf(A);
+              pushTile(kd, oK, oB, oC, oA);
+            }
+            continue;
+          }
           A.set(K);
           A[a]++;
           C.set(A);
@@ -444,8 +484,8 @@ export function buildPlanar(
           B.set(K);
           B[b]++;
           if (!inV(A) || !inV(B) || !inV(C)) continue;
-          if (ccwAB[a * n + b]) pushTile(kindAB[a * n + b], vertexOf(K), vertexOf(A), vertexOf(C), vertexOf(B));
-          else pushTile(kindAB[a * n + b], vertexOf(K), vertexOf(B), vertexOf(C), vertexOf(A));
+          if (ccwAB[a * n + b]) pushTile(kd, vertexOf(K), vertexOf(A), vertexOf(C), vertexOf(B));
+          else pushTile(kd, vertexOf(K), vertexOf(B), vertexOf(C), vertexOf(A));
         }
       }
     }
