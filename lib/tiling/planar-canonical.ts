@@ -250,16 +250,18 @@ export function buildPlanar(
   // Breadth-first search over ±δ_j within the region. Step s changes K_{s>>1} by +1 (s even) or −1 (s odd);
   // nb[2n·v + s] records what lies there: a searched vertex's index, −1 (not a vertex: outside the window)
   // or −2 (a vertex outside the search region). The tile pass reads its corner tests from this table.
+  // An edge found from one end is written into the other end's row too (−4 marks "not yet known"), so each
+  // edge is looked up once.
   const n2 = 2 * n;
   const half = 2 ** Math.floor(52 / n) / 2;
   const seen = new ZTable(n, Math.min(Math.ceil(1.2 * estimate) + 64, 4 * maxPoints + 1000));
-  let nb = new Int32Array(n2 * (seen.pts.length / n));
+  let nb = new Int32Array(n2 * (seen.pts.length / n)).fill(-4);
   let vx = new Float64Array(seen.pts.length / n), vy = new Float64Array(seen.pts.length / n);
   const add = (K: Int32Array): number => {
     const i = seen.insert(K);
     if (i >= vx.length) {
       const m = 2 * vx.length;
-      const nb2 = new Int32Array(n2 * m);
+      const nb2 = new Int32Array(n2 * m).fill(-4);
       nb2.set(nb);
       nb = nb2;
       const x2 = new Float64Array(m), y2 = new Float64Array(m);
@@ -279,6 +281,7 @@ export function buildPlanar(
     const pts = seen.pts;
     for (let j = 0; j < n; j++) K[j] = pts[head * n + j];
     for (let s = 0; s < n2; s++) {
+      if (nb[head * n2 + s] !== -4) continue;
       // K = head ± δ_{s>>1}; the step is undone at the end of the iteration.
       const dj = s >> 1, step = s & 1 ? -1 : 1;
       const kj = (K[dj] += step);
@@ -294,6 +297,7 @@ export function buildPlanar(
         }
       }
       nb[head * n2 + s] = r;
+      if (r > head) nb[r * n2 + (s ^ 1)] = head;
       K[dj] -= step;
     }
     if (seen.size > 4 * maxPoints + 1000) throw new Error('maxPoints: search grew past the estimate (internal error)');
