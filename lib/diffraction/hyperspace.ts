@@ -158,33 +158,34 @@ export function penroseWindows(a: number): { level: number; vertices: number[]; 
   ];
 }
 
-export function penrosePeaks(o: HyperOptions): HyperPeak[] {
-  check(o);
-  const a = o.aR;
-  const wins = penroseWindows(a);
-  const total = wins.reduce((s, w) => s + w.area, 0);
-  const qperpMax = o.qperpMax ?? 12 / a;
-  const f = (4 * Math.PI) / (5 * a);
-  const ex = [0, 1, 2, 3, 4].map((j) => Math.cos((2 * Math.PI * j) / 5));
-  const ey = [0, 1, 2, 3, 4].map((j) => Math.sin((2 * Math.PI * j) / 5));
-  const px = [0, 1, 2, 3, 4].map((j) => Math.cos((4 * Math.PI * j) / 5));
-  const py = [0, 1, 2, 3, 4].map((j) => Math.sin((4 * Math.PI * j) / 5));
-  // |Q∥|² + |Q⊥|² = f²·(5/2)·(|h|² − (Σh)²/5) ≥ f²|h|²/2 with h_5 = 0 (Cauchy–Schwarz on four entries).
-  const r2 = (2 * (o.qmax ** 2 + qperpMax ** 2)) / (f * f);
-  guard(((Math.PI * Math.PI) / 2) * r2 * r2); // volume of the 4-ball of radius √r2
-  const peaks: HyperPeak[] = [];
-  const g0 = factor(o, 0);
-  const h = [0, 0, 0, 0, 0];
-  const m0 = Math.floor(Math.sqrt(r2));
+/**
+ * Walk the rank-4 Fourier module of a planar tiling: every h ∈ Z⁴ with |h|² ≤ r2 (the caller's bound
+ * from |Q∥|² + |Q⊥|²), Q∥ = f·Σ h_j (ex_j, ey_j) and Q⊥ = f·Σ h_j (px_j, py_j), keeping those with
+ * |Q∥| ≤ qmax and |Q⊥| ≤ qperpMax. The small slack on the square roots keeps points lying exactly on
+ * the bound.
+ */
+function forEachPlanarModulePoint(
+  r2: number,
+  f: number,
+  ex: readonly number[],
+  ey: readonly number[],
+  px: readonly number[],
+  py: readonly number[],
+  qmax: number,
+  qperpMax: number,
+  visit: (h: number[], qx: number, qy: number, rx: number, ry: number, qp: number, qq: number) => void,
+): void {
+  const h = [0, 0, 0, 0];
+  const m0 = Math.floor(Math.sqrt(r2) + 1e-9);
   for (h[0] = -m0; h[0] <= m0; h[0]++) {
     const l1 = r2 - h[0] * h[0];
-    const m1 = Math.floor(Math.sqrt(l1));
+    const m1 = Math.floor(Math.sqrt(Math.max(l1, 0)) + 1e-9);
     for (h[1] = -m1; h[1] <= m1; h[1]++) {
       const l2 = l1 - h[1] * h[1];
-      const m2 = Math.floor(Math.sqrt(l2));
+      const m2 = Math.floor(Math.sqrt(Math.max(l2, 0)) + 1e-9);
       for (h[2] = -m2; h[2] <= m2; h[2]++) {
         const l3 = l2 - h[2] * h[2];
-        const m3 = Math.floor(Math.sqrt(l3));
+        const m3 = Math.floor(Math.sqrt(Math.max(l3, 0)) + 1e-9);
         for (h[3] = -m3; h[3] <= m3; h[3]++) {
           let qx = 0;
           let qy = 0;
@@ -202,26 +203,47 @@ export function penrosePeaks(o: HyperOptions): HyperPeak[] {
           ry *= f;
           const qp = Math.hypot(qx, qy);
           const qq = Math.hypot(rx, ry);
-          if (qp > o.qmax + 1e-12 || qq > qperpMax) continue;
-          const sh = h[0] + h[1] + h[2] + h[3];
-          let re = 0;
-          let im = 0;
-          for (const w of wins) {
-            const [ar, ai] = polygonTransform(w.vertices, [0, 0], [rx, ry]);
-            const ph = (-2 * Math.PI * w.level * sh) / 5;
-            const c = Math.cos(ph);
-            const s = Math.sin(ph);
-            re += (w.area / total) * (ar * c - ai * s);
-            im += (w.area / total) * (ar * s + ai * c);
-          }
-          const g = factor(o, qp);
-          re *= g;
-          im *= g;
-          peaks.push({ indices: h.slice(0, 4), qPar: [qx, qy], qParNorm: qp, qPerp: [rx, ry], qPerpNorm: qq, re, im, intensity: re * re + im * im, relative: 0 });
+          if (qp > qmax + 1e-12 || qq > qperpMax) continue;
+          visit(h, qx, qy, rx, ry, qp, qq);
         }
       }
     }
   }
+}
+
+export function penrosePeaks(o: HyperOptions): HyperPeak[] {
+  check(o);
+  const a = o.aR;
+  const wins = penroseWindows(a);
+  const total = wins.reduce((s, w) => s + w.area, 0);
+  const qperpMax = o.qperpMax ?? 12 / a;
+  const f = (4 * Math.PI) / (5 * a);
+  const ex = [0, 1, 2, 3, 4].map((j) => Math.cos((2 * Math.PI * j) / 5));
+  const ey = [0, 1, 2, 3, 4].map((j) => Math.sin((2 * Math.PI * j) / 5));
+  const px = [0, 1, 2, 3, 4].map((j) => Math.cos((4 * Math.PI * j) / 5));
+  const py = [0, 1, 2, 3, 4].map((j) => Math.sin((4 * Math.PI * j) / 5));
+  // |Q∥|² + |Q⊥|² = f²·(5/2)·(|h|² − (Σh)²/5) ≥ f²|h|²/2 with h_5 = 0 (Cauchy–Schwarz on four entries).
+  const r2 = (2 * (o.qmax ** 2 + qperpMax ** 2)) / (f * f);
+  guard(((Math.PI * Math.PI) / 2) * r2 * r2); // volume of the 4-ball of radius √r2
+  const peaks: HyperPeak[] = [];
+  const g0 = factor(o, 0);
+  forEachPlanarModulePoint(r2, f, ex, ey, px, py, o.qmax, qperpMax, (h, qx, qy, rx, ry, qp, qq) => {
+    const sh = h[0] + h[1] + h[2] + h[3];
+    let re = 0;
+    let im = 0;
+    for (const w of wins) {
+      const [ar, ai] = polygonTransform(w.vertices, [0, 0], [rx, ry]);
+      const ph = (-2 * Math.PI * w.level * sh) / 5;
+      const c = Math.cos(ph);
+      const s = Math.sin(ph);
+      re += (w.area / total) * (ar * c - ai * s);
+      im += (w.area / total) * (ar * s + ai * c);
+    }
+    const g = factor(o, qp);
+    re *= g;
+    im *= g;
+    peaks.push({ indices: h.slice(), qPar: [qx, qy], qParNorm: qp, qPerp: [rx, ry], qPerpNorm: qq, re, im, intensity: re * re + im * im, relative: 0 });
+  });
   return finish(peaks, o, g0);
 }
 
@@ -271,45 +293,14 @@ export function octagonalPeaks(o: HyperOptions): HyperPeak[] {
   guard(((Math.PI * Math.PI) / 2) * r2 * r2); // volume of the 4-ball of radius √r2
   const peaks: HyperPeak[] = [];
   const g0 = factor(o, 0);
-  const h = [0, 0, 0, 0];
-  const m0 = Math.floor(Math.sqrt(r2) + 1e-9);
-  for (h[0] = -m0; h[0] <= m0; h[0]++) {
-    const l1 = r2 - h[0] * h[0];
-    const m1 = Math.floor(Math.sqrt(l1) + 1e-9);
-    for (h[1] = -m1; h[1] <= m1; h[1]++) {
-      const l2 = l1 - h[1] * h[1];
-      const m2 = Math.floor(Math.sqrt(l2) + 1e-9);
-      for (h[2] = -m2; h[2] <= m2; h[2]++) {
-        const l3 = l2 - h[2] * h[2];
-        const m3 = Math.floor(Math.sqrt(Math.max(l3, 0)) + 1e-9);
-        for (h[3] = -m3; h[3] <= m3; h[3]++) {
-          let qx = 0;
-          let qy = 0;
-          let rx = 0;
-          let ry = 0;
-          for (let j = 0; j < 4; j++) {
-            qx += h[j] * ex[j];
-            qy += h[j] * ey[j];
-            rx += h[j] * px[j];
-            ry += h[j] * py[j];
-          }
-          qx *= f;
-          qy *= f;
-          rx *= f;
-          ry *= f;
-          const qp = Math.hypot(qx, qy);
-          const qq = Math.hypot(rx, ry);
-          if (qp > o.qmax + 1e-12 || qq > qperpMax) continue;
-          // Σ_K e^{iQ∥·x_K} = Σ_K e^{−iQ⊥·y_K} (Q·X = 2π h·K), so F/N = (1/|W|)∫_W e^{−iQ⊥·y} dy.
-          const [ar, ai] = polygonTransform(win.vertices, win.centre, [rx, ry]);
-          const g = factor(o, qp);
-          const re = ar * g;
-          const im = ai * g;
-          peaks.push({ indices: h.slice(), qPar: [qx, qy], qParNorm: qp, qPerp: [rx, ry], qPerpNorm: qq, re, im, intensity: re * re + im * im, relative: 0 });
-        }
-      }
-    }
-  }
+  forEachPlanarModulePoint(r2, f, ex, ey, px, py, o.qmax, qperpMax, (h, qx, qy, rx, ry, qp, qq) => {
+    // Σ_K e^{iQ∥·x_K} = Σ_K e^{−iQ⊥·y_K} (Q·X = 2π h·K), so F/N = (1/|W|)∫_W e^{−iQ⊥·y} dy.
+    const [ar, ai] = polygonTransform(win.vertices, win.centre, [rx, ry]);
+    const g = factor(o, qp);
+    const re = ar * g;
+    const im = ai * g;
+    peaks.push({ indices: h.slice(), qPar: [qx, qy], qParNorm: qp, qPerp: [rx, ry], qPerpNorm: qq, re, im, intensity: re * re + im * im, relative: 0 });
+  });
   return finish(peaks, o, g0);
 }
 
