@@ -58,26 +58,18 @@ export class DiffractionPool {
   }
 
   async hklPartialSums(frac: Float64Array, groupOf: Uint16Array, weight: Float64Array, rows: HklRows, nGroups: number): Promise<{ re: Float64Array; im: Float64Array }> {
-    const n = groupOf.length;
-    const t = this.threads;
-    const outs = (await Promise.all(
-      this.workers.map((w, i) => this.run(w, { kind: 'hkl', frac, groupOf, weight, rows, nGroups, j0: Math.floor((n * i) / t), j1: Math.floor((n * (i + 1)) / t) })),
-    )) as { re: Float64Array; im: Float64Array }[];
-    const { re, im } = outs[0];
-    for (const o of outs.slice(1)) {
-      for (let i = 0; i < re.length; i++) {
-        re[i] += o.re[i];
-        im[i] += o.im[i];
-      }
-    }
-    return { re, im };
+    return this.summedOverAtoms(groupOf.length, (j0, j1) => ({ kind: 'hkl', frac, groupOf, weight, rows, nGroups, j0, j1 }));
   }
 
   async gridPartialSums(positions: Float64Array, groupOf: Uint16Array, weight: Float64Array, grid: PlaneGrid, nGroups: number): Promise<{ re: Float64Array; im: Float64Array }> {
-    const n = groupOf.length;
+    return this.summedOverAtoms(groupOf.length, (j0, j1) => ({ kind: 'grid', positions, groupOf, weight, grid, nGroups, j0, j1 }));
+  }
+
+  /** Split atoms 0…n into one contiguous range per worker and add the workers' partial complex sums. */
+  private async summedOverAtoms(n: number, job: (j0: number, j1: number) => DiffractionJob): Promise<{ re: Float64Array; im: Float64Array }> {
     const t = this.threads;
     const outs = (await Promise.all(
-      this.workers.map((w, i) => this.run(w, { kind: 'grid', positions, groupOf, weight, grid, nGroups, j0: Math.floor((n * i) / t), j1: Math.floor((n * (i + 1)) / t) })),
+      this.workers.map((w, i) => this.run(w, job(Math.floor((n * i) / t), Math.floor((n * (i + 1)) / t)))),
     )) as { re: Float64Array; im: Float64Array }[];
     const { re, im } = outs[0];
     for (const o of outs.slice(1)) {
