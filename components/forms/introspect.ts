@@ -3,6 +3,7 @@
  * follows the shared schemas in lib/params, so a field added there shows up here without a code change.
  */
 import type { z } from 'zod';
+import { fieldMessages } from '@/lib/zod-text';
 
 export type FieldShape =
   | { kind: 'number'; integer: boolean; min?: number; max?: number }
@@ -159,11 +160,5 @@ export function initialValue(f: FieldInfo): unknown {
 
 /** zod issues → "a.b.0.c" → first message, for inline display beside each control. */
 export function issuesByPath(error: z.ZodError | undefined): Map<string, string> {
-  const m = new Map<string, string>();
-  if (!error) return m;
-  for (const i of error.issues) {
-    const k = i.path.map(String).join('.');
-    if (!m.has(k)) m.set(k, i.message);
-  }
-  return m;
+  return new Map(error ? Object.entries(fieldMessages(error)) : []);
 }

@@ -10,6 +10,7 @@ import { ZonePattern } from '@/components/plots/ZonePattern';
 import { PowderPlot } from '@/components/plots/PowderPlot';
 import { useJob } from './useJob';
 import { Progress } from './Progress';
+import { fieldMessages } from '@/lib/zod-text';
 
 const input = 'rounded-md border border-rule bg-card px-2 py-1 text-sm aria-[invalid=true]:border-clay';
 const btn = 'rounded-md bg-tide px-3 py-1 text-sm font-medium text-white hover:bg-tide-deep disabled:opacity-50';
@@ -44,7 +45,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
   const powder = useJob<'powder'>('diffraction');
 
   const zoneCheck = zoneParamsSchema.safeParse({ axis: axis.replace(/\s+/g, ''), qmax: Number(qmax) });
-  const zoneErr = new Map(zoneCheck.success ? [] : zoneCheck.error.issues.map((i) => [String(i.path[0]), i.message] as [string, string]));
+  const zoneErr = new Map(zoneCheck.success ? [] : Object.entries(fieldMessages(zoneCheck.error)));
   let lambda: number | null = null;
   let wlErr: string | null = null;
   try {

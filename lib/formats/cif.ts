@@ -5,7 +5,8 @@ import type { Cell, Structure } from '../structure/types';
 import { validateStructure } from '../structure/validate';
 import { cifNumber, findLoop, parseCif, type CifBlock, type CifValue } from './cif-syntax';
 import { FormatError } from './errors';
-import { canonicalJson, fixed } from './number';
+import { canonicalJson } from './canonical-json';
+import { fixed } from './number';
 import { applySymop, parseSymop, type SymOp } from './symop';
 
 export interface CifWriteOptions {

@@ -3,7 +3,8 @@ import { symbolOf } from '../structure/elements';
 import type { Cell, Structure } from '../structure/types';
 import { perpDimension, validateStructure } from '../structure/validate';
 import { FormatError, splitLines } from './errors';
-import { canonicalJson, fixed, parseNumber } from './number';
+import { canonicalJson } from './canonical-json';
+import { fixed, parseNumber } from './number';
 import { parseSpeciesToken } from './xyz';
 
 const F = 'extended XYZ';

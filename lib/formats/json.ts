@@ -3,7 +3,8 @@ import { symbolOf, tryAtomicNumber } from '../structure/elements';
 import type { Cell, SiteClass, Structure } from '../structure/types';
 import { perpDimension, validateStructure } from '../structure/validate';
 import { FormatError } from './errors';
-import { canonicalJson, fixed } from './number';
+import { canonicalJson } from './canonical-json';
+import { fixed } from './number';
 
 /**
  * Tauforge JSON: keys in this order

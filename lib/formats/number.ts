@@ -10,23 +10,6 @@ export function fixed(x: number, decimals: number = COORD_DECIMALS): string {
   return /^-0\.?0*$/.test(s) ? s.slice(1) : s;
 }
 
-/** Compact JSON with object keys sorted, so the same value always gives the same bytes. */
-export function canonicalJson(value: unknown): string {
-  return JSON.stringify(sortKeys(value)) ?? 'null';
-}
-
-function sortKeys(v: unknown): unknown {
-  if (Array.isArray(v)) return v.map(sortKeys);
-  if (ArrayBuffer.isView(v) && !(v instanceof DataView)) return Array.from(v as unknown as ArrayLike<number>);
-  if (v !== null && typeof v === 'object') {
-    const o = v as Record<string, unknown>;
-    const out: Record<string, unknown> = {};
-    for (const k of Object.keys(o).sort()) out[k] = sortKeys(o[k]);
-    return out;
-  }
-  return v;
-}
-
 /** Parse a decimal number token strictly (no trailing junk, no empty string); NaN when invalid. */
 export function parseNumber(token: string): number {
   if (!/^[+-]?(\d+\.?\d*|\.\d+)([eEdD][+-]?\d+)?$/.test(token)) return NaN;

@@ -3,7 +3,8 @@ import { MAX_Z, symbolOf, tryAtomicNumber } from '../structure/elements';
 import type { Structure } from '../structure/types';
 import { validateStructure } from '../structure/validate';
 import { FormatError, splitLines } from './errors';
-import { canonicalJson, fixed, parseNumber } from './number';
+import { canonicalJson } from './canonical-json';
+import { fixed, parseNumber } from './number';
 
 const COMMENT_PREFIX = 'Tauforge';
 

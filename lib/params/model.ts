@@ -4,6 +4,7 @@
  * approximant). Each family's own fields live in that engine's schema module.
  */
 import { z } from 'zod';
+import { zodText } from '../zod-text';
 import { chainParamsSchema } from './chain';
 import { planarParamsSchema } from './planar';
 import { decagonalParamsSchema } from './decagonal';
@@ -41,7 +42,7 @@ export type ModelParamsInput = z.input<typeof modelParamsSchema>;
 export function parseModelParams(input: unknown): ModelParams {
   const r = modelParamsSchema.safeParse(input);
   if (!r.success) {
-    throw new Error(r.error.issues.map((i) => `${i.path.join('.') || 'params'}: ${i.message}`).join('; '));
+    throw new Error(zodText(r.error, 'params'));
   }
   return r.data;
 }

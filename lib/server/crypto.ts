@@ -1,5 +1,6 @@
 /** Hashes, random tokens and signed links. Clear secrets never reach the database or the logs. */
 import { createHash, createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
+import { canonicalJson } from '../formats/canonical-json';
 
 export function sha256Hex(data: string | Uint8Array): string {
   return createHash('sha256').update(data).digest('hex');
@@ -10,20 +11,9 @@ export function randomToken(bytes = 32): string {
 }
 
 /**
- * Canonical JSON: object keys sorted by code unit, no whitespace, arrays in order. Two params
- * objects that differ only in key order hash the same (the export provenance relies on it).
+ * sha256 of the params' canonical JSON (the same function that writes them into each file's
+ * provenance): two params objects that differ only in key order hash the same.
  */
-export function canonicalJson(value: unknown): string {
-  if (value === null || typeof value !== 'object') {
-    if (typeof value === 'number' && !Number.isFinite(value)) throw new Error('canonical JSON cannot hold NaN or Infinity');
-    return JSON.stringify(value) ?? 'null';
-  }
-  if (Array.isArray(value)) return `[${value.map((v) => canonicalJson(v === undefined ? null : v)).join(',')}]`;
-  const obj = value as Record<string, unknown>;
-  const keys = Object.keys(obj).filter((k) => obj[k] !== undefined).sort();
-  return `{${keys.map((k) => `${JSON.stringify(k)}:${canonicalJson(obj[k])}`).join(',')}}`;
-}
-
 export function paramsHash(params: unknown): string {
   return sha256Hex(canonicalJson(params));
 }

@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import { ApiError } from './errors';
 import { resolveActor, type Actor } from './actor';
+import { fieldMessages } from '../zod-text';
 
 export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(body), {
@@ -28,12 +29,7 @@ export function errorResponse(err: unknown): Response {
 
 /** Field errors from zod as `{path: message}` pairs. */
 export function fieldErrors(error: z.ZodError): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const issue of error.issues) {
-    const key = issue.path.join('.') || '(body)';
-    if (!out[key]) out[key] = issue.message;
-  }
-  return out;
+  return fieldMessages(error, '(body)');
 }
 
 export function parseWith<T extends z.ZodType>(schema: T, value: unknown, what = 'request body'): z.infer<T> {

@@ -1,4 +1,5 @@
 import type { ZodType } from 'zod';
+import { zodText } from '../zod-text';
 
 /**
  * Validate generator input with its zod schema; on failure throw a RangeError whose message names each
@@ -8,8 +9,7 @@ import type { ZodType } from 'zod';
 export function parseParams<T>(schema: ZodType<T>, input: unknown, what: string): T {
   const r = schema.safeParse(input);
   if (r.success) return r.data;
-  const msg = r.error.issues.map((i) => `${i.path.join('.') || 'input'}: ${i.message}`).join('; ');
-  throw new RangeError(`${what}: ${msg}`);
+  throw new RangeError(`${what}: ${zodText(r.error)}`);
 }
 
 /** Fail before allocating when the estimated output is larger than the caller allows. */

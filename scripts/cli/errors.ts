@@ -1,4 +1,5 @@
-import { ZodError } from 'zod';
+import type { ZodError } from 'zod';
+import { zodText } from '../../lib/zod-text';
 
 /** An error the user caused (bad flag, bad file); printed as one line, exit code 2. */
 export class CliError extends Error {
@@ -9,5 +10,5 @@ export class CliError extends Error {
 
 /** Turn a zod error into one readable line naming each bad field. */
 export function zodMessage(err: ZodError): string {
-  return err.issues.map((i) => `${i.path.join('.') || 'input'}: ${i.message}`).join('; ');
+  return zodText(err);
 }

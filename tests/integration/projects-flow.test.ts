@@ -14,7 +14,7 @@ import * as datasetsRoute from '../../app/api/projects/[id]/datasets/route';
 import { resetRateLimits } from '../../lib/server/ratelimit';
 import { call, FIB, makeInvitation, makeProject, makeUser, type TestUser } from './api-fixtures';
 import { jsonDiff } from '../../lib/server/json-diff';
-import { canonicalJson } from '../../lib/server/crypto';
+import { canonicalJson } from '../../lib/formats/canonical-json';
 
 let owner: TestUser;
 let editor: TestUser;
