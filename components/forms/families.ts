@@ -1,11 +1,15 @@
 /**
- * Which shared schema (lib/params) edits and validates each model family. The workspace's form is drawn from
+ * Which family schema (lib/models/<family>/schema.ts) edits and validates each model family. The workspace's form is drawn from
  * these schemas; the params object keeps `family` (and, for icosahedral models, `mode`) beside the fields.
  */
 import type { z } from 'zod';
-import { FAMILIES, type Family } from '@/lib/params/model';
-import { decagonalModelSchema, fibonacciModelSchema, icosahedralApproximantModelSchema, icosahedralPatchModelSchema, planarModelSchema } from '@/lib/params/model';
-import { STARTERS } from '@/lib/params/starters';
+import { FAMILIES, type Family } from '@/lib/models/params';
+import { chainModelSchema } from '@/lib/models/chain/schema';
+import { penroseModelSchema } from '@/lib/models/penrose/schema';
+import { octagonalModelSchema } from '@/lib/models/octagonal/schema';
+import { decagonalModelSchema } from '@/lib/models/decagonal/schema';
+import { icosahedralApproximantModelSchema, icosahedralPatchModelSchema } from '@/lib/models/icosahedral/schema';
+import { STARTERS } from '@/lib/models/starters';
 
 export type Params = Record<string, unknown> & { family: string };
 
@@ -33,10 +37,11 @@ export function icoMode(p: Params): IcoMode {
 export function schemaFor(p: Params): z.ZodType | null {
   switch (p.family) {
     case 'fibonacci':
-      return fibonacciModelSchema;
+      return chainModelSchema;
     case 'penrose':
+      return penroseModelSchema;
     case 'octagonal':
-      return planarModelSchema;
+      return octagonalModelSchema;
     case 'decagonal':
       return decagonalModelSchema;
     case 'icosahedral':

@@ -5,18 +5,17 @@
  * phason offset).
  */
 import type { Structure } from '@/lib/structure/types';
-import { icosahedralBasis } from '@/lib/tiling/hyperlattice';
-import { scaleWindow, windowContains, zonotopeWindow, type Window } from '@/lib/tiling/window';
+import { icosahedralBasis } from '@/lib/models/icosahedral/hyperlattice';
+import { scaleWindow, windowContains, zonotopeWindow, type Window } from '@/lib/models/icosahedral/window';
 
 export type PerpMark = 0 | 1 | 2; // 0 inside, 1 near the boundary, 2 outside the ideal window
 
 /** The ideal icosahedral window for these params (triacontahedron of a_R, shifted by the phason offset). */
 export function idealWindow(s: Structure): Window | null {
   if (s.perpDim !== 3) return null;
-  const p = s.provenance.params as { aR?: unknown; offset?: unknown; family?: unknown } | null;
-  if (!p || p.family !== 'icosahedral' || typeof p.aR !== 'number') return null;
-  const off = Array.isArray(p.offset) && p.offset.length === 3 ? (p.offset as number[]) : [0, 0, 0];
-  return zonotopeWindow(icosahedralBasis(p.aR).perp, { centre: off });
+  const p = s.model;
+  if (p?.family !== 'icosahedral') return null;
+  return zonotopeWindow(icosahedralBasis(p.aR).perp, { centre: p.offset });
 }
 
 /** Boundary band: inside the window but outside the window shrunk by this factor. */

@@ -6,7 +6,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { send, ApiClientError } from '@/components/tables/api';
 import { Field, Notice, buttonClass, inputClass } from '@/components/auth/ui';
-import type { Starter } from '@/lib/params/starters';
+import type { Starter } from '@/lib/models/starters';
 
 const formSchema = z.object({
   name: z.string().trim().min(1, 'enter a name').max(120, 'at most 120 characters'),

@@ -72,7 +72,7 @@ export interface ViewerPanelProps {
  * decagonal stacks (whose tenfold or stacking axis is z) get [uvw] directions only.
  */
 function hasIcosahedralAxes(structure: Structure): boolean {
-  const family = (structure.provenance?.params as { family?: unknown } | undefined)?.family;
+  const family = structure.model?.family;
   return family === undefined || family === 'icosahedral';
 }
 

@@ -2,7 +2,7 @@
 /** Zone-axis patterns and powder profiles of the current cut, with a measured pattern to compare against. */
 import { useMemo, useState } from 'react';
 import type { Structure } from '@/lib/structure/types';
-import { zoneParamsSchema } from '@/lib/params/diffraction';
+import { zoneParamsSchema } from '@/lib/diffraction/params';
 import { parseWavelength } from '@/lib/diffraction/wavelengths';
 import { readMeasured, type MeasuredPattern } from '@/lib/formats/measured';
 import { comparePatterns } from '@/lib/diffraction/compare';

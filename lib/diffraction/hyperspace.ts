@@ -26,13 +26,14 @@
  *    I: Σh even — hyperlattice.ts item 4), with Cahn–Shechtman–Gratias indices and N, M (indexing.ts).
  *    One window per node means the amplitude is the window transform for every allowed h.
  */
-import { icosahedralBasis, inReciprocalLattice, reciprocalBasis, TAU, type HyperlatticeType } from '../tiling/hyperlattice';
+import { icosahedralBasis, inReciprocalLattice, reciprocalBasis, type HyperlatticeType } from '../models/icosahedral/hyperlattice';
+import { TAU } from '../math/golden';
 import type { Radiation } from './form-factors';
 import { scatteringFactor } from './form-factors';
 import { intervalTransform, polygonTransform, symmetricBodyTransform, zonotopeBody } from './window-transform';
 import { csgFromHyper } from './indexing';
-import { octagonalSpec } from '../tiling/octagonal';
-import { convexPolygon } from '../tiling/planar-window';
+import { octagonalSpec } from '../models/octagonal/generate';
+import { convexPolygon } from '../models/planar/window';
 
 export type HyperFamily = 'fibonacci' | 'penrose' | 'octagonal' | 'icosahedral';
 

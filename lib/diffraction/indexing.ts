@@ -12,7 +12,7 @@
  *   h = n1 − n2, h' = n5 + n6;   k = n3 − n4, k' = n1 + n2;   l = n5 − n6, l' = n3 + n4,
  * and Q∥ = (π / (aR √(2+τ))) · (h + h'τ, k + k'τ, l + l'τ) in Å⁻¹.
  */
-import { TAU } from '../tiling/hyperlattice';
+import { TAU } from '../math/golden';
 
 export interface CsgIndex {
   /** [h, h', k, k', l, l']. */

@@ -17,7 +17,7 @@
  * parallel to the beam, e2 = axis × e1 (deterministic).
  */
 import type { Structure, Vec3 } from '../structure/types';
-import { TAU } from '../tiling/hyperlattice';
+import { TAU } from '../math/golden';
 import type { Radiation } from './form-factors';
 import { groupAtoms, groupFactor } from './scatterers';
 import { gridPartialSums, type PlaneGrid } from './cartesian-sum';

@@ -8,7 +8,7 @@
 import type { Structure } from '../structure/types';
 import { writeStructure } from '../formats/write';
 import type { StructureFormat } from '../formats/read';
-import { generate } from '../generate';
+import { generate } from '../models';
 import { braggPowder } from '../diffraction/powder';
 import { peakTableCsv } from '../diffraction/peak-table';
 import { XRAY_LINES } from '../diffraction/wavelengths';

@@ -1,8 +1,8 @@
 /** Projects: create from a starter, list, read with lineage, change settings, delete, fork. */
 import { z } from 'zod';
 import type { Knex } from 'knex';
-import { modelParamsSchema } from '../params/model';
-import { STARTERS } from '../params/starters';
+import { modelParamsSchema } from '../models/params';
+import { STARTERS } from '../models/starters';
 import { db } from './db';
 import { ApiError, notFound } from './errors';
 import { authorize, canRead, permissions, type ProjectAccess, type ProjectRole, type Visibility } from './authz';

@@ -3,6 +3,8 @@
  * Coordinates are Cartesian, in ångström, packed x y z x y z … in a Float64Array.
  * 1D and 2D models (chains, tilings) use the same type with z (and y) = 0.
  */
+import type { ModelParams } from '../models/params';
+
 export type Vec3 = [number, number, number];
 /** Lattice vectors a, b, c as rows, in Å. */
 export type Cell = [Vec3, Vec3, Vec3];
@@ -62,6 +64,8 @@ export interface Structure {
   tiles?: TileSet;
   /** What generation did that the user should know: clusters placed, atoms merged. */
   notes?: string[];
+  /** The validated model this cut was generated from (absent for structures read from files). */
+  model?: ModelParams;
   provenance: Provenance;
 }
 

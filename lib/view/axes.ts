@@ -12,7 +12,8 @@
  * normal of the plane (hkl) is the reciprocal vector h·a* + k·b* + l·c*, a* = (b × c)/V and cyclic
  * (so a_i·a_j* = δ_ij, no 2π). Without a cell both read the three integers as Cartesian x y z.
  */
-import { icosahedralDirections, TAU } from '../tiling/hyperlattice';
+import { icosahedralDirections } from '../models/icosahedral/hyperlattice';
+import { TAU } from '../math/golden';
 import type { Cell } from '../structure/types';
 import { add, cross, dot, normalize, scale, type Vec3 } from './vec';
 

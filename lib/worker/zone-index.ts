@@ -6,7 +6,7 @@
  * because the window transform makes small-|Q⊥| reflections the strong ones. From τ² = τ + 1,
  * Σ(τh − h')² = τ²N − τM, the |Q⊥|² of indexing.ts's qSquaredFromNM.
  */
-import { TAU } from '../tiling/hyperlattice';
+import { TAU } from '../math/golden';
 import { csgFromHyper, hyperFromCsg } from '../diffraction/indexing';
 
 export interface SpotIndex {

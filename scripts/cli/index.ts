@@ -1,12 +1,15 @@
 /**
  * Tauforge command line: `npm run -s cli -- COMMAND [flags]`.
  * Results go to stdout; errors go to stderr with a non-zero exit code.
- * Each command family registers itself from its own module.
+ * Each command registers itself from commands/<command>.ts.
  */
 import { Command, CommanderError } from 'commander';
-import { registerTilingCommands } from './tiling';
-import { registerSolidCommands } from './solid';
-import { registerDiffractCommands } from './diffract';
+import { registerConvergents } from './commands/convergents';
+import { registerChain } from './commands/chain';
+import { registerTiling } from './commands/tiling';
+import { registerPatch } from './commands/patch';
+import { registerApproximant } from './commands/approximant';
+import { registerDiffract } from './commands/diffract';
 import { CliError } from './errors';
 
 // `… | head` closes the pipe early; that is the reader's choice, not an error.
@@ -22,9 +25,12 @@ program
   .exitOverride()
   .configureOutput({ writeErr: (s) => process.stderr.write(s) });
 
-registerTilingCommands(program);
-registerSolidCommands(program);
-registerDiffractCommands(program);
+registerConvergents(program);
+registerChain(program);
+registerTiling(program);
+registerPatch(program);
+registerApproximant(program);
+registerDiffract(program);
 
 async function main() {
   try {

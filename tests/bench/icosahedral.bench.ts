@@ -4,8 +4,8 @@
  * Prints points per second, memory after each run (rss and heapUsed; the maxima are the peaks seen)
  * and the scaling exponent from a least-squares fit of log time against log points.
  */
-import { icosahedralApproximant } from '../../lib/tiling/approximant';
-import { icosahedralPatch, estimatePatchCount } from '../../lib/tiling/icosahedral';
+import { icosahedralApproximant } from '../../lib/models/icosahedral/approximant';
+import { icosahedralPatch, estimatePatchCount } from '../../lib/models/icosahedral/patch';
 
 function fitExponent(pts: { n: number; t: number }[]): number {
   const xs = pts.map((p) => Math.log(p.n));

@@ -1,7 +1,5 @@
 /** 1D/2D cut-and-project throughput: points per second for the chain, Penrose and Ammann–Beenker patches. */
-import { fibonacciChain } from '../../lib/tiling/fibonacci';
-import { penroseTiling } from '../../lib/tiling/penrose';
-import { octagonalTiling } from '../../lib/tiling/octagonal';
+import { generate } from '../../lib/models';
 
 function time(label: string, make: () => { species: Uint16Array }): void {
   const t0 = performance.now();
@@ -11,9 +9,9 @@ function time(label: string, make: () => { species: Uint16Array }): void {
 }
 
 export default async function planarBench(): Promise<void> {
-  time('chain order 28', () => fibonacciChain({ order: 28 }));
-  time('penrose radius 100', () => penroseTiling({ radius: 100 }));
-  time('penrose radius 200', () => penroseTiling({ radius: 200 }));
-  time('octagonal radius 200', () => octagonalTiling({ radius: 200 }));
-  time('penrose approximant 34/21', () => penroseTiling({ approximant: { p: 34, q: 21 } }));
+  time('chain order 28', () => generate({ family: 'fibonacci', order: 28 }));
+  time('penrose radius 100', () => generate({ family: 'penrose', radius: 100 }));
+  time('penrose radius 200', () => generate({ family: 'penrose', radius: 200 }));
+  time('octagonal radius 200', () => generate({ family: 'octagonal', radius: 200 }));
+  time('penrose approximant 34/21', () => generate({ family: 'penrose', approximant: { p: 34, q: 21 } }));
 }

@@ -21,7 +21,7 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { baseUrl, launch, screenshot } from './browser';
-import { approximantVertexCount } from '../../lib/tiling/approximant';
+import { approximantVertexCount } from '../../lib/models/icosahedral/approximant';
 
 const PASSWORD = 'quasi-demo-2026';
 let browser: Browser;

@@ -14,9 +14,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { readFileSync } from 'node:fs';
 import { baseUrl, launch, screenshot } from './browser';
-import { icosahedralBasis, hyperlatticeCellVolume, TAU } from '../../lib/tiling/hyperlattice';
-import { windowVolume, zonotopeWindow } from '../../lib/tiling/window';
-import { approximantVertexCount } from '../../lib/tiling/approximant';
+import { icosahedralBasis, hyperlatticeCellVolume } from '../../lib/models/icosahedral/hyperlattice';
+import { TAU } from '../../lib/math/golden';
+import { windowVolume, zonotopeWindow } from '../../lib/models/icosahedral/window';
+import { approximantVertexCount } from '../../lib/models/icosahedral/approximant';
 
 let browser: Browser;
 beforeAll(async () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { composition, mergeClose, minimumDistance, pointGroup, type Structure } from '@/lib/structure';
-import { BERGMAN, clusterAtoms, clusterSize, MACKAY, placeClusters, TSAI, type ClusterTemplate } from '@/lib/tiling/clusters';
+import { BERGMAN, clusterAtoms, clusterSize, MACKAY, placeClusters, TSAI, type ClusterTemplate } from '@/lib/models/icosahedral/clusters';
 import { hasPython, runPython } from './structure-pyref';
 
 const prov = { engine: 'test', params: null };

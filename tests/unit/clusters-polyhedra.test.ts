@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { icosahedralBasis } from '@/lib/tiling/hyperlattice';
-import { POLYHEDRON_NAMES, polyhedronVertices, type PolyhedronName } from '@/lib/tiling/polyhedra';
+import { icosahedralBasis } from '@/lib/models/icosahedral/hyperlattice';
+import { POLYHEDRON_NAMES, polyhedronVertices, type PolyhedronName } from '@/lib/models/icosahedral/polyhedra';
 import { hasPython, runPython } from './structure-pyref';
 
 function distances(v: Float64Array): number[] {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { generate } from '../../lib/generate';
+import { generate } from '../../lib/models';
 import { pointGroup } from '../../lib/structure/checks';
 import { minimumDistance } from '../../lib/structure/checks';
 

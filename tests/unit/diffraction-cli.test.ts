@@ -3,7 +3,7 @@ import { Command } from 'commander';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { registerDiffractCommands } from '../../scripts/cli/diffract';
+import { registerDiffract } from '../../scripts/cli/commands/diffract';
 import { CliError } from '../../scripts/cli/errors';
 import { writeJson } from '../../lib/formats/json';
 import { crystal, cubic, FCC } from './diffraction-helpers';
@@ -13,7 +13,7 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 async function cli(args: string[]): Promise<string> {
   const program = new Command().exitOverride();
-  registerDiffractCommands(program);
+  registerDiffract(program);
   let out = '';
   const spy = vi.spyOn(process.stdout, 'write').mockImplementation((s: string | Uint8Array) => {
     out += String(s);

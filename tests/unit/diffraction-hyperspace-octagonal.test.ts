@@ -1,11 +1,11 @@
 import { describe, expect, it, vi } from 'vitest';
 import { Command } from 'commander';
-import { registerDiffractCommands } from '../../scripts/cli/diffract';
+import { registerDiffract } from '../../scripts/cli/commands/diffract';
 import { hyperspacePeaks, octagonalPeaks, octagonalWindow } from '../../lib/diffraction/hyperspace';
 import { intensityAt } from '../../lib/diffraction/intensity-at';
-import { octagonalTiling } from '../../lib/tiling/octagonal';
 import { zone } from '../../lib/worker/engine';
 import { indexOctagonalSpot } from '../../lib/worker/zone-index';
+import { generate } from '../../lib/models';
 
 describe('hyperspace diffraction: octagonal (Ammann–Beenker) tiling from Z⁴', () => {
   it('ideal intensities are 8-fold symmetric: rotating Q∥ by 45° maps every peak onto a peak of equal intensity (the tiling has point symmetry 8mm)', () => {
@@ -36,7 +36,7 @@ describe('hyperspace diffraction: octagonal (Ammann–Beenker) tiling from Z⁴'
 
   it('direct summation over a patch from lib/tiling/octagonal.ts (unit form factors, intensity-at.ts) matches the strongest ideal peaks within 5 % (Baake & Grimm, Aperiodic Order vol. 1, 2013, ch. 9: Bragg intensities of a regular model set)', () => {
     for (const edge of [1, 2.3]) {
-      const patch = octagonalTiling({ family: 'octagonal', radius: 40 * edge, edge });
+      const patch = generate({ family: 'octagonal', radius: 40 * edge, edge });
       const n = patch.species.length;
       expect(n).toBeGreaterThan(5000);
       // The generator's perpendicular coordinates all lie in the octagon the diffraction uses.
@@ -90,7 +90,7 @@ describe('hyperspace diffraction: octagonal (Ammann–Beenker) tiling from Z⁴'
 
   it('CLI: diffract hyperspace --family octagonal --aR gives the edge-a module; the strongest star sits at |Q∥| = (π/a)|e_0 + e_1 + e_2| = (π/a)(1 + √2) (Beenker 1982 basis)', async () => {
     const program = new Command().exitOverride();
-    registerDiffractCommands(program);
+    registerDiffract(program);
     let out = '';
     const spy = vi.spyOn(process.stdout, 'write').mockImplementation((s: string | Uint8Array) => {
       out += String(s);
@@ -120,7 +120,7 @@ describe('hyperspace diffraction: octagonal (Ammann–Beenker) tiling from Z⁴'
       expect(idx.h, `${p.indices}`).toEqual(p.indices);
       expect(idx.qPerp).toBeCloseTo(p.qPerpNorm, 9);
     }
-    const patch = octagonalTiling({ family: 'octagonal', radius: 30 * edge, edge });
+    const patch = generate({ family: 'octagonal', radius: 30 * edge, edge });
     const z = zone({ kind: 'zone', structure: patch, axis: '0,0,1', qmax: 6, slab: 0, radiation: 'xray' });
     const strong = z.spots.filter((s) => s.intensity > 0.5);
     expect(strong.length).toBeGreaterThanOrEqual(8);

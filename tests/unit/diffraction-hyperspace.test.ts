@@ -2,16 +2,15 @@ import { describe, expect, it } from 'vitest';
 import { fibonacciPeaks, icosahedralPeaks, penrosePeaks, penroseWindows } from '../../lib/diffraction/hyperspace';
 import { intensityAt } from '../../lib/diffraction/intensity-at';
 import { csgFromHyper, hyperFromCsg, qSquaredFromNM } from '../../lib/diffraction/indexing';
-import { fibonacciChain } from '../../lib/tiling/fibonacci';
-import { icosahedralPatch } from '../../lib/tiling/icosahedral';
-import { penroseTiling } from '../../lib/tiling/penrose';
-import { TAU } from '../../lib/tiling/hyperlattice';
+import { icosahedralPatch } from '../../lib/models/icosahedral/patch';
+import { TAU } from '../../lib/math/golden';
 import type { Structure } from '../../lib/structure/types';
+import { generate } from '../../lib/models';
 
 describe('hyperspace diffraction', () => {
   it('Fibonacci chain (N = 17712 from lib/tiling/fibonacci.ts): |F(Q)|²/N² at Fourier-module points = sinc²(Q⊥L/2) of the window within 1 % (Baake & Grimm, Aperiodic Order vol. 1, 2013, ch. 9)', () => {
     const aR = 2.5;
-    const chain = fibonacciChain({ order: 20, long: aR, ratio: TAU });
+    const chain = generate({ family: 'fibonacci', order: 20, long: aR, ratio: TAU });
     const n = chain.species.length;
     expect(n).toBeGreaterThan(1e4);
     const peaks = fibonacciPeaks({ family: 'fibonacci', aR, qmax: 6, threshold: 0.01 }).filter((p) => p.qParNorm > 0);
@@ -148,7 +147,7 @@ describe('hyperspace diffraction', () => {
   });
 
   it('Penrose tiling from lib/tiling/penrose.ts (generic γ, Σγ = 0): its strongest peaks match the ideal intensities within 5 %', () => {
-    const t = penroseTiling({ radius: 25, edge: 1, gamma: [0.11, -0.07, 0.23, -0.19, -0.08] });
+    const t = generate({ family: 'penrose', radius: 25, edge: 1, gamma: [0.11, -0.07, 0.23, -0.19, -0.08] });
     const n = t.species.length;
     const peaks = penrosePeaks({ family: 'penrose', aR: 1, qmax: 9, qperpMax: 6, threshold: 0.02 })
       .filter((p) => p.qParNorm > 0)

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { expDividedDifference, symmetricBodyTransform, zonotopeBody, polygonTransform, ballTransform } from '../../lib/diffraction/window-transform';
-import { icosahedralBasis } from '../../lib/tiling/hyperlattice';
+import { icosahedralBasis } from '../../lib/models/icosahedral/hyperlattice';
 
 // Brute-force reference: midpoint-rule integral of e^{−ik·y} over the body by a fine grid (numerical quadrature, common practice).
 function insideZonotope(vectors: Float64Array, y: number[]): boolean {

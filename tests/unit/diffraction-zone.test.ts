@@ -2,10 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { zoneMap, mapSpots, crystalZone, zoneFrame, parseAxis } from '../../lib/diffraction/zone-axis';
 import { intensityAt } from '../../lib/diffraction/intensity-at';
 import { icosahedralPeaks } from '../../lib/diffraction/hyperspace';
-import { icosahedralPatch } from '../../lib/tiling/icosahedral';
-import { icosahedralApproximant } from '../../lib/tiling/approximant';
+import { icosahedralPatch } from '../../lib/models/icosahedral/patch';
+import { icosahedralApproximant } from '../../lib/models/icosahedral/approximant';
 import { zonePattern } from '../../lib/diffraction/zone-axis';
-import { TAU } from '../../lib/tiling/hyperlattice';
+import { TAU } from '../../lib/math/golden';
 import { crystal, cubic, FCC } from './diffraction-helpers';
 
 const aR = 4.6;

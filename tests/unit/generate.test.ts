@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { estimateCount, generate } from '../../lib/generate';
-import { STARTERS } from '../../lib/params/starters';
+import { estimateCount, generate } from '../../lib/models';
+import { STARTERS } from '../../lib/models/starters';
 import { writeXyz } from '../../lib/formats';
 import { ENGINE_VERSION } from '../../lib/version';
 

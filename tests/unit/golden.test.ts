@@ -7,9 +7,9 @@
  */
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { generate } from '../../lib/generate';
+import { generate } from '../../lib/models';
 import { writeStructure } from '../../lib/formats/write';
-import { STARTERS } from '../../lib/params/starters';
+import { STARTERS } from '../../lib/models/starters';
 
 const EXTRA: Record<string, unknown> = {
   'chain-patch': { family: 'fibonacci', order: 8 },

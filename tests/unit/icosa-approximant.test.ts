@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { icosahedralApproximant, approximantLatticeConstant, approximantVertexCount, approximantFrame } from '../../lib/tiling/approximant';
-import { icosahedralBasis, TAU } from '../../lib/tiling/hyperlattice';
-import { zonotopeWindow, windowVolume } from '../../lib/tiling/window';
+import { icosahedralApproximant, approximantLatticeConstant, approximantVertexCount, approximantFrame } from '../../lib/models/icosahedral/approximant';
+import { icosahedralBasis } from '../../lib/models/icosahedral/hyperlattice';
+import { TAU } from '../../lib/math/golden';
+import { zonotopeWindow, windowVolume } from '../../lib/models/icosahedral/window';
 import { hasPython, runPython } from './structure-pyref';
 
 const ORDERS: [number, number][] = [[1, 1], [2, 1], [3, 2], [5, 3], [8, 5], [13, 8], [21, 13]];

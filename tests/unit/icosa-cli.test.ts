@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { spawnSync } from 'node:child_process';
-import { TAU } from '../../lib/tiling/hyperlattice';
+import { TAU } from '../../lib/math/golden';
 
 const cli = (args: string[]) => spawnSync('npx', ['tsx', 'scripts/cli/index.ts', ...args], { encoding: 'utf8' });
 

@@ -1,9 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { generateIcosahedralApproximant, generateIcosahedralPatch, sitePosition } from '../../lib/tiling/decorate';
-import { icosahedralPatchSchema, icosahedralApproximantSchema } from '../../lib/params/icosahedral';
-import { decorationSchema } from '../../lib/params/decoration';
-import { icosahedralBasis, toPar } from '../../lib/tiling/hyperlattice';
-import { zonotopeWindow, windowVolume } from '../../lib/tiling/window';
+import { sitePosition } from '../../lib/models/icosahedral/decorate';
+import { generateIcosahedralApproximant, generateIcosahedralPatch } from '../../lib/models/icosahedral/generate';
+import { icosahedralPatchSchema, icosahedralApproximantSchema, icosahedralPatchModelSchema, icosahedralApproximantModelSchema } from '../../lib/models/icosahedral/schema';
+import { decorationSchema } from '../../lib/models/icosahedral/decoration-schema';
+import { icosahedralBasis, toPar } from '../../lib/models/icosahedral/hyperlattice';
+import { zonotopeWindow, windowVolume } from '../../lib/models/icosahedral/window';
 import { zodMessage } from '../../scripts/cli/errors';
 
 const OFF: [number, number, number] = [0.0123, -0.0271, 0.0316];
@@ -12,7 +13,9 @@ describe('decoration by site classes', () => {
   it('each class has density vol(domain)/vol(6D cell) (model-set density, Baake & Grimm 2013) and its own species', () => {
     const aR = 1;
     const R = 12;
-    const params = icosahedralPatchSchema.parse({
+    const params = icosahedralPatchModelSchema.parse({
+      family: 'icosahedral',
+      mode: 'patch',
       aR,
       radius: R,
       offset: OFF,
@@ -43,8 +46,8 @@ describe('decoration by site classes', () => {
     const b = icosahedralBasis(aR);
     const half = toPar(sitePosition('edge2'), b);
     const perpHalf = [-b.perp[3] / 2, -b.perp[4] / 2, -b.perp[5] / 2];
-    const edge = generateIcosahedralPatch(icosahedralPatchSchema.parse({ aR, radius: 30, offset: OFF, decoration: { classes: [{ name: 'e2', position: 'edge2', species: 'Al' }] } }));
-    const vert = generateIcosahedralPatch(icosahedralPatchSchema.parse({ aR, radius: 40, offset: OFF.map((x, k) => x + perpHalf[k]) }));
+    const edge = generateIcosahedralPatch(icosahedralPatchModelSchema.parse({ family: 'icosahedral', mode: 'patch', aR, radius: 30, offset: OFF, decoration: { classes: [{ name: 'e2', position: 'edge2', species: 'Al' }] } }));
+    const vert = generateIcosahedralPatch(icosahedralPatchModelSchema.parse({ family: 'icosahedral', mode: 'patch', aR, radius: 40, offset: OFF.map((x, k) => x + perpHalf[k]) }));
     const key = (x: number, y: number, z: number) => `${Math.round(x * 1e5)},${Math.round(y * 1e5)},${Math.round(z * 1e5)}`;
     const set = new Set<string>();
     for (let i = 0; i < vert.species.length; i++) set.add(key(vert.positions[3 * i], vert.positions[3 * i + 1], vert.positions[3 * i + 2]));
@@ -53,7 +56,9 @@ describe('decoration by site classes', () => {
   });
 
   it('decorated approximant: sphere class count = sphere volume / (λ³·…) per cell and centring still detected', () => {
-    const params = icosahedralApproximantSchema.parse({
+    const params = icosahedralApproximantModelSchema.parse({
+      family: 'icosahedral',
+      mode: 'approximant',
       order: '5/3',
       aR: 4.6,
       decoration: { classes: [{ name: 'v', species: 'Al' }, { name: 'b', position: 'body', window: { kind: 'sphere', radius: 3 }, species: 'Mn' }] },

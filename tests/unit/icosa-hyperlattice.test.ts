@@ -1,16 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import {
-  TAU,
-  icosahedralBasis,
-  toPar,
-  toPerp,
-  toHyper,
-  reciprocalBasis,
-  inHyperlattice,
-  inReciprocalLattice,
-  hyperlatticeSteps,
-  hyperlatticeCellVolume,
-} from '../../lib/tiling/hyperlattice';
+import { icosahedralBasis, toPar, toPerp, toHyper, reciprocalBasis, inHyperlattice, inReciprocalLattice, hyperlatticeSteps, hyperlatticeCellVolume } from '../../lib/models/icosahedral/hyperlattice';
+import { TAU } from '../../lib/math/golden';
 
 const dot = (m: Float64Array, i: number, n: Float64Array, j: number) =>
   m[3 * i] * n[3 * j] + m[3 * i + 1] * n[3 * j + 1] + m[3 * i + 2] * n[3 * j + 2];

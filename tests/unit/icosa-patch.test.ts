@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { icosahedralPatch } from '../../lib/tiling/icosahedral';
-import { icosahedralBasis, toPerp, TAU } from '../../lib/tiling/hyperlattice';
-import { zonotopeWindow, windowContains, windowVolume } from '../../lib/tiling/window';
-import { Int6Set } from '../../lib/tiling/icosa-hashset';
+import { icosahedralPatch } from '../../lib/models/icosahedral/patch';
+import { icosahedralBasis, toPerp } from '../../lib/models/icosahedral/hyperlattice';
+import { TAU } from '../../lib/math/golden';
+import { zonotopeWindow, windowContains, windowVolume } from '../../lib/models/icosahedral/window';
+import { Int6Set } from '../../lib/models/icosahedral/int6-set';
 
 const OFF: [number, number, number] = [0.0123, -0.0271, 0.0316]; // generic phason offset (no boundary ties)
 

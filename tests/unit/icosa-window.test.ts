@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { icosahedralBasis, TAU } from '../../lib/tiling/hyperlattice';
-import { zonotopeWindow, sphereWindow, shellWindow, windowContains, windowVolume, windowInradius, windowOuterRadius, scaleWindow } from '../../lib/tiling/window';
+import { icosahedralBasis } from '../../lib/models/icosahedral/hyperlattice';
+import { TAU } from '../../lib/math/golden';
+import { zonotopeWindow, sphereWindow, shellWindow, windowContains, windowVolume, windowInradius, windowOuterRadius, scaleWindow } from '../../lib/models/icosahedral/window';
 
 describe('occupation domains', () => {
   const b = icosahedralBasis(1);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { pointGroup } from '@/lib/structure';
-import { polyhedronVertices, type PolyhedronName } from '@/lib/tiling/polyhedra';
+import { polyhedronVertices, type PolyhedronName } from '@/lib/models/icosahedral/polyhedra';
 import { hasPython, runPython } from './structure-pyref';
 
 function shell(name: PolyhedronName, r: number, z = 13): { pos: Float64Array; sp: Uint16Array } {

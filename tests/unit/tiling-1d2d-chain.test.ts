@@ -6,11 +6,13 @@ import {
   partialQuotients,
   GOLDEN_MEAN,
   SILVER_MEAN,
-} from '../../lib/tiling/continued-fraction';
-import { fibonacci, fibonacciWord, fibonacciChain } from '../../lib/tiling/fibonacci';
-import { TAU } from '../../lib/tiling/hyperlattice';
-import { chainParamsSchema, convergentsParamsSchema } from '../../lib/params/chain';
+} from '../../lib/math/convergents';
+import { fibonacci, fibonacciWord } from '../../lib/models/chain/generate';
+import { TAU } from '../../lib/math/golden';
+import { chainParamsSchema } from '../../lib/models/chain/schema';
+import { convergentsParamsSchema } from '../../lib/math/convergents-params';
 import { writeXyz } from '../../lib/formats/xyz';
+import { generate } from '../../lib/models';
 
 const PY = '/usr/bin/python3';
 const hasPy = existsSync(PY);
@@ -108,12 +110,12 @@ describe('Fibonacci chain', () => {
 
   it('cut-and-project with window [−1, 1/τ) and offset 0 gives the substitution word', () => {
     for (const n of [0, 1, 5, 12, 20]) {
-      expect(word(fibonacciChain({ order: n }))).toEqual(Array.from(fibonacciWord(n)));
+      expect(word(generate({ family: 'fibonacci', order: n }))).toEqual(Array.from(fibonacciWord(n)));
     }
   });
 
   it('a phason offset changes the sequence but keeps it Sturmian: long/short ratio → τ, every vertex perp in the window', () => {
-    const c = fibonacciChain({ order: 20, offset: 0.37 });
+    const c = generate({ family: 'fibonacci', order: 20, offset: 0.37 });
     const w = word(c);
     expect(w).not.toEqual(Array.from(fibonacciWord(20)));
     const L = w.reduce((a, b) => a + b, 0);
@@ -131,7 +133,7 @@ describe('Fibonacci chain', () => {
 
   it('point density equals window length / hyperlattice covolume = τ/√5 (model-set density, Baake & Grimm 2013, Thm 7.2)', () => {
     // ℓ = τ, s = 1: embedding {(n_L τ + n_S, n_S − n_L/τ)} has covolume τ + 1/τ = √5; the window has length τ.
-    const c = fibonacciChain({ order: 24, long: TAU, ratio: TAU });
+    const c = generate({ family: 'fibonacci', order: 24, long: TAU, ratio: TAU });
     const n = c.species.length - 1;
     const X = c.positions[3 * n];
     expect(n / X).toBeCloseTo(TAU / Math.sqrt(5), 5);
@@ -139,7 +141,7 @@ describe('Fibonacci chain', () => {
 
   it('approximant of order n: one cell with F(n+1) L and F(n) S, period F(n+1)ℓ + F(n)s, a cyclic rotation of σⁿ(L)', () => {
     for (let n = 0; n <= 14; n++) {
-      const c = fibonacciChain({ order: n, approximant: true, long: 2.5 });
+      const c = generate({ family: 'fibonacci', order: n, approximant: true, long: 2.5 });
       const w = word(c);
       const L = w.reduce((a, b) => a + b, 0);
       expect(L).toBe(A000045[n + 1]);
@@ -156,19 +158,19 @@ describe('Fibonacci chain', () => {
   });
 
   it('rejects bad input naming the field, and caps the point count before allocating', () => {
-    expect(() => fibonacciChain({ order: -1 })).toThrow(/order:/);
-    expect(() => fibonacciChain({ order: 3, long: 0 })).toThrow(/long: must be positive/);
-    expect(() => fibonacciChain({ order: 3, ratio: -1 })).toThrow(/ratio:/);
-    expect(() => fibonacciChain({ order: 3, offset: Number.NaN })).toThrow(/offset:/);
-    expect(() => fibonacciChain({ order: 3, extra: 1 } as never)).toThrow(/extra|Unrecognized/);
-    expect(() => fibonacciChain({ order: 40 })).toThrow(/maxPoints: .* about 267914297 points/);
-    expect(() => fibonacciChain({ order: 10, maxPoints: 100 })).toThrow(/about 145 points/);
+    expect(() => generate({ family: 'fibonacci', order: -1 })).toThrow(/order:/);
+    expect(() => generate({ family: 'fibonacci', order: 3, long: 0 })).toThrow(/long: must be positive/);
+    expect(() => generate({ family: 'fibonacci', order: 3, ratio: -1 })).toThrow(/ratio:/);
+    expect(() => generate({ family: 'fibonacci', order: 3, offset: Number.NaN })).toThrow(/offset:/);
+    expect(() => generate({ family: 'fibonacci', order: 3, extra: 1 } as never)).toThrow(/extra|Unrecognized/);
+    expect(() => generate({ family: 'fibonacci', order: 40 })).toThrow(/maxPoints: .* about 267,914,297 points/);
+    expect(() => generate({ family: 'fibonacci', order: 10, maxPoints: 100 })).toThrow(/about 145 points/);
     expect(chainParamsSchema.safeParse({ order: 5, maxPoints: 0 }).error!.issues[0].path).toEqual(['maxPoints']);
   });
 
   it('is deterministic: two runs give byte-identical XYZ', () => {
-    const a = writeXyz(fibonacciChain({ order: 12, offset: 0.1, approximant: true }));
-    const b = writeXyz(fibonacciChain({ order: 12, offset: 0.1, approximant: true }));
+    const a = writeXyz(generate({ family: 'fibonacci', order: 12, offset: 0.1, approximant: true }));
+    const b = writeXyz(generate({ family: 'fibonacci', order: 12, offset: 0.1, approximant: true }));
     expect(a).toBe(b);
     expect(a.split('\n')[0]).toBe(String(A000045[14]));
   });

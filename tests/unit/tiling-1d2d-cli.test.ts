@@ -45,6 +45,6 @@ describe('tiling CLI', () => {
     expect(b.err).toMatch(/approximant: 4\/3 is not a convergent/);
     const c = cli('convergents', '--of', 'gold', '--count', '3');
     expect(c.code).toBe(2);
-    expect(c.err).toMatch(/of:/);
+    expect(c.err).toMatch(/--of/);
   }, 30_000);
 });

@@ -1,9 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
-import { decagonalModel } from '../../lib/tiling/decagonal';
-import { penroseTiling } from '../../lib/tiling/penrose';
 import type { Structure } from '../../lib/structure/types';
+import { generate } from '../../lib/models';
 
 const PY = '/usr/bin/python3';
 const hasPy = existsSync(PY) && (() => {
@@ -47,8 +46,8 @@ function invert3(m: number[][]): number[][] {
 
 describe('decagonal model', () => {
   it('stacks the layer tiling: layers × the planar vertices, z = k·spacing, shift per layer', () => {
-    const planar = penroseTiling({ radius: 10, edge: 2 });
-    const s = decagonalModel({ radius: 10, edge: 2, layers: 3, spacing: 2.1, shift: [0.5, -0.25] });
+    const planar = generate({ family: 'penrose', radius: 10, edge: 2 });
+    const s = generate({ family: 'decagonal', radius: 10, edge: 2, layers: 3, spacing: 2.1, shift: [0.5, -0.25] });
     const m = planar.species.length;
     expect(s.species.length).toBe(3 * m);
     expect(s.dim).toBe(3);
@@ -62,7 +61,7 @@ describe('decagonal model', () => {
   });
 
   it('approximant: orthorhombic cell a × b × (layers·spacing) for zero shift', () => {
-    const s = decagonalModel({ approximant: { p: 3, q: 2 }, layers: 2, spacing: 2 });
+    const s = generate({ family: 'decagonal', approximant: { p: 3, q: 2 }, layers: 2, spacing: 2 });
     const [a, b, c] = s.cell!;
     expect(a[0] * b[0] + a[1] * b[1]).toBeCloseTo(0, 9);
     expect(c).toEqual([0, 0, 4]);
@@ -70,24 +69,24 @@ describe('decagonal model', () => {
   });
 
   it.skipIf(!hasPy)('spglib finds the planar approximant cell primitive, and the stacked cell primitive / layers (spglib.find_primitive)', () => {
-    const planar = penroseTiling({ approximant: { p: 2, q: 1 }, edge: 2.45 });
+    const planar = generate({ family: 'penrose', approximant: { p: 2, q: 1 }, edge: 2.45 });
     expect(spglibPrimitiveCount(planar)).toBe(planar.species.length);
-    const stacked = decagonalModel({ approximant: { p: 2, q: 1 }, layers: 3, spacing: 2, shift: [0.7, 0.3] });
+    const stacked = generate({ family: 'decagonal', approximant: { p: 2, q: 1 }, layers: 3, spacing: 2, shift: [0.7, 0.3] });
     expect(spglibPrimitiveCount(stacked)).toBe(stacked.species.length / 3);
   }, 60_000);
 
   it('bad input names the field; size is checked before building', () => {
-    expect(() => decagonalModel({})).toThrow(/radius: required/);
-    expect(() => decagonalModel({ radius: 5, layers: 0 })).toThrow(/layers: must be at least 1/);
-    expect(() => decagonalModel({ radius: 5, spacing: -1 })).toThrow(/spacing:/);
-    expect(() => decagonalModel({ radius: 5, shift: [1] as never })).toThrow(/shift/);
-    expect(() => decagonalModel({ approximant: { p: 4, q: 3 } })).toThrow(/approximant: 4\/3 is not a convergent/);
-    expect(() => decagonalModel({ radius: 200, layers: 100 })).toThrow(/maxPoints: 100 decagonal layers would hold about/);
+    expect(() => generate({ family: 'decagonal', })).toThrow(/radius: required/);
+    expect(() => generate({ family: 'decagonal', radius: 5, layers: 0 })).toThrow(/layers: must be at least 1/);
+    expect(() => generate({ family: 'decagonal', radius: 5, spacing: -1 })).toThrow(/spacing:/);
+    expect(() => generate({ family: 'decagonal', radius: 5, shift: [1] as never })).toThrow(/shift/);
+    expect(() => generate({ family: 'decagonal', approximant: { p: 4, q: 3 } })).toThrow(/approximant: 4\/3 is not a convergent/);
+    expect(() => generate({ family: 'decagonal', radius: 200, layers: 100 })).toThrow(/maxPoints: 100 decagonal layers would hold about/);
   });
 
   it('is deterministic', () => {
-    const a = decagonalModel({ approximant: { p: 5, q: 3 }, shift: [0.3, 0.1] });
-    const b = decagonalModel({ approximant: { p: 5, q: 3 }, shift: [0.3, 0.1] });
+    const a = generate({ family: 'decagonal', approximant: { p: 5, q: 3 }, shift: [0.3, 0.1] });
+    const b = generate({ family: 'decagonal', approximant: { p: 5, q: 3 }, shift: [0.3, 0.1] });
     expect(Buffer.from(a.positions.buffer).equals(Buffer.from(b.positions.buffer))).toBe(true);
   });
 });

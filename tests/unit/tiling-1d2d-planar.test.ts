@@ -1,10 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { penroseTiling, penroseSpec, PENROSE_DENSITY } from '../../lib/tiling/penrose';
-import { octagonalTiling, octagonalSpec } from '../../lib/tiling/octagonal';
-import { buildPlanar } from '../../lib/tiling/planar-canonical';
-import { TAU } from '../../lib/tiling/hyperlattice';
+import { penroseSpec, PENROSE_DENSITY } from '../../lib/models/penrose/generate';
+import { octagonalSpec } from '../../lib/models/octagonal/generate';
+import { buildPlanar } from '../../lib/models/planar/cut';
+import { TAU } from '../../lib/math/golden';
 import { writeJson } from '../../lib/formats/json';
 import type { Structure } from '../../lib/structure/types';
+import { generate } from '../../lib/models';
 
 /** Corner difference u→v, minimum image for periodic structures. */
 function diff(s: Structure, u: number, v: number): [number, number] {
@@ -62,13 +63,13 @@ const radial = (s: Structure, r: number) => (i: number) => Math.hypot(s.position
 describe('Penrose rhombus tiling', () => {
   it('is edge-to-edge with unit edges — singular γ = 0, generic γ, and a generalized Σγ ≠ 0', () => {
     for (const gamma of [undefined, [0.1, 0.2, -0.05, -0.15, -0.1], [0.3, 0, 0, 0, 0]]) {
-      const s = penroseTiling({ radius: 18, gamma, edge: 1.5 });
+      const s = generate({ family: 'penrose', radius: 18, gamma, edge: 1.5 });
       checkTiling(s, 1.5, radial(s, 18 - 3));
     }
   });
 
   it('thick/thin ratio → τ (de Bruijn 1981, Proc. K. Ned. Akad. Wet. A 84)', () => {
-    const [thick, thin] = counts(penroseTiling({ radius: 60, gamma: [0.31, -0.17, 0.05, 0.2, -0.39] }));
+    const [thick, thin] = counts(generate({ family: 'penrose', radius: 60, gamma: [0.31, -0.17, 0.05, 0.2, -0.39] }));
     expect(Math.abs(thick / thin - TAU)).toBeLessThan(0.01);
   });
 
@@ -85,7 +86,7 @@ describe('Penrose rhombus tiling', () => {
     ]);
     const density = windowArea / Math.abs(det4(M));
     expect(density).toBeCloseTo(PENROSE_DENSITY, 10);
-    const s = penroseTiling({ radius: 45, gamma: [0.1, 0.2, -0.05, -0.15, -0.1] });
+    const s = generate({ family: 'penrose', radius: 45, gamma: [0.1, 0.2, -0.05, -0.15, -0.1] });
     const r = 40;
     let n = 0;
     for (let i = 0; i < s.species.length; i++) if (radial(s, r)(i)) n++;
@@ -95,7 +96,7 @@ describe('Penrose rhombus tiling', () => {
   it('approximants p/q = F(n+1)/F(n) tile their cell: tile area = cell area, all edges shared twice, thick:thin → τ', () => {
     let prev = Infinity;
     for (const [p, q] of [[1, 1], [2, 1], [3, 2], [5, 3], [8, 5]]) {
-      const s = penroseTiling({ approximant: { p, q } });
+      const s = generate({ family: 'penrose', approximant: { p, q } });
       const area = checkTiling(s, 1, () => true);
       const [a, b] = [s.cell![0], s.cell![1]];
       expect(area).toBeCloseTo(Math.abs(a[0] * b[1] - a[1] * b[0]), 8);
@@ -110,7 +111,7 @@ describe('Penrose rhombus tiling', () => {
 
   it('approximant vertex set is periodic: a patch of the rational cut maps onto itself under the cell vectors', () => {
     const spec = penroseSpec([0, 0, 0, 0, 0], { p: 3, q: 2 });
-    const cellS = penroseTiling({ approximant: { p: 3, q: 2 } });
+    const cellS = generate({ family: 'penrose', approximant: { p: 3, q: 2 } });
     const patch = buildPlanar(spec, { radius: 30 }, 1e6);
     const key = (x: number, y: number) => `${Math.round(x * 1e6)},${Math.round(y * 1e6)}`;
     const set = new Set<string>();
@@ -131,13 +132,13 @@ describe('Penrose rhombus tiling', () => {
 describe('Ammann–Beenker tiling', () => {
   it('is edge-to-edge with unit edges (γ = 0 singular and generic γ)', () => {
     for (const gamma of [undefined, [0.13, -0.21, 0.34, 0.05]]) {
-      const s = octagonalTiling({ radius: 12, gamma });
+      const s = generate({ family: 'octagonal', radius: 12, gamma });
       checkTiling(s, 1, radial(s, 9));
     }
   });
 
   it('squares : rhombi → 1 : √2 (from memory: frequency ratio 1:√2)', () => {
-    const [sq, rh] = counts(octagonalTiling({ radius: 40, gamma: [0.13, -0.21, 0.34, 0.05] }));
+    const [sq, rh] = counts(generate({ family: 'octagonal', radius: 40, gamma: [0.13, -0.21, 0.34, 0.05] }));
     expect(Math.abs(sq / rh - 1 / Math.SQRT2)).toBeLessThan(0.01);
   });
 
@@ -148,7 +149,7 @@ describe('Ammann–Beenker tiling', () => {
       spec.par[0][j], spec.par[1][j], Math.cos((3 * Math.PI * j) / 4), Math.sin((3 * Math.PI * j) / 4),
     ]);
     const density = (2 * (1 + Math.SQRT2)) / Math.abs(det4(M));
-    const s = octagonalTiling({ radius: 45, gamma: [0.13, -0.21, 0.34, 0.05] });
+    const s = generate({ family: 'octagonal', radius: 45, gamma: [0.13, -0.21, 0.34, 0.05] });
     const r = 40;
     let n = 0;
     for (let i = 0; i < s.species.length; i++) if (radial(s, r)(i)) n++;
@@ -157,7 +158,7 @@ describe('Ammann–Beenker tiling', () => {
 
   it('approximants of 1+√2 (Pell ratios) tile a square cell of side (1+√2)^k-ish; area and edges check', () => {
     for (const [p, q] of [[2, 1], [5, 2], [12, 5], [29, 12]]) {
-      const s = octagonalTiling({ approximant: { p, q } });
+      const s = generate({ family: 'octagonal', approximant: { p, q } });
       const area = checkTiling(s, 1, () => true);
       const [a, b] = [s.cell![0], s.cell![1]];
       expect(area).toBeCloseTo(Math.abs(a[0] * b[1] - a[1] * b[0]), 8);
@@ -166,7 +167,7 @@ describe('Ammann–Beenker tiling', () => {
       expect(Math.hypot(...a)).toBeCloseTo(Math.hypot(...b), 9);
     }
     // Smallest one: 3 squares and 4 rhombi in a square of side 1+√2 (area (1+√2)² = 3 + 4 sin 45°).
-    const s = octagonalTiling({ approximant: { p: 2, q: 1 } });
+    const s = generate({ family: 'octagonal', approximant: { p: 2, q: 1 } });
     expect(counts(s)).toEqual([3, 4]);
     expect(Math.hypot(...s.cell![0])).toBeCloseTo(1 + Math.SQRT2, 12);
   });
@@ -174,21 +175,21 @@ describe('Ammann–Beenker tiling', () => {
 
 describe('planar params and output', () => {
   it('bad input names the field', () => {
-    expect(() => penroseTiling({})).toThrow(/radius: required/);
-    expect(() => penroseTiling({ radius: -1 })).toThrow(/radius: must be positive/);
-    expect(() => penroseTiling({ radius: 5, edge: 0 })).toThrow(/edge:/);
-    expect(() => penroseTiling({ radius: 5, gamma: [0, 0] })).toThrow(/gamma: must have 5 entries/);
-    expect(() => octagonalTiling({ approximant: { p: 3, q: 2 } })).toThrow(/approximant: 3\/2 is not a convergent of 1\+√2/);
-    expect(() => penroseTiling({ approximant: { p: 5, q: 2 } })).toThrow(/approximant: 5\/2 is not a convergent of τ/);
-    expect(() => penroseTiling({ radius: 2000 })).toThrow(/maxPoints: .*about \d+ points/);
-    expect(() => octagonalTiling({ radius: 50, maxPoints: 1000 })).toThrow(/maxPoints:/);
+    expect(() => generate({ family: 'penrose', })).toThrow(/radius: required/);
+    expect(() => generate({ family: 'penrose', radius: -1 })).toThrow(/radius: must be positive/);
+    expect(() => generate({ family: 'penrose', radius: 5, edge: 0 })).toThrow(/edge:/);
+    expect(() => generate({ family: 'penrose', radius: 5, gamma: [0, 0] })).toThrow(/gamma: must have 5 entries/);
+    expect(() => generate({ family: 'octagonal', approximant: { p: 3, q: 2 } })).toThrow(/approximant: 3\/2 is not a convergent of 1\+√2/);
+    expect(() => generate({ family: 'penrose', approximant: { p: 5, q: 2 } })).toThrow(/approximant: 5\/2 is not a convergent of τ/);
+    expect(() => generate({ family: 'penrose', radius: 2000 })).toThrow(/maxPoints: .*about [\d,]+ points/);
+    expect(() => generate({ family: 'octagonal', radius: 50, maxPoints: 1000 })).toThrow(/maxPoints:/);
   });
 
   it('is deterministic: byte-identical JSON on two runs', () => {
-    const a = writeJson(penroseTiling({ radius: 8, gamma: [0.1, 0.2, -0.05, -0.15, -0.1] }));
-    const b = writeJson(penroseTiling({ radius: 8, gamma: [0.1, 0.2, -0.05, -0.15, -0.1] }));
+    const a = writeJson(generate({ family: 'penrose', radius: 8, gamma: [0.1, 0.2, -0.05, -0.15, -0.1] }));
+    const b = writeJson(generate({ family: 'penrose', radius: 8, gamma: [0.1, 0.2, -0.05, -0.15, -0.1] }));
     expect(a).toBe(b);
-    expect(writeJson(octagonalTiling({ approximant: { p: 5, q: 2 } }))).toBe(writeJson(octagonalTiling({ approximant: { p: 5, q: 2 } })));
+    expect(writeJson(generate({ family: 'octagonal', approximant: { p: 5, q: 2 } }))).toBe(writeJson(generate({ family: 'octagonal', approximant: { p: 5, q: 2 } })));
   });
 });
 

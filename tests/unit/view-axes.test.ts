@@ -5,7 +5,7 @@ import { angleDeg, cross, dot, norm, type Vec3 } from '@/lib/view/vec';
 
 /** sin of the angle between u and v (0 when parallel), exact enough near 0 unlike acos. */
 const sinBetween = (u: Vec3, v: Vec3) => norm(cross(u, v)) / (norm(u) * norm(v));
-import { icosahedralBasis } from '@/lib/tiling/hyperlattice';
+import { icosahedralBasis } from '@/lib/models/icosahedral/hyperlattice';
 import { cellFromParameters, inverseCell } from '@/lib/structure/cell';
 import type { Cell } from '@/lib/structure/types';
 

@@ -10,11 +10,11 @@ import { introspect, issuesByPath } from '../../components/forms/introspect';
 import { validate, starterParams } from '../../components/forms/families';
 import { indexIcosahedralSpot, indexScale } from '../../lib/worker/zone-index';
 import { qSquaredFromNM, csgFromHyper } from '../../lib/diffraction/indexing';
-import { TAU } from '../../lib/tiling/hyperlattice';
+import { TAU } from '../../lib/math/golden';
 import { vertexConfigurations } from '../../components/tiling2d/vertex-configs';
-import { generate } from '../../lib/generate';
+import { generate } from '../../lib/models';
 import { series } from '../../lib/worker/engine';
-import { icosahedralApproximantModelSchema } from '../../lib/params/model';
+import { icosahedralApproximantModelSchema } from '../../lib/models/icosahedral/schema';
 
 describe('workspace form', () => {
   it('draws the icosahedral approximant fields from the shared schema', () => {

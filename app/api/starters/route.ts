@@ -1,4 +1,4 @@
-import { STARTERS } from '@/lib/params/starters';
+import { STARTERS } from '@/lib/models/starters';
 import { json, route } from '@/lib/server/http';
 
 export const GET = route(async () => json({ items: STARTERS }));

@@ -7,7 +7,7 @@
  *  • "cell": an m×m×m block of fcc cells with its cubic cell (edges and [uvw]/(hkl) in cell axes).
  */
 import type { SiteClass, Structure } from '@/lib/structure/types';
-import { icosahedralBasis } from '@/lib/tiling/hyperlattice';
+import { icosahedralBasis } from '@/lib/models/icosahedral/hyperlattice';
 import { ENGINE_VERSION } from '@/lib/version';
 
 export type Shape = 'icosa' | 'fcc' | 'cell';

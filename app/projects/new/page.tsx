@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { NewProjectForm } from '@/components/projects/NewProjectForm';
-import { STARTERS } from '@/lib/params/starters';
+import { STARTERS } from '@/lib/models/starters';
 import { requireSignedIn } from '@/lib/server/page-data';
 
 export const metadata: Metadata = { title: 'New project' };

@@ -1,0 +1,39 @@
+/** Parameters of the Fibonacci chain (generate.ts); its family id is 'fibonacci'. */
+import { z } from 'zod';
+import { maxPointsSchema } from '../point-cap';
+
+const int = (min: number, max: number) =>
+  z
+    .number({ message: `must be a number` })
+    .int(`must be an integer`)
+    .min(min, `must be at least ${min}`)
+    .max(max, `must be at most ${max}`);
+
+export const chainParamsSchema = z.strictObject({
+  /** Substitution order n: the chain has F(n+2) segments, F(n+1) long and F(n) short. */
+  order: int(0, 60),
+  /** Periodic approximant (τ replaced by F(n+1)/F(n)): one cell of F(n+1) L and F(n) S segments. */
+  approximant: z.boolean({ message: 'must be true or false' }).default(false),
+  /** Phason offset of the window, in units of the short length's perpendicular image (see fibonacci.ts). */
+  offset: z
+    .number({ message: 'must be a number' })
+    .min(-1000, 'must be at least -1000')
+    .max(1000, 'must be at most 1000')
+    .default(0),
+  /** Long segment length in Å. */
+  long: z
+    .number({ message: 'must be a number' })
+    .gt(0, 'must be positive')
+    .max(1e4, 'must be at most 10000 Å')
+    .default(1),
+  /** Long/short length ratio; τ by default (the ideal quasiperiodic chain). */
+  ratio: z
+    .number({ message: 'must be a number' })
+    .gt(0, 'must be positive')
+    .max(100, 'must be at most 100')
+    .default((1 + Math.sqrt(5)) / 2),
+  maxPoints: maxPointsSchema,
+});
+export const chainModelSchema = chainParamsSchema.extend({ family: z.literal('fibonacci') });
+export type ChainParams = z.infer<typeof chainModelSchema>;
+export type ChainParamsInput = z.input<typeof chainModelSchema>;

@@ -1,0 +1,7 @@
+/** An element symbol as models take it ("Al", "Zn"; not "X", the unassigned vertex). */
+import { z } from 'zod';
+import { tryAtomicNumber } from '../structure/elements';
+
+export const elementSymbolSchema = z
+  .string()
+  .refine((s) => tryAtomicNumber(s) !== undefined && tryAtomicNumber(s)! > 0, { message: 'unknown element symbol' });

@@ -1,0 +1,231 @@
+import type { SiteClass, Structure } from '../../structure/types';
+import { validateStructure } from '../../structure/validate';
+import { polyhedronVertices, vertexCount, type PolyhedronName } from './polyhedra';
+
+/** One concentric shell of a cluster: a polyhedron's vertices at a radius, all of one kind of site. */
+export interface ClusterShell {
+  /** Label, e.g. "inner icosahedron". */
+  name: string;
+  polyhedron: PolyhedronName;
+  /** Circumradius in Å. */
+  radius: number;
+  /** Majority atomic number (0 = unassigned). */
+  species: number;
+  /** Mixed occupancy, atomic number → fraction. */
+  mix?: Record<number, number>;
+  /** Site occupancy 0..1 (e.g. a partly occupied inner shell). */
+  occupancy?: number;
+}
+
+export interface ClusterTemplate {
+  /** Short name used in site-class labels, e.g. "Mackay". */
+  name: string;
+  /** Where the shell radii come from (and how sure we are). */
+  reference: string;
+  /** Optional atom at the centre. */
+  centre?: { name: string; species: number; mix?: Record<number, number>; occupancy?: number };
+  /** Shells from the inside out. */
+  shells: ClusterShell[];
+}
+
+/**
+ * Mackay-type cluster as in α-(Al,Mn)Si: an Al icosahedron, then 12 Mn on a larger icosahedron and
+ * 30 Al on an icosidodecahedron (54 atoms, centre empty). Cooper & Robinson, Acta Cryst. 20 (1966) 614
+ * (structure of α-AlMnSi); Elser & Henley, Phys. Rev. Lett. 55 (1985) 2883 (the cluster as the
+ * building unit of the icosahedral phase). Radii from memory, approximate — adjust to the refinement.
+ */
+export const MACKAY: ClusterTemplate = {
+  name: 'Mackay',
+  reference:
+    'Cooper & Robinson, Acta Cryst. 20 (1966) 614; Elser & Henley, PRL 55 (1985) 2883. Radii from memory, approximate.',
+  shells: [
+    { name: 'inner icosahedron', polyhedron: 'icosahedron', radius: 2.5, species: 13 },
+    { name: 'Mn icosahedron', polyhedron: 'icosahedron', radius: 4.7, species: 25 },
+    { name: 'icosidodecahedron', polyhedron: 'icosidodecahedron', radius: 4.5, species: 13 },
+  ],
+};
+
+/**
+ * Bergman cluster as in Mg32(Al,Zn)49: (Al,Zn) icosahedron, Mg dodecahedron, (Al,Zn) icosahedron
+ * capping its faces (together a 32-atom triacontahedron), then a 60-atom (Al,Zn) truncated icosahedron.
+ * Bergman, Waugh & Pauling, Acta Cryst. 10 (1957) 254. Radii from memory, approximate; Al:Zn taken 1:1.
+ */
+export const BERGMAN: ClusterTemplate = {
+  name: 'Bergman',
+  reference: 'Bergman, Waugh & Pauling, Acta Cryst. 10 (1957) 254. Radii from memory, approximate; Al:Zn set to 1:1.',
+  shells: [
+    { name: 'inner icosahedron', polyhedron: 'icosahedron', radius: 2.6, species: 30, mix: { 13: 0.5, 30: 0.5 } },
+    { name: 'Mg dodecahedron', polyhedron: 'dodecahedron', radius: 4.4, species: 12 },
+    { name: 'outer icosahedron', polyhedron: 'icosahedron', radius: 5.1, species: 30, mix: { 13: 0.5, 30: 0.5 } },
+    { name: 'truncated icosahedron', polyhedron: 'truncated-icosahedron', radius: 6.5, species: 30, mix: { 13: 0.5, 30: 0.5 } },
+  ],
+};
+
+/**
+ * Tsai-type cluster as in YbCd5.7 (the i-phase) and its 1/1 approximant YbCd6: a (disordered) Cd4
+ * tetrahedron, Cd20 dodecahedron, Yb12 icosahedron, Cd30 icosidodecahedron and the Cd rhombic
+ * triacontahedron (here only its 32 vertices; the full 92-atom shell also has 60 atoms on its edges).
+ * Tsai et al., Nature 408 (2000) 537; Gómez & Lidin, Angew. Chem. Int. Ed. 40 (2001) 4037;
+ * Takakura et al., Nature Materials 6 (2007) 58. Radii from memory, approximate.
+ */
+export const TSAI: ClusterTemplate = {
+  name: 'Tsai',
+  reference:
+    'Tsai et al., Nature 408 (2000) 537; Gómez & Lidin, Angew. Chem. 40 (2001) 4037; Takakura et al., Nat. Mater. 6 (2007) 58. Radii from memory, approximate.',
+  shells: [
+    { name: 'Cd tetrahedron', polyhedron: 'tetrahedron', radius: 1.6, species: 48 },
+    { name: 'Cd dodecahedron', polyhedron: 'dodecahedron', radius: 4.6, species: 48 },
+    { name: 'Yb icosahedron', polyhedron: 'icosahedron', radius: 5.6, species: 70 },
+    { name: 'Cd icosidodecahedron', polyhedron: 'icosidodecahedron', radius: 6.5, species: 48 },
+    { name: 'Cd triacontahedron', polyhedron: 'rhombic-triacontahedron', radius: 7.9, species: 48 },
+  ],
+};
+
+export const CLUSTER_PRESETS: Readonly<Record<string, ClusterTemplate>> = { mackay: MACKAY, bergman: BERGMAN, tsai: TSAI };
+
+/** Number of atoms in one cluster of a template. */
+export function clusterSize(t: ClusterTemplate): number {
+  return (t.centre ? 1 : 0) + t.shells.reduce((a, s) => a + vertexCount(s.polyhedron), 0);
+}
+
+/** The template's atoms about the origin: positions, and for each the shell index (−1 = centre). */
+export function clusterAtoms(t: ClusterTemplate): { positions: Float64Array; species: Uint16Array; shell: Int16Array } {
+  checkTemplate(t);
+  const pos: number[] = [];
+  const sp: number[] = [];
+  const sh: number[] = [];
+  if (t.centre) {
+    pos.push(0, 0, 0);
+    sp.push(t.centre.species);
+    sh.push(-1);
+  }
+  t.shells.forEach((s, k) => {
+    const v = polyhedronVertices(s.polyhedron, s.radius);
+    for (let i = 0; i < v.length; i += 3) {
+      pos.push(v[i], v[i + 1], v[i + 2]);
+      sp.push(s.species);
+      sh.push(k);
+    }
+  });
+  return { positions: Float64Array.from(pos), species: Uint16Array.from(sp), shell: Int16Array.from(sh) };
+}
+
+function checkTemplate(t: ClusterTemplate): void {
+  if (t.shells.length === 0 && !t.centre) throw new Error(`cluster "${t.name}": no shells and no centre`);
+  t.shells.forEach((s, k) => {
+    if (!(s.radius >= 0) || !Number.isFinite(s.radius)) throw new Error(`cluster "${t.name}" shell ${k + 1} (${s.name}): radius must be ≥ 0 Å`);
+    if (s.occupancy !== undefined && !(s.occupancy >= 0 && s.occupancy <= 1)) {
+      throw new Error(`cluster "${t.name}" shell ${k + 1} (${s.name}): occupancy must be within 0..1`);
+    }
+  });
+}
+
+export interface PlaceOptions {
+  /** Keep the input's own atoms (default true); atoms chosen as centres by a predicate are always replaced. */
+  keepOthers?: boolean;
+}
+
+/**
+ * Put a copy of the cluster at each centre. Centres are packed xyz positions, or a predicate on the
+ * input's atoms (those atoms become centres and are replaced by the cluster). Output: the input's
+ * remaining atoms first (their site classes kept; one class per species is made when they had none),
+ * then, cluster by cluster in centre order, the centre atom and the shells from inside out, with one
+ * new site class per shell ("Mackay: Mn icosahedron"). Overlaps between neighbouring clusters are
+ * left in place: follow with mergeClose. Cell and provenance are kept; perp and tiles are dropped
+ * (cluster atoms have no perpendicular-space coordinate, and tile corners would no longer match).
+ */
+export function placeClusters(
+  s: Structure,
+  template: ClusterTemplate,
+  centres: Float64Array | ((i: number) => boolean),
+  opts: PlaceOptions = {},
+): Structure {
+  validateStructure(s);
+  const c = clusterAtoms(template);
+  const n = s.species.length;
+  let centreXyz: Float64Array;
+  const keep = new Uint8Array(n).fill(opts.keepOthers === false ? 0 : 1);
+  if (typeof centres === 'function') {
+    const idx: number[] = [];
+    for (let i = 0; i < n; i++)
+      if (centres(i)) {
+        idx.push(i);
+        keep[i] = 0;
+      }
+    centreXyz = new Float64Array(3 * idx.length);
+    idx.forEach((i, k) => centreXyz.set(s.positions.subarray(3 * i, 3 * i + 3), 3 * k));
+  } else {
+    if (centres.length % 3 !== 0) throw new Error(`placeClusters: centres must be packed xyz (length ${centres.length} is not a multiple of 3)`);
+    centreXyz = centres;
+  }
+  // Site classes: the input's, or one per species when it has none.
+  let classes: SiteClass[];
+  let baseSite: Uint16Array;
+  if (s.site && s.siteClasses) {
+    classes = s.siteClasses.map((x) => ({ ...x }));
+    baseSite = s.site;
+  } else {
+    classes = [];
+    baseSite = new Uint16Array(n);
+    const bySpecies = new Map<number, number>();
+    for (let i = 0; i < n; i++) {
+      if (!keep[i]) continue;
+      const z = s.species[i];
+      if (!bySpecies.has(z)) {
+        bySpecies.set(z, classes.length);
+        classes.push({ name: z === 0 ? 'vertex' : `input ${z}`, species: z });
+      }
+      baseSite[i] = bySpecies.get(z)!;
+    }
+  }
+  const shellClass: number[] = [];
+  const centreClass = template.centre ? classes.length : -1;
+  if (template.centre) {
+    const t = template.centre;
+    classes.push({ name: `${template.name}: ${t.name}`, species: t.species, ...(t.mix ? { mix: { ...t.mix } } : {}), ...(t.occupancy !== undefined ? { occupancy: t.occupancy } : {}) });
+  }
+  for (const sh of template.shells) {
+    shellClass.push(classes.length);
+    classes.push({ name: `${template.name}: ${sh.name}`, species: sh.species, ...(sh.mix ? { mix: { ...sh.mix } } : {}), ...(sh.occupancy !== undefined ? { occupancy: sh.occupancy } : {}) });
+  }
+  if (classes.length > 65535) throw new Error('placeClusters: more than 65535 site classes');
+  let kept = 0;
+  for (let i = 0; i < n; i++) kept += keep[i];
+  const nc = centreXyz.length / 3;
+  const per = c.species.length;
+  const total = kept + nc * per;
+  const positions = new Float64Array(3 * total);
+  const species = new Uint16Array(total);
+  const site = new Uint16Array(total);
+  const anyOcc = s.occupancy !== undefined;
+  const occupancy = anyOcc ? new Float64Array(total).fill(1) : undefined;
+  let m = 0;
+  for (let i = 0; i < n; i++) {
+    if (!keep[i]) continue;
+    positions.set(s.positions.subarray(3 * i, 3 * i + 3), 3 * m);
+    species[m] = s.species[i];
+    site[m] = baseSite[i];
+    if (occupancy && s.occupancy) occupancy[m] = s.occupancy[i];
+    m++;
+  }
+  for (let k = 0; k < nc; k++) {
+    const x = centreXyz[3 * k];
+    const y = centreXyz[3 * k + 1];
+    const z = centreXyz[3 * k + 2];
+    for (let a = 0; a < per; a++) {
+      positions[3 * m] = x + c.positions[3 * a];
+      positions[3 * m + 1] = y + c.positions[3 * a + 1];
+      positions[3 * m + 2] = z + c.positions[3 * a + 2];
+      species[m] = c.species[a];
+      const sh = c.shell[a];
+      site[m] = sh < 0 ? centreClass : shellClass[sh];
+      if (occupancy) occupancy[m] = classes[site[m]].occupancy ?? 1;
+      m++;
+    }
+  }
+  const out: Structure = { positions, species, site, siteClasses: classes, provenance: s.provenance };
+  if (s.cell) out.cell = s.cell;
+  if (s.dim !== undefined) out.dim = s.dim;
+  if (occupancy) out.occupancy = occupancy;
+  return out;
+}

@@ -1,0 +1,70 @@
+/**
+ * Parameters shared by the planar rhombus tilings (penrose/, octagonal/): a round patch or one periodic
+ * approximant cell of a convergent p/q of the tiling's irrational (τ or 1+√2).
+ */
+import { z } from 'zod';
+import { maxPointsSchema } from '../point-cap';
+import { convergents, type QuadraticIrrational } from '../../math/convergents';
+
+/** Largest convergent index offered (cells grow like τ^(2k) or (1+√2)^(2k)). */
+const MAX_CONVERGENTS = 30;
+
+/** What a planar family tells the shared schema: its id, grid size, irrational and how to name it. */
+export interface PlanarFamilySpec<F extends string> {
+  family: F;
+  /** Grid directions (5 Penrose, 4 Ammann–Beenker): the number of γ offsets. */
+  directions: number;
+  irrational: QuadraticIrrational;
+  /** "τ (F(n+1)/F(n))" — how the convergent error names the irrational. */
+  irrationalName: string;
+  /**
+   * Smallest denominator that still gives a valid (non-overlapping) approximant: below it the rational
+   * perpendicular map reverses the order of the grid directions (found by the tile-area test in the tests).
+   */
+  minQ: number;
+}
+
+/** The approximants a planar family offers: its convergents with q ≥ minQ. */
+export function planarConvergents(spec: PlanarFamilySpec<string>) {
+  return convergents(spec.irrational, MAX_CONVERGENTS).filter((c) => c.q >= spec.minQ);
+}
+
+export function planarSchema<F extends string>(spec: PlanarFamilySpec<F>) {
+  const list = planarConvergents(spec);
+  return z
+    .strictObject({
+      family: z.literal(spec.family),
+      /** Patch radius in Å: tiles whose centre lies within it (quasiperiodic patches). */
+      radius: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1e5, 'must be at most 100000 Å').optional(),
+      /** Rhombus edge length in Å. */
+      edge: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1000, 'must be at most 1000 Å').default(1),
+      /** Periodic approximant: the irrational replaced by the convergent p/q. */
+      approximant: z
+        .strictObject({
+          p: z.number().int('must be an integer').min(1, 'must be at least 1'),
+          q: z.number().int('must be an integer').min(1, 'must be at least 1'),
+        })
+        .optional(),
+      /** Grid offsets γ_j (one per direction); Σγ = 0 gives the Penrose tiling proper. Default 0. */
+      gamma: z.array(z.number({ message: 'must be a number' }).min(-100, 'must be at least -100').max(100, 'must be at most 100')).optional(),
+      maxPoints: maxPointsSchema,
+    })
+    .superRefine((v, ctx) => {
+      if (v.radius === undefined && v.approximant === undefined) {
+        ctx.addIssue({ code: 'custom', path: ['radius'], message: 'required unless an approximant is asked for' });
+      }
+      const n = spec.directions;
+      if (v.gamma !== undefined && v.gamma.length !== n) {
+        ctx.addIssue({ code: 'custom', path: ['gamma'], message: `must have ${n} entries for ${spec.family}, got ${v.gamma.length}` });
+      }
+      if (v.approximant) {
+        const { p, q } = v.approximant;
+        if (!list.some((c) => c.p === p && c.q === q)) {
+          const eg = list.slice(0, 4).map((c) => `${c.p}/${c.q}`).join(', ');
+          ctx.addIssue({ code: 'custom', path: ['approximant'], message: `${p}/${q} is not a convergent of ${spec.irrationalName}; use one of ${eg}, …` });
+        }
+      }
+    });
+}
+
+export type PlanarParams = z.infer<ReturnType<typeof planarSchema<string>>>;

@@ -1,0 +1,56 @@
+import { Option, type Command } from 'commander';
+import { CliError } from '../errors';
+import { generateAndEmit, number, ratio, readJsonFile, vector3 } from '../flags';
+import { STRUCTURE_FORMATS } from '../../../lib/formats/write';
+import type { StructureFormat } from '../../../lib/formats/read';
+
+interface Flags {
+  family: 'icosahedral' | 'decagonal';
+  order: { p: number; q: number };
+  aR: number;
+  lattice?: string;
+  offset?: number[];
+  species?: string;
+  decoration?: string;
+  maxPoints?: number;
+  format: StructureFormat;
+}
+
+/** approximant: one periodic cell of a cubic (icosahedral) or decagonal approximant. */
+export function registerApproximant(program: Command): void {
+  program
+    .command('approximant')
+    .description('One periodic cell of a cubic (icosahedral) or decagonal approximant p/q.')
+    .addOption(new Option('--family <name>', 'icosahedral or decagonal').choices(['icosahedral', 'decagonal']).makeOptionMandatory())
+    .requiredOption('--order <p/q>', 'ratio of consecutive Fibonacci numbers: 1/1, 2/1, 3/2, 5/3, …', ratio)
+    .requiredOption('--aR <len>', 'quasilattice constant: rhombohedron edge in Å (decagonal: the rhombus edge)', number)
+    .addOption(new Option('--lattice <type>', 'hyperlattice P, F or I (icosahedral; default P)').choices(['P', 'F', 'I']))
+    .option('--offset <x,y,z>', 'phason offset: window shift in (strained) perpendicular space, Å (icosahedral)', vector3)
+    .option('--species <El>', 'element for the vertices (default X)')
+    .option('--decoration <file>', 'JSON file with site classes {"classes": […]} (icosahedral)')
+    .option('--max-points <n>', 'refuse to build more points than this (default 2000000)', number)
+    .addOption(new Option('--format <fmt>', STRUCTURE_FORMATS.join(', ')).choices(STRUCTURE_FORMATS).default('xyz'))
+    .action((o: Flags) => {
+      if (o.family === 'decagonal') {
+        // Penrose layers stacked along c (lib/models/decagonal); --aR is the rhombus edge.
+        if (o.lattice !== undefined || o.offset !== undefined || o.decoration !== undefined)
+          throw new CliError('--family: decagonal approximants take --order, --aR, --species, --max-points only');
+        generateAndEmit({ family: 'decagonal', approximant: o.order, edge: o.aR, species: o.species, maxPoints: o.maxPoints }, o.format);
+        return;
+      }
+      generateAndEmit(
+        {
+          family: 'icosahedral',
+          mode: 'approximant',
+          order: `${o.order.p}/${o.order.q}`,
+          aR: o.aR,
+          lattice: o.lattice,
+          offset: o.offset,
+          species: o.species,
+          decoration: readJsonFile(o.decoration, '--decoration'),
+          maxPoints: o.maxPoints,
+        },
+        o.format,
+      );
+    });
+}

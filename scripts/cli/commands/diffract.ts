@@ -1,0 +1,16 @@
+import type { Command } from 'commander';
+import { registerDiffractPowder } from './diffract-powder';
+import { registerDiffractAt } from './diffract-at';
+import { registerDiffractZone } from './diffract-zone';
+import { registerDiffractHyperspace } from './diffract-hyperspace';
+import { registerDiffractCompare } from './diffract-compare';
+
+/** diffract powder | at | zone | hyperspace | compare. */
+export function registerDiffract(program: Command): void {
+  const d = program.command('diffract').description('Simulate diffraction of a structure file or an ideal quasicrystal.');
+  registerDiffractPowder(d);
+  registerDiffractAt(d);
+  registerDiffractZone(d);
+  registerDiffractHyperspace(d);
+  registerDiffractCompare(d);
+}

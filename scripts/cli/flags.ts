@@ -1,0 +1,124 @@
+/**
+ * What the commands share: commander argument parsers (a bad value is reported by commander as
+ * "option '--aR <len>' argument 'abc' is invalid. …", exit code 2), reading files, and writing results.
+ */
+import { readFileSync } from 'node:fs';
+import { InvalidArgumentError } from 'commander';
+import type { ZodType } from 'zod';
+import { CliError, zodMessage } from './errors';
+import type { Structure } from '../../lib/structure/types';
+import { readStructure, type StructureFormat } from '../../lib/formats/read';
+import { writeStructure } from '../../lib/formats/write';
+import { generate } from '../../lib/models';
+
+/** commander parser: a finite number. */
+export function number(v: string): number {
+  const x = Number(v);
+  if (v.trim() === '' || !Number.isFinite(x)) throw new InvalidArgumentError('not a number');
+  return x;
+}
+
+/** commander parser: "x,y,z" → three numbers. */
+export function vector3(v: string): number[] {
+  const parts = v.split(',');
+  if (parts.length !== 3) throw new InvalidArgumentError('expected three numbers x,y,z');
+  return parts.map((p) => number(p));
+}
+
+/** commander parser: "p/q" → {p, q} (whether p/q is an allowed order is the model's to say). */
+export function ratio(v: string): { p: number; q: number } {
+  const m = /^\s*(\d+)\s*\/\s*(\d+)\s*$/.exec(v);
+  if (!m) throw new InvalidArgumentError('expected P/Q such as 3/2');
+  return { p: Number(m[1]), q: Number(m[2]) };
+}
+
+/** commander parser: "20:90" → [20, 90] with end > start. */
+export function span(v: string): [number, number] {
+  const m = /^\s*([-+0-9.eE]+)\s*:\s*([-+0-9.eE]+)\s*$/.exec(v);
+  const a = m ? Number(m[1]) : NaN;
+  const b = m ? Number(m[2]) : NaN;
+  if (!Number.isFinite(a) || !Number.isFinite(b)) throw new InvalidArgumentError('expected START:END, e.g. 20:90');
+  if (!(b > a)) throw new InvalidArgumentError(`end ${b} must exceed start ${a}`);
+  return [a, b];
+}
+
+/** Validate with a zod schema; a failure is the user's to fix (exit 2). */
+export function parse<T>(schema: ZodType<T>, input: unknown): T {
+  const r = schema.safeParse(input);
+  if (!r.success) throw new CliError(zodMessage(r.error));
+  return r.data;
+}
+
+export function readText(path: string, flag: string): string {
+  try {
+    return readFileSync(path, 'utf8');
+  } catch (e) {
+    throw new CliError(`${flag}: cannot read "${path}" (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+}
+
+/** A JSON file given to a flag. */
+export function readJsonFile(path: string | undefined, flag: string): unknown {
+  if (path === undefined) return undefined;
+  const text = readText(path, flag);
+  try {
+    return JSON.parse(text) as unknown;
+  } catch (err) {
+    throw new CliError(`${flag}: "${path}" is not valid JSON (${err instanceof Error ? err.message : String(err)})`);
+  }
+}
+
+/** Any structure file the formats engine reads (XYZ, extended XYZ, CIF, Tauforge JSON). */
+export function loadStructure(path: string): Structure {
+  const text = readText(path, '--input');
+  try {
+    return readStructure(text, path);
+  } catch (e) {
+    throw new CliError(`--input: ${(e as Error).message}`);
+  }
+}
+
+/** Round for output: fixed decimals, and −0 → 0, so the same input always prints the same bytes. */
+export function r(x: number, decimals = 6): number {
+  const v = Number(x.toFixed(decimals));
+  return v === 0 ? 0 : v;
+}
+
+/** Run a lib computation; its errors name the field and are the user's to fix. */
+export function compute<T>(f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    if (e instanceof CliError) throw e;
+    throw new CliError((e as Error).message);
+  }
+}
+
+/** Params → Structure through the registry (the only way in), written to stdout in one coordinate format. */
+export function generateAndEmit(params: Record<string, unknown>, format: StructureFormat): void {
+  const s = compute(() => generate(params));
+  const text = writeStructure(s, format);
+  process.stdout.write(text.endsWith('\n') ? text : text + '\n');
+}
+
+/** A flag value that must be a number (for commands that parse their flags after commander). */
+export function num(flag: string, v: string | undefined): number | undefined {
+  if (v === undefined) return undefined;
+  const x = Number(v);
+  if (v.trim() === '' || !Number.isFinite(x)) throw new CliError(`${flag}: "${v}" is not a number`);
+  return x;
+}
+
+export function oneOf<T extends string>(flag: string, v: string, allowed: readonly T[]): T {
+  if (!(allowed as readonly string[]).includes(v)) throw new CliError(`${flag}: must be one of ${allowed.join(', ')}, got "${v}"`);
+  return v as T;
+}
+
+/** "20:90" → [20, 90] (for commands that parse their flags after commander). */
+export function range(flag: string, v: string): [number, number] {
+  try {
+    return span(v);
+  } catch (e) {
+    throw new CliError(`${flag}: ${(e as Error).message}, got "${v}"`);
+  }
+}
