@@ -1,69 +1,80 @@
 /**
- * Exact set of hyperlattice points K ∈ Zⁿ with insertion-order indices: open addressing (linear probing) on
- * the n int32 components, points stored in one growable Int32Array. Replaces a Map keyed by a packed
- * double, which hashes heap numbers and allocates; here lookups compare integers only.
+ * Exact set of integer vectors K ∈ Zⁿ (hyperlattice nodes of any dimension) with insertion-order indices:
+ * open addressing (linear probing on a power-of-two table kept at most half full) over the n int32
+ * components, vectors stored in one growable Int32Array. Lookups compare integers only — no strings, no
+ * packed doubles — and because entries keep insertion order the set doubles as a breadth-first queue:
+ * entry i is coords[n·i … n·i + n − 1].
  *
- * The index range stays what the packed key allowed (|K_j| < 2^⌊52/n⌋⁻¹), with the same error, so patches
- * that were refused before are refused now.
+ * `bound` (optional) refuses components outside [−bound, bound) with a RangeError carrying `boundMessage`:
+ * the planar cut keeps the index range its earlier packed-double key allowed (|K_j| < 2^⌊52/n⌋⁻¹), so the
+ * patches refused before are refused now.
  */
-export class ZTable {
+export class IntVectorSet {
   readonly n: number;
-  /** Points, n per entry, in insertion order (capacity may exceed size·n). */
-  pts: Int32Array;
+  /** Vectors, n per entry, in insertion order (capacity may exceed size·n). */
+  coords: Int32Array;
   size = 0;
+  /** Entry index + 1 per slot; 0 = empty. */
   private slots: Int32Array;
   private mask: number;
-  private readonly half: number;
+  private readonly bound: number;
+  private readonly boundMessage: string;
 
-  constructor(n: number, expected = 1024) {
+  constructor(n: number, expected = 1024, opts: { bound?: number; boundMessage?: string } = {}) {
     this.n = n;
-    this.half = 2 ** Math.floor(52 / n) / 2;
+    this.bound = opts.bound ?? Infinity;
+    this.boundMessage = opts.boundMessage ?? `integer vector component beyond ±${this.bound - 1}`;
     let cap = 1024;
     while (cap < 2 * expected) cap *= 2;
     this.slots = new Int32Array(cap);
     this.mask = cap - 1;
-    this.pts = new Int32Array(Math.max(16, expected) * n);
+    this.coords = new Int32Array(Math.max(16, expected) * n);
   }
 
+  // FNV-style mixing with Math.imul: cheap and the same on every engine.
   private hash(K: ArrayLike<number>, o: number): number {
-    const { n, half } = this;
+    const { n, bound } = this;
     let h = 0x811c9dc5;
     for (let j = 0; j < n; j++) {
       const v = K[o + j];
-      if (v < -half || v >= half) {
-        throw new RangeError(`radius: the patch is too large (hyperlattice index beyond ±${half - 1})`);
-      }
+      if (v < -bound || v >= bound) throw new RangeError(this.boundMessage);
       h = Math.imul(h ^ v, 0x9e3779b1);
       h ^= h >>> 15;
     }
     return h;
   }
 
-  /** Index of K, or −1. */
-  find(K: ArrayLike<number>): number {
-    const { n, pts, slots, mask } = this;
-    let s = this.hash(K, 0) & mask;
+  /** Index of the vector K[o … o+n−1], or −1. */
+  indexOf(K: ArrayLike<number>, o = 0): number {
+    const { n, coords, slots, mask } = this;
+    let s = this.hash(K, o) & mask;
     for (;;) {
       const e = slots[s];
       if (e === 0) return -1;
-      const o = (e - 1) * n;
+      const b = (e - 1) * n;
       let j = 0;
-      while (j < n && pts[o + j] === K[j]) j++;
+      while (j < n && coords[b + j] === K[o + j]) j++;
       if (j === n) return e - 1;
       s = (s + 1) & mask;
     }
   }
 
-  /** Appends K (which must not be present) and returns its index. */
-  insert(K: ArrayLike<number>): number {
+  /** Insert K[o … o+n−1]; its new index, or −1 when it was already there. */
+  add(K: ArrayLike<number>, o = 0): number {
+    return this.indexOf(K, o) >= 0 ? -1 : this.insert(K, o);
+  }
+
+  /** Append K[o … o+n−1], which must not be present yet; its index. */
+  insert(K: ArrayLike<number>, o = 0): number {
     const { n } = this;
-    if ((this.size + 1) * n > this.pts.length) {
-      const p = new Int32Array(this.pts.length * 2);
-      p.set(this.pts);
-      this.pts = p;
+    if ((this.size + 1) * n > this.coords.length) {
+      const grown = new Int32Array(this.coords.length * 2);
+      grown.set(this.coords);
+      this.coords = grown;
     }
     const i = this.size++;
-    this.pts.set(K as ArrayLike<number>, i * n);
+    const c = this.coords;
+    for (let j = 0; j < n; j++) c[i * n + j] = K[o + j];
     if (2 * this.size > this.slots.length) this.rehash();
     else this.place(i);
     return i;
@@ -71,7 +82,7 @@ export class ZTable {
 
   private place(i: number): void {
     const { slots, mask } = this;
-    let s = this.hash(this.pts, i * this.n) & mask;
+    let s = this.hash(this.coords, i * this.n) & mask;
     while (slots[s] !== 0) s = (s + 1) & mask;
     slots[s] = i + 1;
   }

@@ -3,7 +3,7 @@ import { icosahedralPatch } from '../../lib/models/icosahedral/patch';
 import { icosahedralBasis, toPerp } from '../../lib/models/icosahedral/hyperlattice';
 import { TAU } from '../../lib/math/golden';
 import { zonotopeWindow, windowContains, windowVolume } from '../../lib/models/icosahedral/window';
-import { Int6Set } from '../../lib/models/icosahedral/int6-set';
+import { IntVectorSet } from '../../lib/math/int-vector-set';
 
 const OFF: [number, number, number] = [0.0123, -0.0271, 0.0316]; // generic phason offset (no boundary ties)
 
@@ -60,7 +60,7 @@ describe('icosahedral patch (3D Penrose tiling from Z⁶)', () => {
     const R = 14;
     const b = icosahedralBasis(aR);
     const s = icosahedralPatch({ aR, radius: R + 3, offset: OFF });
-    const n6 = new Int6Set(s.species.length);
+    const n6 = new IntVectorSet(6, s.species.length);
     const X = new Float64Array(6);
     // Recover integer nodes from positions: toHyper needs perp too, which the Structure stores.
     for (let i = 0; i < s.species.length; i++) {

@@ -27,10 +27,11 @@ import { ENGINE_VERSION } from '../../version';
 import type { HyperlatticeType } from './hyperlattice';
 import { hyperlatticeCosets, hyperlatticeSteps, icosahedralBasis, icosahedralDirections, inHyperlattice } from './hyperlattice';
 import { TAU } from '../../math/golden';
-import { Int6Set } from './int6-set';
+import { IntVectorSet } from '../../math/int-vector-set';
 import type { CutClass } from './cut';
 import { classWindows, projectShifted, siteClassesOf, vertexClass } from './cut';
 import type { Window } from './window';
+import { walkCoset } from './walk';
 import { windowContains, windowVolume, zonotopeWindow } from './window';
 import { DEFAULT_MAX_POINTS, checkPointCap } from '../point-cap';
 
@@ -130,7 +131,7 @@ function reduce(n: Int32Array, s: ArrayLike<number>, p: number, q: number): void
 
 interface CellCut {
   shift: Float64Array;
-  set: Int6Set;
+  set: IntVectorSet;
   /** Integer-unit strained perp image per node. */
   u: Float64Array;
   keep: Int32Array;
@@ -166,47 +167,19 @@ function seedCell(f: ApproximantFrame, lattice: HyperlatticeType, s: ArrayLike<n
 }
 
 function cutCell(f: ApproximantFrame, lattice: HyperlatticeType, s: Float64Array, explore: Window, accept: Window, budget: number, cls: number): CellCut {
-  const set = new Int6Set(1024);
-  let u = new Float64Array(3 * 1024);
   const seed = seedCell(f, lattice, s, explore);
-  if (!seed) return { shift: s, set, u, keep: new Int32Array(0), cls };
+  if (!seed) return { shift: s, set: new IntVectorSet(6, 1), u: new Float64Array(0), keep: new Int32Array(0), cls };
   reduce(seed, s, f.p, f.q);
-  set.add(seed);
-  projectShifted(seed, s, f.M, u, 0);
-  const steps = hyperlatticeSteps(lattice === 'F' ? 'F' : 'P');
-  const su = new Float64Array(3 * steps.length);
-  steps.forEach((st, k) => {
-    for (let i = 0; i < 6; i++) for (let c = 0; c < 3; c++) su[3 * k + c] += st[i] * f.M[3 * i + c];
+  const { set, perp: u } = walkCoset({
+    seed,
+    shift: s,
+    steps: hyperlatticeSteps(lattice === 'F' ? 'F' : 'P'),
+    perp: f.M,
+    explore,
+    budget,
+    budgetMessage: `maxPoints: the cell walk passed ${budget.toLocaleString('en-US')} nodes; raise maxPoints`,
+    reduce: (m) => reduce(m, s, f.p, f.q),
   });
-  const m = new Int32Array(6);
-  for (let head = 0; head < set.size; head++) {
-    const ux = u[3 * head];
-    const uy = u[3 * head + 1];
-    const uz = u[3 * head + 2];
-    for (let k = 0; k < steps.length; k++) {
-      const vx = ux + su[3 * k];
-      const vy = uy + su[3 * k + 1];
-      const vz = uz + su[3 * k + 2];
-      if (!windowContains(explore, vx, vy, vz)) continue;
-      const st = steps[k];
-      const b = 6 * head;
-      const cs = set.coords;
-      for (let i = 0; i < 6; i++) m[i] = cs[b + i] + st[i];
-      reduce(m, s, f.p, f.q);
-      const idx = set.add(m);
-      if (idx < 0) continue;
-      if (idx >= budget) throw new RangeError(`maxPoints: the cell walk passed ${budget.toLocaleString('en-US')} nodes; raise maxPoints`);
-      if (3 * (idx + 1) > u.length) {
-        const g = new Float64Array(u.length * 2);
-        g.set(u);
-        u = g;
-      }
-      // Perpendicular images are unchanged by the periods (M·N_k = 0), so the increment is exact.
-      u[3 * idx] = vx;
-      u[3 * idx + 1] = vy;
-      u[3 * idx + 2] = vz;
-    }
-  }
   const keep: number[] = [];
   for (let e = 0; e < set.size; e++) if (accept === explore || windowContains(accept, u[3 * e], u[3 * e + 1], u[3 * e + 2])) keep.push(e);
   return { shift: s, set, u, keep: Int32Array.from(keep), cls };

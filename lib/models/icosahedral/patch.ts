@@ -18,11 +18,11 @@ import type { Structure, Vec3 } from '../../structure/types';
 import { ENGINE_VERSION } from '../../version';
 import type { HyperlatticeType, IcosahedralBasis } from './hyperlattice';
 import { hyperlatticeCellVolume, hyperlatticeCosets, hyperlatticeSteps, icosahedralBasis, inHyperlattice, toHyper } from './hyperlattice';
-import { Int6Set } from './int6-set';
 import type { CutClass } from './cut';
 import { classWindows, projectShifted, siteClassesOf, vertexClass } from './cut';
 import type { Window } from './window';
 import { windowContains, windowVolume, zonotopeWindow } from './window';
+import { walkCoset } from './walk';
 import { DEFAULT_MAX_POINTS, checkPointCap } from '../point-cap';
 
 const WALK_MARGIN = 2.4;
@@ -47,21 +47,6 @@ export interface BallCut {
   nodes: Int32Array;
   par: Float64Array;
   perp: Float64Array;
-}
-
-function stepImages(steps: Int8Array[], basis: IcosahedralBasis): { sp: Float64Array; sq: Float64Array } {
-  const sp = new Float64Array(3 * steps.length);
-  const sq = new Float64Array(3 * steps.length);
-  steps.forEach((st, k) => {
-    for (let i = 0; i < 6; i++) {
-      if (st[i] === 0) continue;
-      for (let c = 0; c < 3; c++) {
-        sp[3 * k + c] += st[i] * basis.par[3 * i + c];
-        sq[3 * k + c] += st[i] * basis.perp[3 * i + c];
-      }
-    }
-  });
-  return { sp, sq };
 }
 
 /**
@@ -108,58 +93,23 @@ export function cutBall(
   const empty: BallCut = { count: 0, nodes: new Int32Array(0), par: new Float64Array(0), perp: new Float64Array(0) };
   const seed = findSeed(basis, lattice, shift, explore, centre, explore.centre);
   if (!seed) return empty;
-  const steps = hyperlatticeSteps(lattice === 'F' ? 'F' : 'P');
-  const { sp, sq } = stepImages(steps, basis);
-  const set = new Int6Set(1024);
-  let par = new Float64Array(3 * 1024);
-  let perp = new Float64Array(3 * 1024);
-  set.add(seed);
-  projectShifted(seed, shift, basis.par, par, 0);
-  projectShifted(seed, shift, basis.perp, perp, 0);
   const [cx, cy, cz] = centre;
-  const d0 = Math.hypot(par[0] - cx, par[1] - cy, par[2] - cz);
+  const p0 = new Float64Array(3);
+  projectShifted(seed, shift, basis.par, p0, 0);
+  const d0 = Math.hypot(p0[0] - cx, p0[1] - cy, p0[2] - cz);
   const lim = Math.max(radius, d0) + WALK_MARGIN * basis.aR;
-  const lim2 = lim * lim;
-  const m = new Int32Array(6);
-  for (let head = 0; head < set.size; head++) {
-    const b = 6 * head;
-    const px = par[3 * head];
-    const py = par[3 * head + 1];
-    const pz = par[3 * head + 2];
-    const qx = perp[3 * head];
-    const qy = perp[3 * head + 1];
-    const qz = perp[3 * head + 2];
-    for (let k = 0; k < steps.length; k++) {
-      const nx = px + sp[3 * k];
-      const ny = py + sp[3 * k + 1];
-      const nz = pz + sp[3 * k + 2];
-      const dx = nx - cx;
-      const dy = ny - cy;
-      const dz = nz - cz;
-      if (dx * dx + dy * dy + dz * dz > lim2) continue;
-      const ux = qx + sq[3 * k];
-      const uy = qy + sq[3 * k + 1];
-      const uz = qz + sq[3 * k + 2];
-      if (!windowContains(explore, ux, uy, uz)) continue;
-      const st = steps[k];
-      const c = set.coords;
-      for (let i = 0; i < 6; i++) m[i] = c[b + i] + st[i];
-      const idx = set.add(m);
-      if (idx < 0) continue;
-      if (idx >= walkBudget) throw new RangeError(`maxPoints: the walk passed ${walkBudget.toLocaleString('en-US')} nodes; lower the radius or raise maxPoints`);
-      if (3 * (idx + 1) > par.length) {
-        const gp = new Float64Array(par.length * 2);
-        gp.set(par);
-        par = gp;
-        const gq = new Float64Array(perp.length * 2);
-        gq.set(perp);
-        perp = gq;
-      }
-      // Recompute from integers rather than accumulate, so images never drift along long walks.
-      projectShifted(m, shift, basis.par, par, 3 * idx);
-      projectShifted(m, shift, basis.perp, perp, 3 * idx);
-    }
-  }
+  const walk = walkCoset({
+    seed,
+    shift,
+    steps: hyperlatticeSteps(lattice === 'F' ? 'F' : 'P'),
+    perp: basis.perp,
+    explore,
+    budget: walkBudget,
+    budgetMessage: `maxPoints: the walk passed ${walkBudget.toLocaleString('en-US')} nodes; lower the radius or raise maxPoints`,
+    ball: { par: basis.par, centre, lim2: lim * lim },
+  });
+  const { set, perp } = walk;
+  const par = walk.par!;
   const r2 = radius * radius * (1 + 2e-12);
   const keep: number[] = [];
   for (let e = 0; e < set.size; e++) {

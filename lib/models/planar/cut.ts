@@ -24,7 +24,13 @@
 import { convexPolygon, type Polygon } from './window';
 import { integerKernel, reduceBasis2 } from './lattice';
 import { checkPointCap } from '../point-cap';
-import { ZTable } from '../../math/int-vector-set';
+import { IntVectorSet } from '../../math/int-vector-set';
+
+/** The index range of the search: |K_j| < 2^⌊52/n⌋⁻¹, what its earlier packed-double key allowed. */
+function planarBound(n: number) {
+  const bound = 2 ** Math.floor(52 / n) / 2;
+  return { bound, boundMessage: `radius: the patch is too large (hyperlattice index beyond ±${bound - 1})` };
+}
 
 export interface PlanarSpec {
   /** Hyperlattice dimension (4 or 5). */
@@ -254,9 +260,9 @@ export function buildPlanar(
   // edge is looked up once.
   const n2 = 2 * n;
   const half = 2 ** Math.floor(52 / n) / 2;
-  const seen = new ZTable(n, Math.min(Math.ceil(1.2 * estimate) + 64, 4 * maxPoints + 1000));
-  let nb = new Int32Array(n2 * (seen.pts.length / n)).fill(-4);
-  let vx = new Float64Array(seen.pts.length / n), vy = new Float64Array(seen.pts.length / n);
+  const seen = new IntVectorSet(n, Math.min(Math.ceil(1.2 * estimate) + 64, 4 * maxPoints + 1000), planarBound(n));
+  let nb = new Int32Array(n2 * (seen.coords.length / n)).fill(-4);
+  let vx = new Float64Array(seen.coords.length / n), vy = new Float64Array(seen.coords.length / n);
   const add = (K: Int32Array): number => {
     const i = seen.insert(K);
     if (i >= vx.length) {
@@ -278,7 +284,7 @@ export function buildPlanar(
   add(start);
   const K = new Int32Array(n);
   for (let head = 0; head < seen.size; head++) {
-    const pts = seen.pts;
+    const pts = seen.coords;
     for (let j = 0; j < n; j++) K[j] = pts[head * n + j];
     for (let s = 0; s < n2; s++) {
       if (nb[head * n2 + s] !== -4) continue;
@@ -287,10 +293,10 @@ export function buildPlanar(
       const kj = (K[dj] += step);
       // Only K_{s>>1} moved, and the head was in range: its range check stands for the whole of K. The
       // searched set holds window points only, so outside the window there is nothing to look up.
-      if (kj < -half || kj >= half) seen.find(K);
+      if (kj < -half || kj >= half) seen.indexOf(K);
       let r = -1;
       if (inV(K)) {
-        r = seen.find(K);
+        r = seen.indexOf(K);
         if (r < 0) {
           px(K);
           r = inRegion(pxX, pxY) ? add(K) : -2;
@@ -303,7 +309,7 @@ export function buildPlanar(
     if (seen.size > 4 * maxPoints + 1000) throw new Error('maxPoints: search grew past the estimate (internal error)');
   }
   const nV = seen.size;
-  const vpts = seen.pts;
+  const vpts = seen.coords;
 
   // Output vertices in order of first use as a tile corner: outOf[v] for searched vertices, `extra` (with
   // extraOut) for the rare corner outside the search region.
@@ -351,7 +357,7 @@ export function buildPlanar(
     // Quasiperiodic: faces with centre within R, bases in search order.
     const R = (extent as { radius: number }).radius;
     const outOf = new Int32Array(nV).fill(-1);
-    const extra = new ZTable(n, 64);
+    const extra = new IntVectorSet(n, 64, planarBound(n));
     const extraOut: number[] = [];
     const outSearched = (v: number): number => {
       let o = outOf[v];
@@ -359,9 +365,9 @@ export function buildPlanar(
       return o;
     };
     const outOther = (V: Int32Array): number => {
-      const v = seen.find(V);
+      const v = seen.indexOf(V);
       if (v >= 0) return outSearched(v);
-      let e = extra.find(V);
+      let e = extra.indexOf(V);
       if (e < 0) {
         e = extra.insert(V);
         extraOut.push(emit(V, 0));
@@ -416,13 +422,13 @@ export function buildPlanar(
   } else {
     // Approximant: faces whose base K is a cell representative; vertices are cell representatives too.
     const red = reduce;
-    const reps = new ZTable(n, Math.max(64, Math.ceil(estimate)));
+    const reps = new IntVectorSet(n, Math.max(64, Math.ceil(estimate)), planarBound(n));
     const repOut: number[] = [];
     const W = new Int32Array(n);
     const vertexOf = (V: Int32Array): number => {
       W.set(V);
       red(W);
-      let i = reps.find(W);
+      let i = reps.indexOf(W);
       if (i < 0) {
         i = reps.insert(W);
         repOut.push(emit(W, 0));
@@ -430,11 +436,11 @@ export function buildPlanar(
       return repOut[i];
     };
     // Cell representatives among the searched vertices, in search order.
-    const keep = new ZTable(n, Math.max(64, Math.ceil(estimate)));
+    const keep = new IntVectorSet(n, Math.max(64, Math.ceil(estimate)), planarBound(n));
     for (let v = 0; v < nV; v++) {
       for (let j = 0; j < n; j++) W[j] = vpts[v * n + j];
       red(W);
-      if (keep.find(W) < 0) keep.insert(W);
+      if (keep.indexOf(W) < 0) keep.insert(W);
     }
     // Output index of searched vertex i's representative, cached (vertexOf is idempotent).
     const repOf = new Int32Array(nV).fill(-1);
@@ -447,10 +453,10 @@ export function buildPlanar(
       return o;
     };
     for (let v = 0; v < keep.size; v++) {
-      for (let j = 0; j < n; j++) K[j] = keep.pts[v * n + j];
+      for (let j = 0; j < n; j++) K[j] = keep.coords[v * n + j];
       vertexOf(K);
       // Corner tests from the neighbour table when the representative was searched (it nearly always is).
-      const sv = seen.find(K);
+      const sv = seen.indexOf(K);
       for (let a = 0; a < n; a++) {
         for (let b = a + 1; b < n; b++) {
           const kd = kindAB[a * n + b];
