@@ -3,7 +3,7 @@
  * 10⁵ and 10⁶ atoms without a cell, bonds up to 3 Å (nearest neighbours at a/√2 = 2.86 Å, 12 per atom),
  * as the viewer asks for them when the bonds box is ticked. Median of 3 runs after one warm-up.
  */
-import { bondPairs } from '../../lib/view/neighbours';
+import { bondPairs } from '../../lib/view/bonds';
 
 /** fcc ball of about n points, a = 4.05 Å, centred on the origin (same lattice as app/lab/viewer). */
 function fccBall(n: number): Float64Array {

@@ -1,20 +1,30 @@
-import { faceSpacings, toCartesian, toFractional } from './cell';
-import type { Cell } from './types';
+/**
+ * The one neighbour search of Tauforge: every pair of points closer than a cut-off, in O(N), for periodic
+ * cells (triclinic included, every periodic image within the cut-off, so the minimum image and beyond) and
+ * for finite point sets. Used by the checks (minimum distance, shells), by mergeClose and by the viewer's
+ * bonds.
+ */
+import { faceSpacings, type Cell } from './cell';
+import { toCartesian, toFractional, wrapFractional } from './frac';
 
-/** Called once per unordered pair (periodic image) closer than the cut-off: i ≤ j, d = |r_j + shift − r_i|. */
+/**
+ * Called once per unordered pair (periodic image) closer than the cut-off: i ≤ j, (dx, dy, dz) =
+ * r_j + shift − r_i with r wrapped into the cell when periodic, d = |(dx, dy, dz)|.
+ */
 export type PairVisitor = (i: number, j: number, d: number, dx: number, dy: number, dz: number) => void;
 
 /** Upper bound on grid bins per atom: keeps memory O(N) when the cut-off is tiny compared with the box. */
 const MAX_BINS_PER_ATOM = 2;
 
 /**
- * Visit every pair of points closer than rCut, O(N) with a cell list (linked-cell method,
+ * Visit every pair of points closer than rCut (strictly), O(N) with a cell list (linked-cell method,
  * Allen & Tildesley, Computer Simulation of Liquids, §5.3). With a cell the search is periodic for a
  * general triclinic cell: points are wrapped into the cell and binned along fractional axes; bins are
  * at least rCut wide measured between the cell's faces, so two points within rCut are at most
  * ceil(rCut·n/spacing) bins apart along each axis (|Δf_i| = |Δr·a_i*| ≤ rCut/spacing_i). Every
- * periodic image counts as its own pair, including an atom and its own image when the cell is small.
- * Without a cell the same grid covers the bounding box, without wrapping.
+ * periodic image counts as its own pair, including an atom and its own image when the cell is small
+ * (an image and its inverse once: only the lexicographically positive shift). Without a cell the same
+ * grid covers the bounding box, without wrapping. Pairs come by increasing i (deterministic).
  */
 export function forEachPairWithin(positions: Float64Array, cell: Cell | undefined, rCut: number, visit: PairVisitor): void {
   if (!(rCut > 0) || !Number.isFinite(rCut)) throw new RangeError(`cut-off must be a positive number of Å, got ${rCut}`);
@@ -26,11 +36,7 @@ export function forEachPairWithin(positions: Float64Array, cell: Cell | undefine
   let span: [number, number, number];
   const periodic = cell !== undefined;
   if (periodic) {
-    g = toFractional(cell, positions);
-    for (let i = 0; i < g.length; i++) {
-      g[i] -= Math.floor(g[i]);
-      if (g[i] >= 1) g[i] = 0;
-    }
+    g = wrapFractional(toFractional(cell, positions));
     wrapped = toCartesian(cell, g);
     span = faceSpacings(cell);
   } else {
@@ -101,6 +107,7 @@ export function forEachPairWithin(positions: Float64Array, cell: Cell | undefine
           const shiftZero = sx === 0 && sy === 0 && sz === 0;
           // Self-images: count the shift and its negative once (lexicographically positive shift only).
           const selfOk = !shiftZero && (sx > 0 || (sx === 0 && (sy > 0 || (sy === 0 && sz > 0))));
+          // Cartesian shift s·M of the image (s = 0 without a cell).
           const tx = sx * A[0][0] + sy * A[1][0] + sz * A[2][0];
           const ty = sx * A[0][1] + sy * A[1][1] + sz * A[2][1];
           const tz = sx * A[0][2] + sy * A[1][2] + sz * A[2][2];
