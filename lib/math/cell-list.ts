@@ -24,7 +24,10 @@ const MAX_BINS_PER_ATOM = 2;
  * ceil(rCut·n/spacing) bins apart along each axis (|Δf_i| = |Δr·a_i*| ≤ rCut/spacing_i). Every
  * periodic image counts as its own pair, including an atom and its own image when the cell is small
  * (an image and its inverse once: only the lexicographically positive shift). Without a cell the same
- * grid covers the bounding box, without wrapping. Pairs come by increasing i (deterministic).
+ * grid covers the bounding box, without wrapping. Each pair of bins is met once (half the neighbour
+ * offsets), and each pair is measured from its lower index as r_j + shift − r_i, whichever bin it was met
+ * from, so the distances do not depend on the visiting order. That order is by bin, deterministic for a
+ * given input; callers that need an order sort.
  */
 export function forEachPairWithin(positions: Float64Array, cell: Cell | undefined, rCut: number, visit: PairVisitor): void {
   if (!(rCut > 0) || !Number.isFinite(rCut)) throw new RangeError(`cut-off must be a positive number of Å, got ${rCut}`);
@@ -74,55 +77,98 @@ export function forEachPairWithin(positions: Float64Array, cell: Cell | undefine
   for (let b = 0; b < nbin; b++) start[b + 1] += start[b];
   const fill = start.slice(0, nbin);
   const members = new Int32Array(n);
-  for (let i = 0; i < n; i++) members[fill[binOf[i]]++] = i; // ascending i within each bin: deterministic order
+  for (let i = 0; i < n; i++) members[fill[binOf[i]]++] = i; // ascending i within each bin
+  // Positions in bin order, so the pair loops below read memory in sequence.
+  const P = new Float64Array(3 * n);
+  for (let m = 0; m < n; m++) {
+    const i = members[m];
+    P[3 * m] = wrapped[3 * i];
+    P[3 * m + 1] = wrapped[3 * i + 1];
+    P[3 * m + 2] = wrapped[3 * i + 2];
+  }
+  // Half the neighbour offsets (o lexicographically ≥ 0): bin B meets bin B + o, and B + o meets B through
+  // −o, so each pair of bins is visited once. o = 0 pairs atoms of one bin with each other once.
+  const offsets: number[] = [];
+  for (let ox = 0; ox <= reach[0]; ox++)
+    for (let oy = ox === 0 ? 0 : -reach[1]; oy <= reach[1]; oy++)
+      for (let oz = ox === 0 && oy === 0 ? 0 : -reach[2]; oz <= reach[2]; oz++) offsets.push(ox, oy, oz);
   const r2 = rCut * rCut;
   const A = cell ?? [
     [0, 0, 0],
     [0, 0, 0],
     [0, 0, 0],
   ];
-  for (let i = 0; i < n; i++) {
-    const b = binOf[i];
-    const bx = Math.floor(b / (nb[1] * nb[2]));
-    const by = Math.floor(b / nb[2]) % nb[1];
-    const bz = b % nb[2];
-    const xi = wrapped[3 * i];
-    const yi = wrapped[3 * i + 1];
-    const zi = wrapped[3 * i + 2];
-    for (let ox = -reach[0]; ox <= reach[0]; ox++) {
-      const cx = bx + ox;
-      if (!periodic && (cx < 0 || cx >= nb[0])) continue;
-      const sx = Math.floor(cx / nb[0]);
-      const jx = cx - sx * nb[0];
-      for (let oy = -reach[1]; oy <= reach[1]; oy++) {
-        const cy = by + oy;
-        if (!periodic && (cy < 0 || cy >= nb[1])) continue;
-        const sy = Math.floor(cy / nb[1]);
-        const jy = cy - sy * nb[1];
-        for (let oz = -reach[2]; oz <= reach[2]; oz++) {
-          const cz = bz + oz;
-          if (!periodic && (cz < 0 || cz >= nb[2])) continue;
-          const sz = Math.floor(cz / nb[2]);
-          const jz = cz - sz * nb[2];
-          const shiftZero = sx === 0 && sy === 0 && sz === 0;
-          // Self-images: count the shift and its negative once (lexicographically positive shift only).
-          const selfOk = !shiftZero && (sx > 0 || (sx === 0 && (sy > 0 || (sy === 0 && sz > 0))));
-          // Cartesian shift s·M of the image (s = 0 without a cell).
-          const tx = sx * A[0][0] + sy * A[1][0] + sz * A[2][0];
-          const ty = sx * A[0][1] + sy * A[1][1] + sz * A[2][1];
-          const tz = sx * A[0][2] + sy * A[1][2] + sz * A[2][2];
-          const nbk = (jx * nb[1] + jy) * nb[2] + jz;
-          for (let m = start[nbk]; m < start[nbk + 1]; m++) {
-            const j = members[m];
-            if (j < i || (j === i && !selfOk)) continue;
-            const dx = wrapped[3 * j] + tx - xi;
-            const dy = wrapped[3 * j + 1] + ty - yi;
-            const dz = wrapped[3 * j + 2] + tz - zi;
-            const d2 = dx * dx + dy * dy + dz * dz;
-            if (d2 < r2) visit(i, j, Math.sqrt(d2), dx, dy, dz);
+  const [n0, n1, n2] = nb;
+  const [[a00, a01, a02], [a10, a11, a12], [a20, a21, a22]] = A;
+  // Translation of the zero shift, by the same formula as any other (its zeros may be −0).
+  const t0x = 0 * a00 + 0 * a10 + 0 * a20;
+  const t0y = 0 * a01 + 0 * a11 + 0 * a21;
+  const t0z = 0 * a02 + 0 * a12 + 0 * a22;
+  for (let bx = 0; bx < n0; bx++)
+    for (let by = 0; by < n1; by++)
+      for (let bz = 0; bz < n2; bz++) {
+        const b = (bx * n1 + by) * n2 + bz;
+        const m0 = start[b];
+        const m1 = start[b + 1];
+        if (m0 === m1) continue;
+        for (let k = 0; k < offsets.length; k += 3) {
+          const cx = bx + offsets[k];
+          const cy = by + offsets[k + 1];
+          const cz = bz + offsets[k + 2];
+          if (!periodic && (cx >= n0 || cy < 0 || cy >= n1 || cz < 0 || cz >= n2)) continue;
+          // Image shift s (in cells) of the other bin, and its Cartesian translation t = s·M; seen from the
+          // other bin the shift is −s (written 0 − s so that s = 0 stays +0, exactly as computed from there).
+          const sx = cx >= 0 && cx < n0 ? 0 : Math.floor(cx / n0);
+          const sy = cy >= 0 && cy < n1 ? 0 : Math.floor(cy / n1);
+          const sz = cz >= 0 && cz < n2 ? 0 : Math.floor(cz / n2);
+          let tx = t0x;
+          let ty = t0y;
+          let tz = t0z;
+          let ux = t0x;
+          let uy = t0y;
+          let uz = t0z;
+          if (sx !== 0 || sy !== 0 || sz !== 0) {
+            tx = sx * a00 + sy * a10 + sz * a20;
+            ty = sx * a01 + sy * a11 + sz * a21;
+            tz = sx * a02 + sy * a12 + sz * a22;
+            const rx = 0 - sx;
+            const ry = 0 - sy;
+            const rz = 0 - sz;
+            ux = rx * a00 + ry * a10 + rz * a20;
+            uy = rx * a01 + ry * a11 + rz * a21;
+            uz = rx * a02 + ry * a12 + rz * a22;
+          }
+          const other = ((cx - sx * n0) * n1 + (cy - sy * n1)) * n2 + (cz - sz * n2);
+          const same = offsets[k] === 0 && offsets[k + 1] === 0 && offsets[k + 2] === 0;
+          const q1 = start[other + 1];
+          for (let m = m0; m < m1; m++) {
+            const a = members[m];
+            const xa = P[3 * m];
+            const ya = P[3 * m + 1];
+            const za = P[3 * m + 2];
+            for (let q = same ? m + 1 : start[other]; q < q1; q++) {
+              const c = members[q];
+              // Always measured from the lower index i to the image of j (a self-image only arises for
+              // o ≠ 0, whose shift is then lexicographically positive: each ± pair once).
+              let dx: number;
+              let dy: number;
+              let dz: number;
+              if (a <= c) {
+                dx = P[3 * q] + tx - xa;
+                dy = P[3 * q + 1] + ty - ya;
+                dz = P[3 * q + 2] + tz - za;
+              } else {
+                dx = xa + ux - P[3 * q];
+                dy = ya + uy - P[3 * q + 1];
+                dz = za + uz - P[3 * q + 2];
+              }
+              const d2 = dx * dx + dy * dy + dz * dz;
+              if (d2 < r2) {
+                if (a <= c) visit(a, c, Math.sqrt(d2), dx, dy, dz);
+                else visit(c, a, Math.sqrt(d2), dx, dy, dz);
+              }
+            }
           }
         }
       }
-    }
-  }
 }

@@ -37,13 +37,19 @@ export function bondPairs(
     points = new Float64Array(3 * shown.length);
     for (let k = 0; k < shown.length; k++) points.set(positions.subarray(3 * shown[k], 3 * shown[k] + 3), 3 * k);
   }
-  const out: number[] = [];
+  // A typed buffer that doubles as it fills: millions of bonds without a boxed JS array.
+  let out = new Uint32Array(Math.min(2 * maxBonds, 16 * n));
+  let len = 0;
   let found = 0;
   forEachPairWithin(points, undefined, cutoff, (i, j, d) => {
-    if (!(d > minDistance)) return;
-    if (found++ >= maxBonds) return;
-    if (index) out.push(index[i], index[j]);
-    else out.push(i, j);
+    if (!(d > minDistance) || found++ >= maxBonds) return;
+    if (len + 2 > out.length) {
+      const grown = new Uint32Array(Math.min(2 * maxBonds, 2 * out.length));
+      grown.set(out);
+      out = grown;
+    }
+    out[len++] = index ? index[i] : i;
+    out[len++] = index ? index[j] : j;
   });
-  return { pairs: Uint32Array.from(out), truncated: found > maxBonds };
+  return { pairs: out.slice(0, len), truncated: found > maxBonds };
 }
