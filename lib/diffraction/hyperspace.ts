@@ -27,6 +27,7 @@
  *    One window per node means the amplitude is the window transform for every allowed h.
  */
 import { icosahedralBasis, inReciprocalLattice, reciprocalBasis, TAU, type HyperlatticeType } from '../tiling/hyperlattice';
+import { norm } from '../math/vec3';
 import type { Radiation } from './form-factors';
 import { scatteringFactor } from './form-factors';
 import { intervalTransform, polygonTransform, symmetricBodyTransform, zonotopeBody } from './window-transform';
@@ -334,8 +335,8 @@ export function icosahedralPeaks(o: HyperOptions): HyperPeak[] {
           qq[c] += h[j] * rb.perp[3 * j + c];
         }
       }
-      const a = Math.hypot(qp[0], qp[1], qp[2]);
-      const b = Math.hypot(qq[0], qq[1], qq[2]);
+      const a = norm(qp);
+      const b = norm(qq);
       if (a > o.qmax + 1e-12 || b > qperpMax) return;
       const amp = symmetricBodyTransform(body, qq) * factor(o, a);
       const csg = csgFromHyper(h);
