@@ -1,6 +1,6 @@
 /**
  * Reading a zod 4 schema as a form: which control each field needs, its bounds and its default. The form
- * follows the shared schemas in lib/params, so a field added there shows up here without a code change.
+ * follows the family schemas in lib/models/<family>/schema.ts, so a field added there shows up here without a code change.
  */
 import type { z } from 'zod';
 import { fieldMessages } from '@/lib/zod-text';

@@ -1,7 +1,8 @@
 'use client';
 /** What is known about the picked atoms, and the distance and angle between them. */
 import type { Structure } from '@/lib/structure/types';
-import { symbolOf, toFractional } from '@/lib/structure';
+import { toFractional } from '@/lib/math/frac';
+import { symbolOf } from '@/lib/structure';
 import { angleAt, distanceBetween } from '@/lib/view/pick';
 import type { ViewStore } from './store';
 

@@ -10,7 +10,7 @@ import * as THREE from 'three';
 import type { Structure } from '@/lib/structure/types';
 import { directionVector } from '@/lib/view/axes';
 import { projectionRange, slabAround, type Ball, type Slab } from '@/lib/view/slab';
-import type { Vec3 } from '@/lib/view/vec';
+import type { Vec3 } from '@/lib/math/vec3';
 import { applyClip, createClipUniforms } from './impostorMaterial';
 import { Bonds, CellEdges, ImpostorAtoms, NaiveAtoms, PickMarks } from './layers';
 import { Rig, type ViewerHandle } from './rig';

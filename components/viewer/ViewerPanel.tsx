@@ -5,7 +5,7 @@ import { saveAs } from 'file-saver';
 import type { Structure } from '@/lib/structure/types';
 import { axesOfFold, directionLabel, directionVector, type Direction, type Fold } from '@/lib/view/axes';
 import { projectionRange, type Slab } from '@/lib/view/slab';
-import type { Vec3 } from '@/lib/view/vec';
+import type { Vec3 } from '@/lib/math/vec3';
 import type { ViewerHandle } from './rig';
 import type { ViewStore } from './store';
 

@@ -6,7 +6,7 @@
 import { useEffect, useMemo } from 'react';
 import * as THREE from 'three';
 import type { Cell } from '@/lib/structure/types';
-import { bondPairs } from '@/lib/view/neighbours';
+import { bondPairs } from '@/lib/view/bonds';
 import { speciesRadius } from '@/lib/view/palette';
 import {
   createBondGeometry,
@@ -99,7 +99,7 @@ function PickMark({ centre, radius, clip, last }: { centre: [number, number, num
   return <mesh geometry={geometry} material={material} frustumCulled={false} renderOrder={10} />;
 }
 
-/** Bonds under the cut-off (cell list in lib/view), drawn as instanced tubes in one draw call. */
+/** Bonds under the cut-off (the shared cell list, lib/math/cell-list.ts), drawn as instanced tubes in one draw call. */
 export function Bonds({ positions, cutoff, clip, maxBonds = 400_000, onCount }: { positions: Float64Array; cutoff: number; clip: ClipUniforms; maxBonds?: number; onCount?: (n: number, truncated: boolean) => void }) {
   const list = useMemo(() => bondPairs(positions, cutoff, { maxBonds }), [positions, cutoff, maxBonds]);
   useEffect(() => onCount?.(list.pairs.length / 2, list.truncated), [list, onCount]);

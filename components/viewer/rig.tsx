@@ -10,7 +10,7 @@ import { directionVector } from '@/lib/view/axes';
 import { pickAtom } from '@/lib/view/pick';
 import type { Ball, Slab } from '@/lib/view/slab';
 import { visibleMask } from '@/lib/view/slab';
-import type { Vec3 } from '@/lib/view/vec';
+import type { Vec3 } from '@/lib/math/vec3';
 import type { ViewStore } from './store';
 import { ROTATE_PER_PIXEL, ViewCamera } from './viewCamera';
 import { renderTimed } from './timing';

@@ -1,7 +1,7 @@
 /** What the scene needs from a Structure, computed once per structure (and per radius scale). */
 import type { Structure } from '@/lib/structure/types';
 import { distinctSpecies, speciesColour, speciesRadius } from '@/lib/view/palette';
-import type { Vec3 } from '@/lib/view/vec';
+import type { Vec3 } from '@/lib/math/vec3';
 
 export interface SpeciesBatch {
   z: number;

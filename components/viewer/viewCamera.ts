@@ -6,7 +6,7 @@
  */
 import * as THREE from 'three';
 import { viewPose } from '@/lib/view/axes';
-import type { Vec3 } from '@/lib/view/vec';
+import type { Vec3 } from '@/lib/math/vec3';
 import type { CameraMode } from './store';
 
 /** Vertical field of view of the perspective camera, degrees. */

@@ -8,26 +8,27 @@
  * share of points in window W_k and g the scattering factor times Debye–Waller. Intensities are |F/N|²
  * (so a perfect crystal-like peak is g², and I(0) = g(0)²), plus a relative scale (strongest Q ≠ 0 = 100).
  *
- * Families and conventions (the same as the generators in lib/tiling):
+ * Families and conventions (the same as the generators in lib/models):
  *  - fibonacci: Z², points (n_L, n_S), x = n_L ℓ + n_S s with ℓ = aR, s = aR/τ; y = (n_S − n_L/τ)·s;
- *    window [−s, s/τ) (lib/tiling/fibonacci.ts). Indices (h, k) with Q·(n_L, n_S) phase 2π(h n_L + k n_S).
- *  - penrose: Z⁵, e_j = a(cos 2πj/5, sin 2πj/5), e⊥_j = a(cos 4πj/5, sin 4πj/5) (lib/tiling/penrose.ts,
+ *    window [−s, s/τ) (lib/models/chain/generate.ts). Indices (h, k) with Q·(n_L, n_S) phase 2π(h n_L + k n_S).
+ *  - penrose: Z⁵, e_j = a(cos 2πj/5, sin 2πj/5), e⊥_j = a(cos 4πj/5, sin 4πj/5) (lib/models/penrose/generate.ts,
  *    edge a = aR), index level k = Σn_j ∈ {1,2,3,4}; windows: pentagons conv{e⊥_j} (k = 1), conv{e⊥_j + e⊥_{j+2}}
  *    (k = 2) and their negatives (k = 4, 3) — the slices of the projected 5-cube (de Bruijn 1981). The 5D
  *    basis is orthogonal with |B_j|² = 5a²/2, so Q∥ = (4π/5a) Σ h_j e_j/a and the level phase is 2π k Σh_j/5.
  *    h and h + (1,1,1,1,1) are the same peak: indices are reported with h_5 = 0 (four integers).
- *  - octagonal: Z⁴, e_j = a(cos jπ/4, sin jπ/4), e⊥_j = a(cos 3jπ/4, sin 3jπ/4), j = 0…3 (lib/tiling/octagonal.ts,
+ *  - octagonal: Z⁴, e_j = a(cos jπ/4, sin jπ/4), e⊥_j = a(cos 3jπ/4, sin 3jπ/4), j = 0…3 (lib/models/octagonal/generate.ts,
  *    edge a = aR), one window for every node: the regular octagon W = Σ_j [0,1]·e⊥_j of edge a (the projected
  *    4-cube, Beenker 1982), centred at ½Σe⊥_j rather than at 0. The 4D basis B_j = (e_j, e⊥_j) is orthogonal
  *    (cos kπ/4 + cos 3kπ/4 = 0 for k = 1, 2, 3) with |B_j|² = 2a², so B*_j = (π/a²)·B_j: Q∥ = (π/a²) Σ h_j e_j,
  *    Q⊥ = (π/a²) Σ h_j e⊥_j, four integers with no redundancy. A grid offset γ moves W by P⊥γ: phases only.
- *  - icosahedral: the 6D lattice of lib/tiling/hyperlattice.ts (P, F or I), window the triacontahedron
+ *  - icosahedral: the 6D lattice of lib/models/icosahedral/hyperlattice.ts (P, F or I), window the triacontahedron
  *    Σ[−½,½]e_i⊥ on every node, Q = Σ h_i E*_i with h in the dual lattice (P: Z⁶; F: Z⁶ ∪ Z⁶ + ½(1,…,1);
  *    I: Σh even — hyperlattice.ts item 4), with Cahn–Shechtman–Gratias indices and N, M (indexing.ts).
  *    One window per node means the amplitude is the window transform for every allowed h.
  */
 import { icosahedralBasis, inReciprocalLattice, reciprocalBasis, type HyperlatticeType } from '../models/icosahedral/hyperlattice';
 import { TAU } from '../math/golden';
+import { norm } from '../math/vec3';
 import type { Radiation } from './form-factors';
 import { scatteringFactor } from './form-factors';
 import { intervalTransform, polygonTransform, symmetricBodyTransform, zonotopeBody } from './window-transform';
@@ -335,8 +336,8 @@ export function icosahedralPeaks(o: HyperOptions): HyperPeak[] {
           qq[c] += h[j] * rb.perp[3 * j + c];
         }
       }
-      const a = Math.hypot(qp[0], qp[1], qp[2]);
-      const b = Math.hypot(qq[0], qq[1], qq[2]);
+      const a = norm(qp);
+      const b = norm(qq);
       if (a > o.qmax + 1e-12 || b > qperpMax) return;
       const amp = symmetricBodyTransform(body, qq) * factor(o, a);
       const csg = csgFromHyper(h);

@@ -1,7 +1,6 @@
 export * from './form-factors';
 export * from './wavelengths';
 export * from './units';
-export * from './lattice';
 export * from './scatterers';
 export * from './hkl-sum';
 export * from './cartesian-sum';

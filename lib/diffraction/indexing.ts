@@ -6,7 +6,7 @@
  * (from τ² = τ + 1; the N, M definitions are quoted from memory of that paper). Our perpendicular basis
  * is the Galois conjugate times τ (hyperlattice.ts), so here |Q⊥|² = c²·τ²·(N − M/τ) = c²(τ²N − τM).
  *
- * The Cartesian axes of lib/tiling/hyperlattice.ts are 2-fold axes (the icosahedron vertices are the
+ * The Cartesian axes of lib/models/icosahedral/hyperlattice.ts are 2-fold axes (the icosahedron vertices are the
  * cyclic permutations of (0, ±1, ±τ)), so from the six hyperlattice indices n_i (Q∥ = Σ n_i e*_i∥ with
  * e*_i∥ ∝ (1,τ,0), (−1,τ,0), (0,1,τ), (0,−1,τ), (τ,0,1), (τ,0,−1)):
  *   h = n1 − n2, h' = n5 + n6;   k = n3 − n4, k' = n1 + n2;   l = n5 − n6, l' = n3 + n4,

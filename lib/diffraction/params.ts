@@ -37,7 +37,7 @@ export const powderParamsSchema = z
 export type PowderParams = z.infer<typeof powderParamsSchema>;
 
 export const zoneParamsSchema = z.object({
-  /** "5", "3", "2" (icosahedral axes of lib/tiling/hyperlattice.ts) or "u,v,w". */
+  /** "5", "3", "2" (icosahedral axes of lib/models/icosahedral/hyperlattice.ts) or "u,v,w". */
   axis: z.string().regex(/^(5|3|2|-?\d+,-?\d+,-?\d+)$/, 'axis must be 5, 3, 2 or u,v,w'),
   qmax: z.number().positive('qmax must be positive (Å⁻¹)').max(50),
   radiation: radiationSchema.default('xray'),

@@ -4,10 +4,14 @@
  *   F(h) = Σ_g g_g(s) · Σ_{j∈g} w_j exp(2πi h·x_j),   s = sinθ/λ = 1/(2d),  |Q| = 2π/d,  phase Q·r = 2π h·x
  *
  * (International Tables Vol. B §1.2; g_g includes exp(−B s²)). The per-group sums come from hkl-sum.ts.
+ * Reciprocal vectors b_i with a_i · b_j = δ_ij (no 2π, lib/math reciprocal()), so G = h b1 + k b2 + l b3
+ * has |G| = 1/d and Q = 2π G; fractional x_i = r · b_i.
  */
+import { toFractional } from '../math/frac';
+import { reciprocal, vecMat, type Mat3 } from '../math/mat3';
+import { norm } from '../math/vec3';
 import type { Structure } from '../structure/types';
 import type { Radiation } from './form-factors';
-import { fractional, gVector, norm, reciprocalCell } from './lattice';
 import { groupAtoms, groupFactor } from './scatterers';
 import { hklPartialSums, rowsFromSortedHkl } from './hkl-sum';
 
@@ -29,7 +33,7 @@ export interface HklFactors {
 export function enumerateHkl(s: Structure, dMin: number): Int32Array {
   if (!s.cell) throw new Error('cell: the structure is not periodic; use the Debye or zone-axis routes for patches');
   if (!(dMin > 0) || !Number.isFinite(dMin)) throw new Error(`dMin: must be a positive length in Å, got ${dMin}`);
-  const recip = reciprocalCell(s.cell);
+  const recip = reciprocal(s.cell);
   const dim = s.dim ?? 3;
   const gMax = 1 / dMin;
   // |h| = |a1 · G| ≤ |a1| |G|.
@@ -45,7 +49,7 @@ export function enumerateHkl(s: Structure, dMin: number): Int32Array {
     for (let k = -kMax; k <= kMax; k++) {
       for (let l = -lMax; l <= lMax; l++) {
         if (h === 0 && k === 0 && l === 0) continue;
-        const g = gVector(recip, h, k, l);
+        const g = vecMat([h, k, l], recip);
         if (g[0] * g[0] + g[1] * g[1] + g[2] * g[2] <= g2max) out.push(h, k, l);
       }
     }
@@ -56,8 +60,8 @@ export function enumerateHkl(s: Structure, dMin: number): Int32Array {
 /** Structure factors for a sorted hkl list (see enumerateHkl). */
 export function structureFactorsHkl(s: Structure, hkl: Int32Array, radiation: Radiation): HklFactors {
   if (!s.cell) throw new Error('cell: the structure is not periodic');
-  const recip = reciprocalCell(s.cell);
-  const frac = fractional(s.cell, s.positions);
+  const recip = reciprocal(s.cell);
+  const frac = toFractional(s.cell, s.positions);
   const { groups, groupOf, weight } = groupAtoms(s);
   const rows = rowsFromSortedHkl(hkl);
   const m = rows.count;
@@ -70,7 +74,7 @@ export function structureFactorsHkl(s: Structure, hkl: Int32Array, radiation: Ra
 /** F = Σ_g g_g(s) G_g for each reflection, from group partial sums (also used by the worker path). */
 export function combineGroups(
   hkl: Int32Array,
-  recip: ReturnType<typeof reciprocalCell>,
+  recip: Mat3,
   groups: ReturnType<typeof groupAtoms>['groups'],
   radiation: Radiation,
   gre: Float64Array,
@@ -82,7 +86,7 @@ export function combineGroups(
   const im = new Float64Array(m);
   const f2 = new Float64Array(m);
   for (let i = 0; i < m; i++) {
-    const g = norm(gVector(recip, hkl[3 * i], hkl[3 * i + 1], hkl[3 * i + 2]));
+    const g = norm(vecMat(hkl.subarray(3 * i, 3 * i + 3), recip));
     d[i] = 1 / g;
     const s2 = (g * g) / 4;
     let r = 0;

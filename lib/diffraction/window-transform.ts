@@ -11,6 +11,8 @@
  *   with e[…] the divided difference of exp (Hermite–Genocchi formula), computed stably also for
  *   coincident a_j (see expDividedDifference).
  */
+import { determinant } from '../math/mat3';
+import { cross, dot, type Vec3 } from '../math/vec3';
 
 export function intervalTransform(k: number, length: number, centre = 0): [number, number] {
   const x = (k * length) / 2;
@@ -136,9 +138,9 @@ export function symmetricBodyTransform(body: SymmetricConeBody, k: ArrayLike<num
   for (let t = 0; t < nS; t++) {
     b[0] = 0;
     for (let v = 0; v < d; v++) {
-      let dot = 0;
-      for (let c = 0; c < d; c++) dot += k[c] * body.simplices[t * d * d + v * d + c];
-      b[v + 1] = -dot;
+      let kv = 0;
+      for (let c = 0; c < d; c++) kv += k[c] * body.simplices[t * d * d + v * d + c];
+      b[v + 1] = -kv;
     }
     const [re] = expDividedDifference(b);
     sum += fact * body.volumes[t] * re;
@@ -154,23 +156,20 @@ export function symmetricBodyTransform(body: SymmetricConeBody, k: ArrayLike<num
 export function zonotopeBody(vectors: ArrayLike<number>, scale = 1): SymmetricConeBody {
   const m = vectors.length / 3;
   const v = (i: number, c: number) => vectors[3 * i + c] * scale;
+  const gen = (i: number): Vec3 => [v(i, 0), v(i, 1), v(i, 2)];
   const simplices: number[] = [];
   const volumes: number[] = [];
   for (let i = 0; i < m; i++) {
     for (let j = i + 1; j < m; j++) {
-      const n = [
-        v(i, 1) * v(j, 2) - v(i, 2) * v(j, 1),
-        v(i, 2) * v(j, 0) - v(i, 0) * v(j, 2),
-        v(i, 0) * v(j, 1) - v(i, 1) * v(j, 0),
-      ];
+      const n = cross(gen(i), gen(j));
       const c = [0, 0, 0];
       for (let l = 0; l < m; l++) {
         if (l === i || l === j) continue;
-        const dot = n[0] * v(l, 0) + n[1] * v(l, 1) + n[2] * v(l, 2);
-        if (Math.abs(dot) < 1e-12 * (Math.abs(n[0]) + Math.abs(n[1]) + Math.abs(n[2]) + 1e-300)) {
+        const side = dot(n, gen(l));
+        if (Math.abs(side) < 1e-12 * (Math.abs(n[0]) + Math.abs(n[1]) + Math.abs(n[2]) + 1e-300)) {
           throw new Error('window: zonotope generators are not in general position');
         }
-        const sg = Math.sign(dot) / 2;
+        const sg = Math.sign(side) / 2;
         for (let q = 0; q < 3; q++) c[q] += sg * v(l, q);
       }
       const corner = (si: number, sj: number) => [0, 1, 2].map((q) => c[q] + (si * v(i, q)) / 2 + (sj * v(j, q)) / 2);
@@ -179,10 +178,9 @@ export function zonotopeBody(vectors: ArrayLike<number>, scale = 1): SymmetricCo
         [corner(-1, -1), corner(1, 1), corner(-1, 1)],
       ];
       for (const tri of tris) {
-        const [a, bb, cc] = tri;
-        const det =
-          a[0] * (bb[1] * cc[2] - bb[2] * cc[1]) - a[1] * (bb[0] * cc[2] - bb[2] * cc[0]) + a[2] * (bb[0] * cc[1] - bb[1] * cc[0]);
-        simplices.push(...a, ...bb, ...cc);
+        // Tetrahedron (0, a, b, c): volume |det[a; b; c]|/6.
+        const det = determinant(tri);
+        simplices.push(...tri[0], ...tri[1], ...tri[2]);
         volumes.push(Math.abs(det) / 6);
       }
     }

@@ -1,7 +1,7 @@
 /**
  * Zone-axis patterns: the reciprocal plane perpendicular to a beam direction.
  *
- * Axes: "5", "3", "2" are the icosahedral axes in the lib/tiling/hyperlattice.ts frame — 5-fold along
+ * Axes: "5", "3", "2" are the icosahedral axes in the lib/models/icosahedral/hyperlattice.ts frame — 5-fold along
  * u1 ∝ (1, τ, 0) (a vertex of the icosahedron), 3-fold along (1, 1, 1) (centre of the face spanned by
  * the mutually adjacent vertices (1,τ,0), (0,1,τ), (τ,0,1)), 2-fold along (0, 0, 1) (the coordinate axes
  * bisect edges, e.g. (1,τ,0)+(−1,τ,0) ∥ y). [u, v, w] is the lattice direction u·a + v·b + w·c of a
@@ -16,13 +16,14 @@
  * In-plane coordinates (qx, qy) are along e1, e2: e1 = unit(axis × c), c the coordinate axis least
  * parallel to the beam, e2 = axis × e1 (deterministic).
  */
-import type { Structure, Vec3 } from '../structure/types';
+import { reciprocal, vecMat } from '../math/mat3';
+import { cross, dot, normalize, norm, scale, type Vec3 } from '../math/vec3';
+import type { Structure } from '../structure/types';
 import { TAU } from '../math/golden';
 import type { Radiation } from './form-factors';
 import { groupAtoms, groupFactor } from './scatterers';
 import { gridPartialSums, type PlaneGrid } from './cartesian-sum';
 import { enumerateHkl, structureFactorsHkl } from './structure-factor';
-import { gVector, reciprocalCell } from './lattice';
 
 export type ZoneAxisSpec = '5' | '3' | '2' | [number, number, number];
 
@@ -36,31 +37,18 @@ export function parseAxis(text: string): ZoneAxisSpec {
   return v;
 }
 
-function unit(v: Vec3): Vec3 {
-  const n = Math.hypot(v[0], v[1], v[2]);
-  return [v[0] / n, v[1] / n, v[2] / n];
-}
-function cross(a: Vec3, b: Vec3): Vec3 {
-  return [a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]];
-}
-function dot(a: Vec3, b: Vec3): number {
-  return a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
-}
-
 /** Beam direction and in-plane frame for an axis spec. */
 export function zoneFrame(axis: ZoneAxisSpec, s?: Structure): { axis: Vec3; e1: Vec3; e2: Vec3 } {
   let a: Vec3;
   if (axis === '5') a = [1, TAU, 0];
   else if (axis === '3') a = [1, 1, 1];
   else if (axis === '2') a = [0, 0, 1];
-  else if (s?.cell) {
-    const c = s.cell;
-    a = [0, 1, 2].map((i) => axis[0] * c[0][i] + axis[1] * c[1][i] + axis[2] * c[2][i]) as Vec3;
-  } else a = [axis[0], axis[1], axis[2]];
-  a = unit(a);
+  else if (s?.cell) a = vecMat(axis, s.cell);
+  else a = [axis[0], axis[1], axis[2]];
+  a = normalize(a);
   const absd = a.map(Math.abs);
   const pick: Vec3 = absd[2] <= absd[0] && absd[2] <= absd[1] ? [0, 0, 1] : absd[1] <= absd[0] ? [0, 1, 0] : [1, 0, 0];
-  const e1 = unit(cross(a, pick));
+  const e1 = normalize(cross(a, pick));
   const e2 = cross(a, e1);
   return { axis: a, e1, e2 };
 }
@@ -119,7 +107,7 @@ export function zoneLayers(s: Structure, o: ZoneOptions): ZoneLayers {
   for (let layer = 0; layer < count; layer++) {
     const t = count === 1 ? 0 : -slab + (2 * slab * layer) / (count - 1);
     const q0: Vec3 = [0, 1, 2].map((c) => -o.qmax * (e1[c] + e2[c]) + t * axis[c]) as Vec3;
-    layers.push({ t, grid: { q0, du: e1.map((x) => x * step) as Vec3, dv: e2.map((x) => x * step) as Vec3, na: n, nb: n } });
+    layers.push({ t, grid: { q0, du: scale(e1, step), dv: scale(e2, step), na: n, nb: n } });
   }
   return { frame, n, step, layers };
 }
@@ -217,7 +205,7 @@ function rank(spots: ZoneSpot[], threshold: number, originTol: number): ZoneSpot
 export function crystalZone(s: Structure, o: ZoneOptions): ZoneSpot[] {
   if (!s.cell) throw new Error('cell: crystalZone needs a periodic structure');
   const frame = zoneFrame(o.axis, s);
-  const recip = reciprocalCell(s.cell);
+  const recip = reciprocal(s.cell);
   const all = enumerateHkl(s, (2 * Math.PI) / o.qmax);
   const lattice = typeof o.axis !== 'string';
   const nmax = o.laueZones ?? 0;
@@ -229,7 +217,7 @@ export function crystalZone(s: Structure, o: ZoneOptions): ZoneSpot[] {
       const [u, v, w] = o.axis as [number, number, number];
       if (Math.abs(h * u + k * v + l * w) > nmax) continue;
     } else {
-      const g = gVector(recip, h, k, l);
+      const g = vecMat([h, k, l], recip);
       if (Math.abs(2 * Math.PI * dot(g, frame.axis)) > slab) continue;
     }
     keep.push(h, k, l);
@@ -238,12 +226,12 @@ export function crystalZone(s: Structure, o: ZoneOptions): ZoneSpot[] {
   const f = structureFactorsHkl(s, hkl, o.radiation ?? 'xray');
   const spots: ZoneSpot[] = [];
   for (let i = 0; i < hkl.length / 3; i++) {
-    const g = gVector(recip, hkl[3 * i], hkl[3 * i + 1], hkl[3 * i + 2]).map((x) => 2 * Math.PI * x) as Vec3;
+    const g = scale(vecMat(hkl.subarray(3 * i, 3 * i + 3), recip), 2 * Math.PI);
     const spot: ZoneSpot = {
       qx: dot(g, frame.e1),
       qy: dot(g, frame.e2),
       qz: dot(g, frame.axis),
-      q: Math.hypot(g[0], g[1], g[2]),
+      q: norm(g),
       intensity: f.f2[i],
       relative: 0,
       hkl: [hkl[3 * i], hkl[3 * i + 1], hkl[3 * i + 2]],

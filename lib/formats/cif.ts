@@ -1,5 +1,8 @@
 import { ENGINE_VERSION } from '../version';
-import { cellFromParameters, cellParameters, cellVolume, toCartesian, toFractional } from '../structure/cell';
+import { cellFromParameters, cellParameters, cellVolume } from '../math/cell';
+import { toCartesian, toFractional } from '../math/frac';
+import { identity, vecMat } from '../math/mat3';
+import { norm } from '../math/vec3';
 import { symbolOf, tryAtomicNumber } from '../structure/elements';
 import type { Cell, Structure } from '../structure/types';
 import { validateStructure } from '../structure/validate';
@@ -275,8 +278,8 @@ export function readCif(text: string, opts: CifReadOptions = {}): Structure {
 }
 
 function isIdentity(op: SymOp): boolean {
-  const I = [1, 0, 0, 0, 1, 0, 0, 0, 1];
-  return op.rot.every((x, i) => x === I[i]) && op.trans.every((t) => t === 0);
+  const I = identity();
+  return op.rot.every((row, i) => row.every((x, k) => x === I[i][k])) && op.trans.every((t) => t === 0);
 }
 
 /** Minimum-image distance (Å) between two fractional points; checks the 27 neighbouring images. */
@@ -286,13 +289,7 @@ function periodicDistance(cell: Cell, f: number[], g: number[]): number {
   for (let i = -1; i <= 1; i++)
     for (let j = -1; j <= 1; j++)
       for (let k = -1; k <= 1; k++) {
-        const u = d0[0] + i;
-        const v = d0[1] + j;
-        const w = d0[2] + k;
-        const x = u * cell[0][0] + v * cell[1][0] + w * cell[2][0];
-        const y = u * cell[0][1] + v * cell[1][1] + w * cell[2][1];
-        const z = u * cell[0][2] + v * cell[1][2] + w * cell[2][2];
-        best = Math.min(best, Math.hypot(x, y, z));
+        best = Math.min(best, norm(vecMat([d0[0] + i, d0[1] + j, d0[2] + k], cell)));
       }
   return best;
 }

@@ -1,7 +1,10 @@
-/** A symmetry operation in fractional coordinates: x' = R·x + t (R row-major 3×3). */
+import { matVec, type Mat3 } from '../math/mat3';
+import { add, type Vec3 } from '../math/vec3';
+
+/** A symmetry operation in fractional coordinates: x' = R·x + t (R as rows, acting on column vectors). */
 export interface SymOp {
-  rot: [number, number, number, number, number, number, number, number, number];
-  trans: [number, number, number];
+  rot: Mat3;
+  trans: Vec3;
 }
 
 /**
@@ -12,8 +15,12 @@ export interface SymOp {
 export function parseSymop(text: string): SymOp {
   const parts = text.replace(/\s+/g, '').toLowerCase().split(',');
   if (parts.length !== 3) throw new Error(`symmetry operation "${text}" must have three comma-separated parts`);
-  const rot = [0, 0, 0, 0, 0, 0, 0, 0, 0] as SymOp['rot'];
-  const trans = [0, 0, 0] as SymOp['trans'];
+  const rot: Mat3 = [
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+  ];
+  const trans: Vec3 = [0, 0, 0];
   parts.forEach((p, row) => {
     if (p === '') throw new Error(`symmetry operation "${text}": part ${row + 1} is empty`);
     const re = /([+-]?)([^+-]+)/g;
@@ -27,7 +34,7 @@ export function parseSymop(text: string): SymOp {
       const v = /^(\d*\.?\d*(?:\/\d+)?)\*?([xyz])$/.exec(term);
       if (v) {
         const coef = v[1] === '' ? 1 : parseFraction(v[1], text);
-        rot[3 * row + 'xyz'.indexOf(v[2])] += sign * coef;
+        rot[row]['xyz'.indexOf(v[2])] += sign * coef;
       } else {
         trans[row] += sign * parseFraction(term, text);
       }
@@ -46,11 +53,6 @@ function parseFraction(s: string, whole: string): number {
 }
 
 /** Apply an operation to fractional coordinates (u, v, w). */
-export function applySymop(op: SymOp, u: number, v: number, w: number): [number, number, number] {
-  const r = op.rot;
-  return [
-    r[0] * u + r[1] * v + r[2] * w + op.trans[0],
-    r[3] * u + r[4] * v + r[5] * w + op.trans[1],
-    r[6] * u + r[7] * v + r[8] * w + op.trans[2],
-  ];
+export function applySymop(op: SymOp, u: number, v: number, w: number): Vec3 {
+  return add(matVec(op.rot, [u, v, w]), op.trans);
 }

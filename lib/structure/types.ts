@@ -3,11 +3,12 @@
  * Coordinates are Cartesian, in ångström, packed x y z x y z … in a Float64Array.
  * 1D and 2D models (chains, tilings) use the same type with z (and y) = 0.
  */
+import type { Cell } from '../math/cell';
+import type { Vec3 } from '../math/vec3';
 import type { ModelParams } from '../models/params';
 
-export type Vec3 = [number, number, number];
-/** Lattice vectors a, b, c as rows, in Å. */
-export type Cell = [Vec3, Vec3, Vec3];
+// The vector and cell types live with their maths in lib/math; re-exported so a Structure's parts come from one place.
+export type { Cell, Vec3 };
 
 /** One kind of site: which occupation domain or cluster shell an atom came from. */
 export interface SiteClass {

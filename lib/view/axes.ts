@@ -3,7 +3,7 @@
  * normals (hkl).
  *
  * Icosahedral axes. The six five-fold axes are the parallel-space basis directions e_i∥ of
- * lib/tiling/hyperlattice.ts (the twelve vertices ±u_i of an icosahedron). The fifteen two-fold axes
+ * lib/models/icosahedral/hyperlattice.ts (the twelve vertices ±u_i of an icosahedron). The fifteen two-fold axes
  * pass through edge midpoints, u_a + u_b for neighbouring vertices (u_a·u_b = 1/√5), and the ten
  * three-fold axes through face centres, u_a + u_b + u_c for mutually neighbouring vertices. Each axis
  * is kept once (one of ±).
@@ -14,8 +14,9 @@
  */
 import { icosahedralDirections } from '../models/icosahedral/hyperlattice';
 import { TAU } from '../math/golden';
-import type { Cell } from '../structure/types';
-import { add, cross, dot, normalize, scale, type Vec3 } from './vec';
+import type { Cell } from '../math/cell';
+import { reciprocal, vecMat } from '../math/mat3';
+import { add, dot, norm, normalize, scale, type Vec3 } from '../math/vec3';
 
 export type Fold = 2 | 3 | 5;
 
@@ -72,32 +73,21 @@ export function axesOfFold(fold: Fold): Vec3[] {
   return fold === 5 ? a.five : fold === 3 ? a.three : a.two;
 }
 
-/** Reciprocal vectors a*, b*, c* (rows) of a cell, without 2π: a_i·a_j* = δ_ij. */
-export function reciprocalCell(cell: Cell): Cell {
-  const [a, b, c] = cell;
-  const v = dot(a, cross(b, c));
-  if (!(Math.abs(v) > 1e-12)) throw new RangeError('cell vectors are degenerate (zero volume)');
-  return [scale(cross(b, c), 1 / v), scale(cross(c, a), 1 / v), scale(cross(a, b), 1 / v)];
-}
-
-/** Unit Cartesian direction of [uvw]: in the cell basis when there is a cell, Cartesian otherwise. */
+/** Unit Cartesian direction of [uvw] = u·a + v·b + w·c when there is a cell, Cartesian otherwise. */
 export function latticeDirection(uvw: Vec3, cell?: Cell): Vec3 {
   if (!cell) return normalize(uvw);
-  const [a, b, c] = cell;
-  return normalize(add(add(scale(a, uvw[0]), scale(b, uvw[1])), scale(c, uvw[2])));
+  return normalize(vecMat(uvw, cell));
 }
 
-/** Unit normal of the plane (hkl) from the reciprocal cell; Cartesian (hkl) without a cell. */
+/** Unit normal of the plane (hkl), along h·a* + k·b* + l·c*; Cartesian (hkl) without a cell. */
 export function planeNormal(hkl: Vec3, cell?: Cell): Vec3 {
   if (!cell) return normalize(hkl);
-  const [as, bs, cs] = reciprocalCell(cell);
-  return normalize(add(add(scale(as, hkl[0]), scale(bs, hkl[1])), scale(cs, hkl[2])));
+  return normalize(vecMat(hkl, reciprocal(cell)));
 }
 
 /** Spacing d_hkl = 1/|h a* + k b* + l c*| in Å (needs a cell). */
 export function planeSpacing(hkl: Vec3, cell: Cell): number {
-  const [as, bs, cs] = reciprocalCell(cell);
-  const g = add(add(scale(as, hkl[0]), scale(bs, hkl[1])), scale(cs, hkl[2]));
+  const g = vecMat(hkl, reciprocal(cell));
   return 1 / Math.sqrt(dot(g, g));
 }
 
@@ -119,7 +109,7 @@ export function viewPose(target: Vec3, axis: Vec3, distance: number, upHint: Vec
   const candidates: Vec3[] = [upHint, [0, 1, 0], [0, 0, 1], [1, 0, 0]];
   for (const h of candidates) {
     const p: Vec3 = [h[0] - d[0] * dot(h, d), h[1] - d[1] * dot(h, d), h[2] - d[2] * dot(h, d)];
-    if (Math.hypot(p[0], p[1], p[2]) > 0.1 * Math.hypot(h[0], h[1], h[2])) {
+    if (norm(p) > 0.1 * norm(h)) {
       return { position: add(target, scale(d, distance)), up: normalize(p) };
     }
   }

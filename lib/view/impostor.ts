@@ -11,7 +11,7 @@
  * (orthographic: the ray along −z through the fragment's xy); the fragment's depth is that point's
  * window depth, ½·z_ndc + ½, so spheres cut into each other correctly.
  */
-import { cross, dot, normalize, type Vec3 } from './vec';
+import { cross, dot, normalize, type Vec3 } from '../math/vec3';
 
 /** Column-major 4×4 (the layout of three.js Matrix4.elements). */
 export type Mat4 = ArrayLike<number>;

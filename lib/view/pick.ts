@@ -2,7 +2,7 @@
  * CPU picking and measuring: a ray against every visible atom sphere, nearest hit wins. No GPU read-back,
  * so a pick costs one pass over the atoms (about a millisecond at 10⁵) and follows the slab exactly.
  */
-import { angleDeg, pointAt, sub, type Vec3 } from './vec';
+import { angleDeg, distance, pointAt, sub, type Vec3 } from '../math/vec3';
 
 export interface Ray {
   origin: Vec3;
@@ -64,8 +64,7 @@ export function pickAtom(ray: Ray, positions: ArrayLike<number>, radii: ArrayLik
 
 /** Distance between atoms i and j in Å. */
 export function distanceBetween(positions: ArrayLike<number>, i: number, j: number): number {
-  const d = sub(pointAt(positions, i), pointAt(positions, j));
-  return Math.hypot(d[0], d[1], d[2]);
+  return distance(pointAt(positions, i), pointAt(positions, j));
 }
 
 /** Angle i–j–k at atom j, in degrees. */

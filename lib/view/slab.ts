@@ -4,7 +4,7 @@
  * the convention for slices through a structure; the viewer applies the same rule in its vertex shader
  * (uniforms, no buffer rebuild) and the CPU picking applies it here, so both agree.
  */
-import type { Vec3 } from './vec';
+import type { Vec3 } from '../math/vec3';
 
 export interface Slab {
   /** Unit normal. */

@@ -2,6 +2,7 @@
  * What the workspace's Web Worker runs: pure calls into lib/ (no DOM, no worker globals), so the same code is
  * unit-tested in Node. `report` carries progress stages back to the page.
  */
+import { norm, type Vec3 } from '../math/vec3';
 import type { Structure } from '../structure/types';
 import { composition } from '../structure/checks/composition';
 import { density } from '../structure/checks/density';
@@ -47,7 +48,7 @@ export function summarise(s: Structure): CutSummary {
   } catch {
     /* no composition for an invalid structure */
   }
-  if (s.cell) out.cellLengths = s.cell.map((v) => Math.hypot(v[0], v[1], v[2])) as [number, number, number];
+  if (s.cell) out.cellLengths = s.cell.map(norm) as Vec3;
   if (s.site && s.siteClasses) {
     const counts = new Array(s.siteClasses.length).fill(0);
     for (let i = 0; i < s.site.length; i++) counts[s.site[i]]++;

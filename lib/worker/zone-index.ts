@@ -1,6 +1,6 @@
 /**
  * Six-index labels and |Q⊥| for spots of an icosahedral zone pattern. A spot's Q∥ (Å⁻¹, Cartesian axes of
- * lib/tiling/hyperlattice.ts, which are 2-fold axes) is written, per component, as c·(h + h'τ) with
+ * lib/models/icosahedral/hyperlattice.ts, which are 2-fold axes) is written, per component, as c·(h + h'τ) with
  * c = π/(aR√(2+τ)) (Cahn, Shechtman & Gratias 1986, as in lib/diffraction/indexing.ts); of all integer pairs
  * within the spot's position tolerance we keep the one with the smallest perpendicular part c·(τh − h'),
  * because the window transform makes small-|Q⊥| reflections the strong ones. From τ² = τ + 1,
@@ -49,7 +49,7 @@ export function indexIcosahedralSpot(q: [number, number, number], aR: number, to
 
 /**
  * Four-index labels and |Q⊥| for spots of an Ammann–Beenker (octagonal) tiling of edge a, in the basis of
- * lib/tiling/octagonal.ts and lib/diffraction/hyperspace.ts: Q∥ = (π/a) Σ h_j (cos jπ/4, sin jπ/4), so
+ * lib/models/octagonal/generate.ts and lib/diffraction/hyperspace.ts: Q∥ = (π/a) Σ h_j (cos jπ/4, sin jπ/4), so
  *   qx·a/π = h0 + (h1 − h3)/√2,   qy·a/π = h2 + (h1 + h3)/√2,
  * and, with e⊥_j = (cos 3jπ/4, sin 3jπ/4), Q⊥·a/π = (h0 − (h1 − h3)/√2, −h2 + (h1 + h3)/√2): each component
  * m + n/√2 of Q∥ has the Galois conjugate m − n/√2 as its perpendicular part (up to sign). As for the

@@ -8,7 +8,7 @@
  * P hyperlattice cell, times the cubic cell a(2/1)³ with a(p/q) = 2(pτ+q)a_R/√(2+τ) (Elser & Henley 1985).
  * An approximant's count is not exactly the quasicrystal's density times its volume (the phason strain
  * changes the window), so the check allows 1 %; the exact 136 for the plain P vertex model is the
- * engine's integer count Σ|det| (lib/tiling/approximant.ts), which the downloaded file must match.
+ * engine's integer count Σ|det| (lib/models/icosahedral/approximant.ts), which the downloaded file must match.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';

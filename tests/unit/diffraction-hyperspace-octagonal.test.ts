@@ -34,7 +34,7 @@ describe('hyperspace diffraction: octagonal (Ammann–Beenker) tiling from Z⁴'
     expect(levels.size).toBeGreaterThan(4);
   });
 
-  it('direct summation over a patch from lib/tiling/octagonal.ts (unit form factors, intensity-at.ts) matches the strongest ideal peaks within 5 % (Baake & Grimm, Aperiodic Order vol. 1, 2013, ch. 9: Bragg intensities of a regular model set)', () => {
+  it('direct summation over a patch from lib/models/octagonal/generate.ts (unit form factors, intensity-at.ts) matches the strongest ideal peaks within 5 % (Baake & Grimm, Aperiodic Order vol. 1, 2013, ch. 9: Bragg intensities of a regular model set)', () => {
     for (const edge of [1, 2.3]) {
       const patch = generate({ family: 'octagonal', radius: 40 * edge, edge });
       const n = patch.species.length;

@@ -8,7 +8,7 @@ import type { Structure } from '../../lib/structure/types';
 import { generate } from '../../lib/models';
 
 describe('hyperspace diffraction', () => {
-  it('Fibonacci chain (N = 17712 from lib/tiling/fibonacci.ts): |F(Q)|²/N² at Fourier-module points = sinc²(Q⊥L/2) of the window within 1 % (Baake & Grimm, Aperiodic Order vol. 1, 2013, ch. 9)', () => {
+  it('Fibonacci chain (N = 17712 from lib/models/chain/generate.ts): |F(Q)|²/N² at Fourier-module points = sinc²(Q⊥L/2) of the window within 1 % (Baake & Grimm, Aperiodic Order vol. 1, 2013, ch. 9)', () => {
     const aR = 2.5;
     const chain = generate({ family: 'fibonacci', order: 20, long: aR, ratio: TAU });
     const n = chain.species.length;
@@ -129,7 +129,7 @@ describe('hyperspace diffraction', () => {
     expect(n).toBeGreaterThan(20);
   });
 
-  it('F and I hyperlattices: strongest ideal peaks (F has half-integer indices) match direct sums on patches from lib/tiling/icosahedral.ts within 15 %', () => {
+  it('F and I hyperlattices: strongest ideal peaks (F has half-integer indices) match direct sums on patches from lib/models/icosahedral/patch.ts within 15 %', () => {
     const aR = 4.6;
     for (const lattice of ['F', 'I'] as const) {
       const patch = icosahedralPatch({ aR, radius: lattice === 'F' ? 40 : 28, lattice });
@@ -146,7 +146,7 @@ describe('hyperspace diffraction', () => {
     }
   });
 
-  it('Penrose tiling from lib/tiling/penrose.ts (generic γ, Σγ = 0): its strongest peaks match the ideal intensities within 5 %', () => {
+  it('Penrose tiling from lib/models/penrose/generate.ts (generic γ, Σγ = 0): its strongest peaks match the ideal intensities within 5 %', () => {
     const t = generate({ family: 'penrose', radius: 25, edge: 1, gamma: [0.11, -0.07, 0.23, -0.19, -0.08] });
     const n = t.species.length;
     const peaks = penrosePeaks({ family: 'penrose', aR: 1, qmax: 9, qperpMax: 6, threshold: 0.02 })

@@ -9,7 +9,7 @@ import { TAU } from '../../lib/math/golden';
 import { crystal, cubic, FCC } from './diffraction-helpers';
 
 const aR = 4.6;
-// A ball of the 3D Penrose tiling (primitive hyperlattice, triacontahedron window) from lib/tiling/icosahedral.ts.
+// A ball of the 3D Penrose tiling (primitive hyperlattice, triacontahedron window) from lib/models/icosahedral/patch.ts.
 const patch = icosahedralPatch({ aR, radius: 30 });
 
 function rotate(v: number[], axis: number[], ang: number): number[] {
@@ -102,7 +102,7 @@ describe('zone axes', () => {
   // Note: the 2/1 approximant generated at zero phason offset is not exactly 3-fold symmetric (a few
   // window-boundary points break the cyclic permutation x→y→z), so intensities are only compared
   // under Friedel's law here; the spot lattice must still be 6-fold.
-  it('2/1 cubic approximant (lib/tiling/approximant.ts) down the 3-fold axis: 6-fold spot lattice in the slab, Friedel pairs equal', () => {
+  it('2/1 cubic approximant (lib/models/icosahedral/approximant.ts) down the 3-fold axis: 6-fold spot lattice in the slab, Friedel pairs equal', () => {
     const ap = icosahedralApproximant({ p: 2, q: 1, aR });
     const { spots } = zonePattern(ap, { axis: '3', qmax: 2.5, slab: 1e-6, threshold: 0 });
     expect(spots.length).toBeGreaterThan(12);

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { applySymop, parseSymop, readCif, writeCif } from '@/lib/formats';
-import { cellParameters, toFractional, type Structure } from '@/lib/structure';
+import { cellParameters, toFractional } from '@/lib/math';
+import type { Structure } from '@/lib/structure';
 import { hasPython, runPython } from './structure-pyref';
 
 function approximant(): Structure {

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import * as THREE from 'three';
 import { isOrthographic, quadCorner, quadHalfSize, surfacePoint, windowDepth } from '@/lib/view/impostor';
-import type { Vec3 } from '@/lib/view/vec';
+import type { Vec3 } from '@/lib/math/vec3';
 
 function cameras(): [string, THREE.Camera & { projectionMatrix: THREE.Matrix4 }][] {
   const persp = new THREE.PerspectiveCamera(35, 1.6, 2, 80);

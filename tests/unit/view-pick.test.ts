@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import * as THREE from 'three';
 import { angleAt, distanceBetween, pickAtom, raySphere } from '@/lib/view/pick';
 import { inBall, projectionRange, slabAround, visibleMask } from '@/lib/view/slab';
-import type { Vec3 } from '@/lib/view/vec';
+import type { Vec3 } from '@/lib/math/vec3';
 
 /** Deterministic pseudo-random numbers (mulberry32). */
 function rng(seed: number) {

@@ -1,4 +1,4 @@
-import { cellVolume } from '../cell';
+import { cellVolume } from '../../math/cell';
 import { atomicWeight } from '../elements';
 import type { Structure } from '../types';
 import { validateStructure } from '../validate';

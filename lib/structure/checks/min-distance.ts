@@ -1,5 +1,5 @@
-import { cellVolume } from '../cell';
-import { forEachPairWithin } from '../neighbors';
+import { cellVolume } from '../../math/cell';
+import { forEachPairWithin } from '../../math/cell-list';
 import type { Structure } from '../types';
 import { validateStructure } from '../validate';
 

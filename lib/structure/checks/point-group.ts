@@ -1,43 +1,24 @@
-/** 3×3 matrix, row-major. */
-export type Mat3 = [number, number, number, number, number, number, number, number, number];
+import { determinant, matVec, type Mat3 } from '../../math/mat3';
+import { cross, distance, dot, norm, normalize, scale, type Vec3 } from '../../math/vec3';
 
 export interface PointGroupResult {
   /** Schoenflies symbol, e.g. "Ih", "D5d", "C2v", "C1"; "Kh" for a single point, "D∞h"/"C∞v" for collinear sets. */
   name: string;
   /** Number of operations found (Infinity for Kh, D∞h, C∞v). */
   order: number;
-  /** The operations (Cartesian, about the centroid), identity first; empty for the infinite groups. */
+  /** The operations (Cartesian 3×3 rows acting on column vectors, about the centroid), identity first; empty for the infinite groups. */
   operations: Mat3[];
   /** Centroid used as the fixed point. */
-  centre: [number, number, number];
+  centre: Vec3;
 }
 
 const EPS = 1e-6;
 
-function mul(a: Mat3, v: [number, number, number]): [number, number, number] {
-  return [a[0] * v[0] + a[1] * v[1] + a[2] * v[2], a[3] * v[0] + a[4] * v[1] + a[5] * v[2], a[6] * v[0] + a[7] * v[1] + a[8] * v[2]];
-}
-function det(m: Mat3): number {
-  return m[0] * (m[4] * m[8] - m[5] * m[7]) - m[1] * (m[3] * m[8] - m[5] * m[6]) + m[2] * (m[3] * m[7] - m[4] * m[6]);
-}
-function norm(v: number[]): number {
-  return Math.hypot(v[0], v[1], v[2]);
-}
-function cross(a: number[], b: number[]): [number, number, number] {
-  return [a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]];
-}
-function dot(a: number[], b: number[]): number {
-  return a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
-}
-
-/** Orthonormal frame (u1 ∥ a, u2 in the a,b plane, u3 = u1×u2). */
-function frame(a: number[], b: number[]): [number, number, number][] {
-  const la = norm(a);
-  const u1: [number, number, number] = [a[0] / la, a[1] / la, a[2] / la];
+/** Orthonormal frame (u1 ∥ a, u2 in the a,b plane, u3 = u1×u2): Gram–Schmidt on a, b. */
+function frame(a: Vec3, b: Vec3): Vec3[] {
+  const u1 = normalize(a);
   const p = dot(b, u1);
-  const w = [b[0] - p * u1[0], b[1] - p * u1[1], b[2] - p * u1[2]];
-  const lw = norm(w);
-  const u2: [number, number, number] = [w[0] / lw, w[1] / lw, w[2] / lw];
+  const u2 = normalize([b[0] - p * u1[0], b[1] - p * u1[1], b[2] - p * u1[2]]);
   return [u1, u2, cross(u1, u2)];
 }
 
@@ -53,9 +34,9 @@ function frame(a: number[], b: number[]): [number, number, number][] {
 export function pointGroup(positions: Float64Array, species: Uint16Array | number[], tol = 0.01): PointGroupResult {
   const n = positions.length / 3;
   if (n === 0 || species.length !== n) throw new Error(`pointGroup: need one species per point (${n} points, ${species.length} species)`);
-  const c: [number, number, number] = [0, 0, 0];
+  const c: Vec3 = [0, 0, 0];
   for (let i = 0; i < n; i++) for (let k = 0; k < 3; k++) c[k] += positions[3 * i + k] / n;
-  const p: [number, number, number][] = [];
+  const p: Vec3[] = [];
   for (let i = 0; i < n; i++) p.push([positions[3 * i] - c[0], positions[3 * i + 1] - c[1], positions[3 * i + 2] - c[2]]);
   const r = p.map(norm);
   const far = p.map((_, i) => i).filter((i) => r[i] > tol);
@@ -70,31 +51,39 @@ export function pointGroup(positions: Float64Array, species: Uint16Array | numbe
   const bCand = byClass.filter(notCollinear);
   if (bCand.length === 0) {
     // Collinear: C∞v, or D∞h when inversion maps the set onto itself.
-    const inv: Mat3 = [-1, 0, 0, 0, -1, 0, 0, 0, -1];
+    const inv: Mat3 = [
+      [-1, 0, 0],
+      [0, -1, 0],
+      [0, 0, -1],
+    ];
     const name = mapsOnto(inv, p, species, tol) ? 'D∞h' : 'C∞v';
     return { name, order: Infinity, operations: [], centre: c };
   }
   const b = bCand[0];
   const A = cls(a);
   const B = cls(b);
-  const dab = Math.hypot(p[a][0] - p[b][0], p[a][1] - p[b][1], p[a][2] - p[b][2]);
+  const dab = distance(p[a], p[b]);
   const U = frame(p[a], p[b]);
   const ops: Mat3[] = [];
   for (const a2 of A) {
     for (const b2 of B) {
       if (a2 === b2) continue;
-      const d2 = Math.hypot(p[a2][0] - p[b2][0], p[a2][1] - p[b2][1], p[a2][2] - p[b2][2]);
+      const d2 = distance(p[a2], p[b2]);
       if (Math.abs(d2 - dab) > 2 * tol) continue;
       if (!(norm(cross(p[a2], p[b2])) > tol * Math.max(r[a2], r[b2]))) continue;
       const V = frame(p[a2], p[b2]);
       for (const s of [1, -1]) {
         // R = Σ v_k u_kᵀ, with v3 → s·v3 for the improper candidate.
-        const m = [0, 0, 0, 0, 0, 0, 0, 0, 0] as Mat3;
+        const m: Mat3 = [
+          [0, 0, 0],
+          [0, 0, 0],
+          [0, 0, 0],
+        ];
         for (let k = 0; k < 3; k++) {
           const sk = k === 2 ? s : 1;
-          for (let x = 0; x < 3; x++) for (let y = 0; y < 3; y++) m[3 * x + y] += sk * V[k][x] * U[k][y];
+          for (let x = 0; x < 3; x++) for (let y = 0; y < 3; y++) m[x][y] += sk * V[k][x] * U[k][y];
         }
-        if (ops.some((o) => o.every((v, q) => Math.abs(v - m[q]) < 1e-4))) continue;
+        if (ops.some((o) => o.every((row, x) => row.every((v, y) => Math.abs(v - m[x][y]) < 1e-4)))) continue;
         if (mapsOnto(m, p, species, tol)) ops.push(m);
       }
     }
@@ -105,19 +94,19 @@ export function pointGroup(positions: Float64Array, species: Uint16Array | numbe
 }
 
 function isIdentity(m: Mat3): boolean {
-  return Math.abs(m[0] - 1) < EPS && Math.abs(m[4] - 1) < EPS && Math.abs(m[8] - 1) < EPS;
+  return Math.abs(m[0][0] - 1) < EPS && Math.abs(m[1][1] - 1) < EPS && Math.abs(m[2][2] - 1) < EPS;
 }
 
-function mapsOnto(m: Mat3, p: [number, number, number][], species: ArrayLike<number>, tol: number): boolean {
+function mapsOnto(m: Mat3, p: Vec3[], species: ArrayLike<number>, tol: number): boolean {
   const n = p.length;
   const used = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
-    const q = mul(m, p[i]);
+    const q = matVec(m, p[i]);
     let hit = -1;
     for (let j = 0; j < n; j++) {
       if (used[j] || species[j] !== species[i]) continue;
       if (Math.abs(q[0] - p[j][0]) < tol && Math.abs(q[1] - p[j][1]) < tol && Math.abs(q[2] - p[j][2]) < tol) {
-        if (Math.hypot(q[0] - p[j][0], q[1] - p[j][1], q[2] - p[j][2]) < tol) {
+        if (distance(q, p[j]) < tol) {
           hit = j;
           break;
         }
@@ -134,27 +123,23 @@ interface OpInfo {
   /** Order n of the rotation part (for improper ops: of the rotation in the S_n = σh·C_n reading). */
   n: number;
   /** Axis (rotation axis, or mirror normal / S_n axis), unit, sign arbitrary. */
-  axis: [number, number, number];
+  axis: Vec3;
   kind: 'E' | 'C' | 'i' | 'σ' | 'S';
 }
 
-function rotationAxis(m: Mat3, angle: number): [number, number, number] {
-  if (Math.abs(angle - Math.PI) > 1e-3) {
-    const v: [number, number, number] = [m[7] - m[5], m[2] - m[6], m[3] - m[1]];
-    const l = norm(v);
-    return [v[0] / l, v[1] / l, v[2] / l];
-  }
+function rotationAxis(m: Mat3, angle: number): Vec3 {
+  // R − Rᵀ = 2 sin θ [u]ₓ, so its off-diagonal differences give the axis u.
+  if (Math.abs(angle - Math.PI) > 1e-3) return normalize([m[2][1] - m[1][2], m[0][2] - m[2][0], m[1][0] - m[0][1]]);
   // θ = π: R + I = 2 u uᵀ; take its largest column.
-  const cols = [0, 1, 2].map((k) => [m[k] + (k === 0 ? 1 : 0), m[3 + k] + (k === 1 ? 1 : 0), m[6 + k] + (k === 2 ? 1 : 0)]);
+  const cols = [0, 1, 2].map((k): Vec3 => [m[0][k] + (k === 0 ? 1 : 0), m[1][k] + (k === 1 ? 1 : 0), m[2][k] + (k === 2 ? 1 : 0)]);
   const best = cols.reduce((x, y) => (norm(y) > norm(x) ? y : x));
-  const l = norm(best);
-  return [best[0] / l, best[1] / l, best[2] / l];
+  return normalize(best);
 }
 
 function describe(m: Mat3): OpInfo {
-  const proper = det(m) > 0;
-  const R = proper ? m : (m.map((x) => -x) as Mat3);
-  const cos = Math.max(-1, Math.min(1, (R[0] + R[4] + R[8] - 1) / 2));
+  const proper = determinant(m) > 0;
+  const R: Mat3 = proper ? m : [scale(m[0], -1), scale(m[1], -1), scale(m[2], -1)];
+  const cos = Math.max(-1, Math.min(1, (R[0][0] + R[1][1] + R[2][2] - 1) / 2));
   const theta = Math.acos(cos);
   if (proper) {
     if (theta < 1e-4) return { proper, n: 1, axis: [0, 0, 1], kind: 'E' };
@@ -169,16 +154,16 @@ function describe(m: Mat3): OpInfo {
   return { proper, n: Math.round((2 * Math.PI) / phi), axis, kind: 'S' };
 }
 
-function parallel(u: number[], v: number[]): boolean {
+function parallel(u: Vec3, v: Vec3): boolean {
   return Math.abs(Math.abs(dot(u, v)) - 1) < 1e-3;
 }
-function perpendicular(u: number[], v: number[]): boolean {
+function perpendicular(u: Vec3, v: Vec3): boolean {
   return Math.abs(dot(u, v)) < 1e-3;
 }
 
 /** Distinct axes (up to sign) among the ops of a given kind and order. */
-function axes(info: OpInfo[], pred: (o: OpInfo) => boolean): [number, number, number][] {
-  const out: [number, number, number][] = [];
+function axes(info: OpInfo[], pred: (o: OpInfo) => boolean): Vec3[] {
+  const out: Vec3[] = [];
   for (const o of info) if (pred(o) && !out.some((a) => parallel(a, o.axis))) out.push(o.axis);
   return out;
 }

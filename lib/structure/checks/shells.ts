@@ -1,4 +1,4 @@
-import { forEachPairWithin } from '../neighbors';
+import { forEachPairWithin } from '../../math/cell-list';
 import type { Structure } from '../types';
 import { validateStructure } from '../validate';
 

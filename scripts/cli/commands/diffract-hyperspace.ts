@@ -53,7 +53,7 @@ export function registerDiffractHyperspace(d: Command): void {
         aR: p.aR,
         indexing:
           p.family === 'icosahedral'
-            ? 'six integers in the basis of lib/tiling/hyperlattice.ts, plus Cahn, Shechtman & Gratias, J. Mater. Res. 1 (1986) 13 indices h/h\' k/k\' l/l\' with N, M'
+            ? 'six integers in the basis of lib/models/icosahedral/hyperlattice.ts, plus Cahn, Shechtman & Gratias, J. Mater. Res. 1 (1986) 13 indices h/h\' k/k\' l/l\' with N, M'
             : p.family === 'penrose'
               ? 'four integers (h1..h4, h5 = 0) of the Z⁵ reciprocal lattice, penrose.ts basis'
               : p.family === 'octagonal'
