@@ -1,6 +1,6 @@
 import type { Cell, SiteClass, Structure } from '../../structure/types';
 import { ENGINE_VERSION } from '../../version';
-import type { PlanarResult } from './cut';
+import type { PlanarResult } from './spec';
 
 /** Height of the c axis given to planar approximant cells so periodic exports work; only a, b are meaningful. */
 export const PLANAR_PADDING = 10;
