@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { ProjectHeader } from '@/components/projects/ProjectHeader';
 import { MembersView } from '@/components/projects/MembersView';
-import { Notice } from '@/components/auth/ui';
+import { Notice } from '@/components/ui/messages';
 import { projectForPage } from '@/lib/server/page-data';
 
 export const metadata: Metadata = { title: 'Members' };

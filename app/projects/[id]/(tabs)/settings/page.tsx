@@ -1,7 +1,7 @@
 import type { Metadata } from 'next';
 import { ProjectHeader } from '@/components/projects/ProjectHeader';
 import { SettingsForm } from '@/components/projects/SettingsForm';
-import { Notice } from '@/components/auth/ui';
+import { Notice } from '@/components/ui/messages';
 import { projectForPage } from '@/lib/server/page-data';
 
 export const metadata: Metadata = { title: 'Project settings' };
