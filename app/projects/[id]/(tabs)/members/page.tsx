@@ -1,5 +1,4 @@
 import type { Metadata } from 'next';
-import { ProjectHeader } from '@/components/projects/ProjectHeader';
 import { MembersView } from '@/components/projects/MembersView';
 import { Notice } from '@/components/ui/messages';
 import { projectForPage } from '@/lib/server/page-data';
@@ -9,10 +8,9 @@ export const metadata: Metadata = { title: 'Members' };
 export default async function MembersPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const { actor, project } = await projectForPage(id, `/projects/${id}/members`);
-  return (
-    <div className="space-y-6">
-      <ProjectHeader project={project} tab="Members" />
-      {project.permissions['members.read'] ? <MembersView projectId={project.id} canManage={project.permissions.manage} myId={actor?.id ?? null} /> : <Notice tone="warn">Only members of this project can see who works on it.</Notice>}
-    </div>
+  return project.permissions['members.read'] ? (
+    <MembersView projectId={project.id} canManage={project.permissions.manage} myId={actor?.id ?? null} />
+  ) : (
+    <Notice tone="warn">Only members of this project can see who works on it.</Notice>
   );
 }

@@ -1,5 +1,4 @@
 import type { Metadata } from 'next';
-import { ProjectHeader } from '@/components/projects/ProjectHeader';
 import { SettingsForm } from '@/components/projects/SettingsForm';
 import { Notice } from '@/components/ui/messages';
 import { projectForPage } from '@/lib/server/page-data';
@@ -9,14 +8,9 @@ export const metadata: Metadata = { title: 'Project settings' };
 export default async function SettingsPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const { project } = await projectForPage(id, `/projects/${id}/settings`);
-  return (
-    <div className="space-y-6">
-      <ProjectHeader project={project} tab="Settings" />
-      {project.permissions.manage ? (
-        <SettingsForm id={project.id} name={project.name} description={project.description} tags={project.tags} visibility={project.visibility} canDelete={project.permissions.delete} />
-      ) : (
-        <Notice tone="warn">Only owners of this project can change its settings.</Notice>
-      )}
-    </div>
+  return project.permissions.manage ? (
+    <SettingsForm id={project.id} name={project.name} description={project.description} tags={project.tags} visibility={project.visibility} canDelete={project.permissions.delete} />
+  ) : (
+    <Notice tone="warn">Only owners of this project can change its settings.</Notice>
   );
 }
