@@ -15,10 +15,10 @@ export async function requireSignedIn(back: string): Promise<Actor> {
 
 /**
  * The project behind `/projects/[id]/…` as this request's actor sees it, or `project: null` when it
- * does not exist or is hidden from them. Cached for one request (React `cache`), so the tabs' layout
- * and the page under it read the project once.
+ * does not exist or is hidden from them. Cached for one request (React `cache`), so the layouts and
+ * the page under them read the project once.
  */
-export const loadProject = cache(async (rawId: string): Promise<{ actor: Actor | null; project: ProjectDetail | null }> => {
+const loadProject = cache(async (rawId: string): Promise<{ actor: Actor | null; project: ProjectDetail | null }> => {
   const actor = await currentActor();
   const id = idSchema.safeParse(rawId);
   if (!id.success) return { actor, project: null };
