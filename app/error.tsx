@@ -1,4 +1,5 @@
 'use client';
+import { buttonClass } from '@/components/ui/buttons';
 
 export default function ErrorPage({ error, reset }: { error: Error & { digest?: string }; reset: () => void }) {
   return (
@@ -6,7 +7,7 @@ export default function ErrorPage({ error, reset }: { error: Error & { digest?: 
       <h1 className="text-2xl font-semibold">Something went wrong</h1>
       <p className="text-ink-soft">The page failed while loading. Your saved revisions are safe.</p>
       {error.digest ? <p className="font-mono text-xs text-ink-soft">reference {error.digest}</p> : null}
-      <button type="button" onClick={reset} className="rounded-md bg-tide px-4 py-2 font-medium text-white hover:bg-tide-deep">
+      <button type="button" onClick={reset} className={buttonClass}>
         Try again
       </button>
     </div>

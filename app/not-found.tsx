@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { buttonClass } from '@/components/ui/buttons';
 
 export default function NotFound() {
   return (
@@ -6,7 +7,7 @@ export default function NotFound() {
       <p className="font-mono text-sm text-brass">404</p>
       <h1 className="text-2xl font-semibold">Nothing was cut here</h1>
       <p className="text-ink-soft">The page you asked for does not exist, or you may not see it.</p>
-      <Link href="/" className="inline-block rounded-md bg-tide px-4 py-2 font-medium text-white hover:bg-tide-deep">Back to the start</Link>
+      <Link href="/" className={`inline-block ${buttonClass}`}>Back to the start</Link>
     </div>
   );
 }

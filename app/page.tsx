@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { buttonClass } from '@/components/ui/buttons';
 
 const steps = [
   { title: 'Cut', text: 'Pick a hyperspace model and an order p/q, or a finite patch, and cut a set of points from it.' },
@@ -21,7 +22,7 @@ export default function Home() {
             with measured patterns, and keeps every parameter set reproducible and shareable within your team.
           </p>
           <div className="flex gap-3">
-            <Link href="/projects" className="rounded-md bg-tide px-4 py-2 font-medium text-white hover:bg-tide-deep">
+            <Link href="/projects" className={buttonClass}>
               Open your projects
             </Link>
             <Link href="/explore" className="rounded-md border border-rule bg-card px-4 py-2 font-medium hover:border-tide">

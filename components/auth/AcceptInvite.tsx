@@ -1,8 +1,9 @@
 'use client';
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { send, ApiClientError } from '@/components/tables/api';
-import { Notice, buttonClass } from './ui';
+import { send, ApiClientError } from '@/components/ui/api';
+import { buttonClass } from '@/components/ui/buttons';
+import { Notice } from '@/components/ui/messages';
 
 export function AcceptInvite({ token }: { token: string }) {
   const router = useRouter();

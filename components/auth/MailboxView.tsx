@@ -1,8 +1,9 @@
 'use client';
 import { useState } from 'react';
 import useSWR from 'swr';
-import { fetcher } from '@/components/tables/api';
-import { inputClass, quietButtonClass } from './ui';
+import { fetcher } from '@/components/ui/api';
+import { quietButtonClass } from '@/components/ui/buttons';
+import { inputClass } from '@/components/ui/fields';
 
 interface Mail { id: number; from: string; to: string; subject: string; text: string; receivedAt: string }
 

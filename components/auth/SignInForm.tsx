@@ -3,7 +3,9 @@ import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import Link from 'next/link';
 import { signIn } from 'next-auth/react';
-import { Field, Notice, buttonClass, inputClass } from './ui';
+import { buttonClass } from '@/components/ui/buttons';
+import { Field, inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 import { signinMessage } from './messages';
 
 export function SignInForm(props: { callbackUrl?: string; error?: string; notice?: string }) {

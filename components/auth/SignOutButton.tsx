@@ -1,9 +1,10 @@
 'use client';
 import { signOut } from 'next-auth/react';
+import { quietButtonClass } from '@/components/ui/buttons';
 
 export function SignOutButton() {
   return (
-    <button type="button" onClick={() => signOut({ callbackUrl: '/' })} className="rounded-md border border-rule px-3 py-1.5 text-sm hover:border-tide">
+    <button type="button" onClick={() => signOut({ callbackUrl: '/' })} className={quietButtonClass}>
       Sign out
     </button>
   );

@@ -1,8 +1,10 @@
 'use client';
 import { useState } from 'react';
 import Link from 'next/link';
-import { send, ApiClientError } from '@/components/tables/api';
-import { Field, Notice, buttonClass, inputClass } from './ui';
+import { send, ApiClientError } from '@/components/ui/api';
+import { buttonClass } from '@/components/ui/buttons';
+import { Field, inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 
 export function SignUpForm(props: { invite?: string; invitedEmail?: string; projectName?: string }) {
   const [name, setName] = useState('');

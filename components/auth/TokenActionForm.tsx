@@ -2,8 +2,10 @@
 /** One button that posts a link's token (verify) or a token + new password (reset). */
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { send, ApiClientError } from '@/components/tables/api';
-import { Field, Notice, buttonClass, inputClass } from './ui';
+import { send, ApiClientError } from '@/components/ui/api';
+import { buttonClass } from '@/components/ui/buttons';
+import { Field, inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 
 export function VerifyButton({ token }: { token: string }) {
   const router = useRouter();

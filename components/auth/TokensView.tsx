@@ -1,8 +1,10 @@
 'use client';
 import { useState } from 'react';
 import useSWR from 'swr';
-import { fetcher, send } from '@/components/tables/api';
-import { Notice, buttonClass, dangerButtonClass, inputClass } from './ui';
+import { fetcher, send } from '@/components/ui/api';
+import { buttonClass, dangerButtonClass } from '@/components/ui/buttons';
+import { inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 import type { ApiTokenInfo } from '@/lib/server/tokens';
 
 export function TokensView({ origin }: { origin: string }) {

@@ -1,9 +1,11 @@
 'use client';
 import { useState } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
-import { ServerTable } from '@/components/tables/ServerTable';
-import { send } from '@/components/tables/api';
-import { Notice, dangerButtonClass, inputClass, quietButtonClass } from './ui';
+import { ServerTable } from '@/components/ui/ServerTable';
+import { send } from '@/components/ui/api';
+import { dangerButtonClass, quietButtonClass } from '@/components/ui/buttons';
+import { inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 import type { UserInfo } from '@/lib/server/users';
 
 export function UsersView({ myId }: { myId: number }) {

@@ -2,9 +2,11 @@
 import { useState } from 'react';
 import type { ColumnDef } from '@tanstack/react-table';
 import { saveAs } from 'file-saver';
-import { ServerTable } from '@/components/tables/ServerTable';
-import { send } from '@/components/tables/api';
-import { Notice, buttonClass, dangerButtonClass, inputClass, quietButtonClass } from '@/components/auth/ui';
+import { ServerTable } from '@/components/ui/ServerTable';
+import { getBlob, send } from '@/components/ui/api';
+import { buttonClass, dangerButtonClass, quietButtonClass } from '@/components/ui/buttons';
+import { inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 import type { DatasetInfo } from '@/lib/server/datasets';
 
 function summaryText(d: DatasetInfo): string {
@@ -28,7 +30,9 @@ export function DatasetsView({ projectId, canEdit }: { projectId: number; canEdi
     { id: 'created_at', header: 'Uploaded', cell: ({ row }) => `${row.original.createdAt.slice(0, 10)} by ${row.original.uploadedBy ?? '—'}` },
     { id: 'actions', header: '', cell: ({ row }) => (
       <span className="flex gap-2">
-        <button type="button" className={quietButtonClass} onClick={async () => { const r = await fetch(row.original.downloadUrl); saveAs(await r.blob(), row.original.filename); }}>Download</button>
+        <button type="button" className={quietButtonClass} onClick={async () => {
+          try { saveAs(await getBlob(row.original.downloadUrl), row.original.filename); } catch (e) { setMsg({ tone: 'error', text: (e as Error).message }); }
+        }}>Download</button>
         {canEdit && <button type="button" className={dangerButtonClass} onClick={async () => {
           try { await send('DELETE', `${base}/${row.original.id}`); setKey((k) => k + 1); setMsg({ tone: 'ok', text: `${row.original.filename} deleted.` }); } catch (e) { setMsg({ tone: 'error', text: (e as Error).message }); }
         }}>Delete</button>}

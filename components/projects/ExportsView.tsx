@@ -1,7 +1,7 @@
 'use client';
 import type { ColumnDef } from '@tanstack/react-table';
-import { ServerTable } from '@/components/tables/ServerTable';
-import { quietButtonClass } from '@/components/auth/ui';
+import { ServerTable } from '@/components/ui/ServerTable';
+import { quietButtonClass } from '@/components/ui/buttons';
 import { downloadExport } from './ProjectActions';
 import type { ExportInfo } from '@/lib/server/exports';
 

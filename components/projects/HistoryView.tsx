@@ -3,9 +3,10 @@ import { useState } from 'react';
 import useSWR from 'swr';
 import { useRouter } from 'next/navigation';
 import type { ColumnDef } from '@tanstack/react-table';
-import { ServerTable } from '@/components/tables/ServerTable';
-import { fetcher, send } from '@/components/tables/api';
-import { Notice, quietButtonClass } from '@/components/auth/ui';
+import { ServerTable } from '@/components/ui/ServerTable';
+import { fetcher, send } from '@/components/ui/api';
+import { quietButtonClass } from '@/components/ui/buttons';
+import { Notice } from '@/components/ui/messages';
 import type { RevisionInfo } from '@/lib/server/revisions';
 import type { DiffEntry } from '@/lib/server/json-diff';
 

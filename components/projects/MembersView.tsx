@@ -2,8 +2,10 @@
 import { useState } from 'react';
 import useSWR from 'swr';
 import { useReactTable, getCoreRowModel, getSortedRowModel, getFilteredRowModel, getPaginationRowModel, flexRender, type ColumnDef, type SortingState } from '@tanstack/react-table';
-import { fetcher, send } from '@/components/tables/api';
-import { Notice, buttonClass, dangerButtonClass, inputClass, quietButtonClass } from '@/components/auth/ui';
+import { fetcher, send } from '@/components/ui/api';
+import { buttonClass, dangerButtonClass, quietButtonClass } from '@/components/ui/buttons';
+import { inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 import type { InvitationInfo, MemberInfo } from '@/lib/server/members';
 
 const ROLES = ['owner', 'editor', 'viewer'] as const;

@@ -4,8 +4,10 @@ import { useRouter } from 'next/navigation';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { send, ApiClientError } from '@/components/tables/api';
-import { Field, Notice, buttonClass, inputClass } from '@/components/auth/ui';
+import { send, ApiClientError } from '@/components/ui/api';
+import { buttonClass } from '@/components/ui/buttons';
+import { Field, inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 import type { Starter } from '@/lib/models/starters';
 
 const formSchema = z.object({

@@ -2,8 +2,11 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { saveAs } from 'file-saver';
-import { send, ApiClientError } from '@/components/tables/api';
-import { Notice, buttonClass, inputClass, quietButtonClass } from '@/components/auth/ui';
+import { getBlob, send } from '@/components/ui/api';
+import { buttonClass, quietButtonClass } from '@/components/ui/buttons';
+import { inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
+import { forkProject } from './fork';
 
 export function ForkButton({ projectId, revision, signedIn }: { projectId: number; revision?: number; signedIn: boolean }) {
   const router = useRouter();
@@ -18,11 +21,10 @@ export function ForkButton({ projectId, revision, signedIn }: { projectId: numbe
         className={quietButtonClass}
         onClick={async () => {
           setBusy(true);
-          try {
-            const p = await send<{ id: number }>('POST', `/api/projects/${projectId}/fork`, revision ? { revision } : {});
-            router.push(`/projects/${p.id}`);
-          } catch (e) {
-            setError(e instanceof ApiClientError ? e.message : 'The server could not be reached.');
+          const r = await forkProject(projectId, revision);
+          if (r.id) router.push(`/projects/${r.id}`);
+          else {
+            setError(r.error ?? null);
             setBusy(false);
           }
         }}
@@ -35,9 +37,7 @@ export function ForkButton({ projectId, revision, signedIn }: { projectId: numbe
 }
 
 export async function downloadExport(id: number, filename: string): Promise<void> {
-  const res = await fetch(`/api/exports/${id}/download`);
-  if (!res.ok) throw new Error(`Download failed (${res.status})`);
-  saveAs(await res.blob(), filename);
+  saveAs(await getBlob(`/api/exports/${id}/download`), filename);
 }
 
 const FORMATS = [

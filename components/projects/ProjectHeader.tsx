@@ -1,23 +1,15 @@
 import Link from 'next/link';
 import type { ProjectDetail } from '@/lib/server/projects';
-
-const TABS = [
-  ['', 'Overview'],
-  ['/history', 'History'],
-  ['/members', 'Members'],
-  ['/exports', 'Exports'],
-  ['/datasets', 'Datasets'],
-  ['/settings', 'Settings'],
-] as const;
+import { buttonClass } from '@/components/ui/buttons';
+import { ProjectTabs } from './ProjectTabs';
 
 export function VisibilityBadge({ v }: { v: string }) {
   const cls = v === 'public' ? 'bg-tide-pale text-tide-deep' : v === 'unlisted' ? 'bg-brass-pale text-ink' : 'bg-paper text-ink-soft border border-rule';
   return <span className={`rounded px-1.5 py-0.5 text-xs font-medium ${cls}`}>{v}</span>;
 }
 
-export function ProjectHeader({ project, tab }: { project: ProjectDetail; tab: string }) {
-  const base = `/projects/${project.id}`;
-  const tabs = TABS.filter(([path]) => path !== '/settings' || project.permissions.manage).filter(([path]) => path !== '/members' || project.permissions['members.read']);
+/** Name, owner, lineage, tags and tabs of a project: rendered once by the tabs' layout, above every tab. */
+export function ProjectHeader({ project }: { project: ProjectDetail }) {
   return (
     <header className="space-y-3">
       <div className="flex flex-wrap items-start justify-between gap-4">
@@ -47,22 +39,11 @@ export function ProjectHeader({ project, tab }: { project: ProjectDetail; tab: s
             </p>
           )}
         </div>
-        <Link href={`${base}/workspace`} className="rounded-md bg-tide px-4 py-2 font-medium text-white hover:bg-tide-deep">
+        <Link href={`/projects/${project.id}/workspace`} className={buttonClass}>
           Open workspace
         </Link>
       </div>
-      <nav className="flex gap-1 border-b border-rule text-sm" aria-label="Project">
-        {tabs.map(([path, label]) => (
-          <Link
-            key={path}
-            href={`${base}${path}`}
-            aria-current={tab === label ? 'page' : undefined}
-            className={`-mb-px border-b-2 px-3 py-2 ${tab === label ? 'border-tide font-medium text-tide' : 'border-transparent text-ink-soft hover:text-ink'}`}
-          >
-            {label}
-          </Link>
-        ))}
-      </nav>
+      <ProjectTabs projectId={project.id} canReadMembers={project.permissions['members.read']} canManage={project.permissions.manage} />
     </header>
   );
 }

@@ -1,7 +1,7 @@
 'use client';
 import Link from 'next/link';
 import type { ColumnDef } from '@tanstack/react-table';
-import { ServerTable } from '@/components/tables/ServerTable';
+import { ServerTable } from '@/components/ui/ServerTable';
 import type { ProjectSummary } from '@/lib/server/projects';
 
 const when = (s: string) => new Date(s).toISOString().slice(0, 16).replace('T', ' ');

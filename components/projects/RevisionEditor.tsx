@@ -6,8 +6,10 @@
  */
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { send, ApiClientError } from '@/components/tables/api';
-import { Field, Notice, buttonClass, inputClass, quietButtonClass } from '@/components/auth/ui';
+import { send, ApiClientError } from '@/components/ui/api';
+import { buttonClass, quietButtonClass } from '@/components/ui/buttons';
+import { Field, inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 import type { RevisionInfo } from '@/lib/server/revisions';
 
 export function RevisionEditor({ projectId, head }: { projectId: number; head: RevisionInfo | null }) {

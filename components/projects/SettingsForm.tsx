@@ -1,8 +1,10 @@
 'use client';
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { send, ApiClientError } from '@/components/tables/api';
-import { Field, Notice, buttonClass, dangerButtonClass, inputClass } from '@/components/auth/ui';
+import { send, ApiClientError } from '@/components/ui/api';
+import { buttonClass, dangerButtonClass } from '@/components/ui/buttons';
+import { Field, inputClass } from '@/components/ui/fields';
+import { Notice } from '@/components/ui/messages';
 
 export function SettingsForm(props: { id: number; name: string; description: string; tags: string[]; visibility: string; canDelete: boolean }) {
   const router = useRouter();

@@ -1,6 +1,6 @@
 'use client';
 /**
- * Save a new revision (with a message, against the revision the edits started from) and fork the project.
+ * Save a new revision (with a message, against the revision the edits started from). Forking is components/projects/fork.ts.
  * On 409 the newer revision is shown and the user's edits stay in the form.
  */
 import { useState } from 'react';
@@ -53,15 +53,6 @@ export async function postRevision(projectId: string, params: unknown, message: 
     return { error: body?.error?.message ?? `Saving failed (HTTP ${res.status}).`, fieldErrors: fields && typeof fields === 'object' ? fields : undefined };
   }
   return { saved: revisionFrom(body) };
-}
-
-export async function postFork(projectId: string): Promise<{ id?: string; error?: string }> {
-  const res = await fetch(`/api/projects/${encodeURIComponent(projectId)}/fork`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{}' }).catch(() => null);
-  if (!res) return { error: 'The server could not be reached.' };
-  const body = (await res.json().catch(() => null)) as { id?: unknown; error?: { message?: string } } | null;
-  if (!res.ok) return { error: body?.error?.message ?? `Forking failed (HTTP ${res.status}).` };
-  const id = body?.id;
-  return id !== undefined ? { id: String(id) } : { error: 'The fork was made but the server did not say where.' };
 }
 
 export function SaveDialog({

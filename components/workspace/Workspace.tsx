@@ -16,7 +16,8 @@ import { DiffractionPanel, type DatasetRef } from './DiffractionPanel';
 import { Progress } from './Progress';
 import { useJob } from './useJob';
 import { FORMAT_NAMES, formatUnavailable, saveStructure, slug, type StructureFormat } from './downloads';
-import { SaveDialog, postFork, postRevision, type RevisionRef } from './SavePanel';
+import { SaveDialog, postRevision, type RevisionRef } from './SavePanel';
+import { forkProject as postFork } from '@/components/projects/fork';
 
 export interface WorkspaceProps {
   project?: { id: string; name: string; canEdit: boolean };

@@ -7,16 +7,7 @@ import { decode } from 'next-auth/jwt';
 import { db } from './db';
 import { ApiError } from './errors';
 import { lookupApiToken } from './tokens';
-
-export type SiteRole = 'admin' | 'member';
-
-export interface Actor {
-  id: number;
-  email: string;
-  name: string;
-  siteRole: SiteRole;
-  via: 'session' | 'token';
-}
+import type { Actor, SiteRole } from './authz';
 
 export const SESSION_COOKIES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
 

@@ -6,9 +6,28 @@
  * - A project the actor cannot read answers 404, so private projects do not reveal they exist.
  * - A readable project, action not allowed: 401 when not signed in, 403 when signed in (RFC 9110).
  * - Site admins can read and delete any project (moderation), but edit only where they are members.
+ *
+ * Services start with `access(actor, projectId, action)`: it reads the project's visibility and the
+ * actor's role in one query and then applies authorize().
  */
+import type { Knex } from 'knex';
+import { db } from './db';
 import { ApiError, notFound } from './errors';
-import type { Actor } from './actor';
+
+export type SiteRole = 'admin' | 'member';
+
+/**
+ * Who is asking, however they proved it (lib/server/actor.ts reads the session cookie or the API
+ * token). Kept here, beside the rules, so that the files that find an actor (actor.ts, tokens.ts)
+ * and the services that check one all depend on this file and not on each other.
+ */
+export interface Actor {
+  id: number;
+  email: string;
+  name: string;
+  siteRole: SiteRole;
+  via: 'session' | 'token';
+}
 
 export type ProjectRole = 'owner' | 'editor' | 'viewer';
 export type Visibility = 'private' | 'unlisted' | 'public';
@@ -85,4 +104,25 @@ function forbiddenMessage(action: ProjectAction): string {
 export function permissions(actor: Actor | null, p: ProjectAccess): Record<ProjectAction, boolean> {
   const acts: ProjectAction[] = ['read', 'fork', 'export', 'edit', 'members.read', 'manage', 'delete'];
   return Object.fromEntries(acts.map((a) => [a, allowed(actor, p, a)])) as Record<ProjectAction, boolean>;
+}
+
+/** A project's visibility and the actor's role in it, for authorize(). 404 when there is no such project. */
+export async function loadAccess(actor: Actor | null, projectId: number, k: Knex | Knex.Transaction = db()): Promise<ProjectAccess> {
+  const q = k('projects as p').where('p.id', projectId).select('p.id', 'p.visibility');
+  // One round trip: the membership row comes with the project row (NULL when not a member or signed out).
+  if (actor) {
+    q.leftJoin('project_members as m', function () {
+      this.on('m.project_id', '=', 'p.id').andOn('m.user_id', '=', k.raw('?', [actor.id]));
+    }).select('m.role');
+  }
+  const row = (await q.first()) as { id: number; visibility: Visibility; role?: ProjectRole | null } | undefined;
+  if (!row) throw notFound();
+  return { id: Number(row.id), visibility: row.visibility, role: row.role ?? null };
+}
+
+/** loadAccess + authorize: the first line of every project service. */
+export async function access(actor: Actor | null, projectId: number, action: ProjectAction, k?: Knex | Knex.Transaction): Promise<ProjectAccess> {
+  const a = await loadAccess(actor, projectId, k);
+  authorize(actor, a, action);
+  return a;
 }

@@ -6,11 +6,10 @@
 import { z } from 'zod';
 import { db } from './db';
 import { ApiError } from './errors';
-import type { Actor } from './actor';
+import { access, type Actor } from './authz';
 import { audit } from './audit';
 import { sha256Hex } from './crypto';
 import { iso, listQuery, type Page, contains } from './paging';
-import { access } from './projects';
 import { FormatError, readStructure, sniffFormat } from '../formats';
 import { readMeasured } from '../formats/measured';
 import { symbolOf } from '../structure/elements';

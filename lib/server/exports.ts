@@ -7,11 +7,10 @@
 import { z } from 'zod';
 import { db } from './db';
 import { ApiError } from './errors';
-import type { Actor } from './actor';
+import { access, type Actor } from './authz';
 import { audit } from './audit';
 import { paramsHash, sha256Hex } from './crypto';
 import { iso, listQuery, type Page } from './paging';
-import { access } from './projects';
 import { runExportJob } from './jobs';
 import { ENGINE_VERSION } from '../version';
 

@@ -4,7 +4,8 @@
  */
 import { z } from 'zod';
 import { ApiError } from './errors';
-import { resolveActor, type Actor } from './actor';
+import { resolveActor } from './actor';
+import type { Actor } from './authz';
 import { fieldMessages } from '../zod-text';
 
 export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {

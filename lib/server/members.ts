@@ -7,13 +7,11 @@ import { z } from 'zod';
 import type { Knex } from 'knex';
 import { db } from './db';
 import { ApiError } from './errors';
-import type { Actor } from './actor';
-import type { ProjectRole } from './authz';
+import { access, type Actor, type ProjectRole } from './authz';
 import { audit } from './audit';
 import { sha256Hex, signPayload, verifySigned } from './crypto';
 import { sendMail, siteUrl } from './mail';
 import { iso } from './paging';
-import { access } from './projects';
 
 export const INVITE_DAYS = 7;
 const ROLES = ['owner', 'editor', 'viewer'] as const;

@@ -1,16 +1,13 @@
 /** Projects: create from a starter, list, read with lineage, change settings, delete, fork. */
 import { z } from 'zod';
 import type { Knex } from 'knex';
-import { modelParamsSchema } from '../models/params';
 import { STARTERS } from '../models/starters';
 import { db } from './db';
 import { ApiError, notFound } from './errors';
-import { authorize, canRead, permissions, type ProjectAccess, type ProjectRole, type Visibility } from './authz';
-import type { Actor } from './actor';
+import { access, canRead, permissions, type Actor, type ProjectRole, type Visibility } from './authz';
 import { audit } from './audit';
 import { iso, listQuery, type Page, contains } from './paging';
-import { fieldErrors } from './http';
-import { revisionInfo, type RevisionInfo } from './revisions';
+import { revisionInfo, validateParams, type RevisionInfo } from './revisions';
 
 const VISIBILITY = ['private', 'unlisted', 'public'] as const;
 
@@ -83,16 +80,6 @@ export interface ProjectDetail extends ProjectSummary {
   permissions: ReturnType<typeof permissions>;
 }
 
-export function validateParams(params: unknown): Record<string, unknown> {
-  const r = modelParamsSchema.safeParse(params);
-  if (!r.success) throw new ApiError('validation_failed', 'The model parameters are not valid.', { fields: prefix(fieldErrors(r.error), 'params') });
-  return r.data as Record<string, unknown>;
-}
-
-function prefix(fields: Record<string, string>, p: string): Record<string, string> {
-  return Object.fromEntries(Object.entries(fields).map(([k, v]) => [k === '(body)' ? p : `${p}.${k}`, v]));
-}
-
 function tagsOf(v: unknown): string[] {
   if (Array.isArray(v)) return v.map(String);
   if (typeof v === 'string') {
@@ -104,25 +91,6 @@ function tagsOf(v: unknown): string[] {
     }
   }
   return [];
-}
-
-/** Load a project's visibility and the actor's role, for authorize(). 404 when absent. */
-export async function loadAccess(actor: Actor | null, projectId: number, trx: Knex | Knex.Transaction = db()): Promise<ProjectAccess> {
-  const p = await trx('projects').where({ id: projectId }).first('id', 'visibility');
-  if (!p) throw notFound();
-  let role: ProjectRole | null = null;
-  if (actor) {
-    const m = await trx('project_members').where({ project_id: projectId, user_id: actor.id }).first('role');
-    role = m?.role ?? null;
-  }
-  return { id: Number(p.id), visibility: p.visibility, role };
-}
-
-/** loadAccess + authorize in one call: the first line of every project service. */
-export async function access(actor: Actor | null, projectId: number, action: Parameters<typeof authorize>[2], trx?: Knex | Knex.Transaction): Promise<ProjectAccess> {
-  const a = await loadAccess(actor, projectId, trx);
-  authorize(actor, a, action);
-  return a;
 }
 
 function summaryQuery(k: Knex | Knex.Transaction, actor: Actor | null) {
@@ -208,31 +176,33 @@ async function getSummary(actor: Actor | null, id: number, k: Knex | Knex.Transa
   return summary(r);
 }
 
+/**
+ * A project with its head, revision count, parent and forks. The access check comes first (a hidden
+ * project must answer 404 before anything is read); the five reads after it do not depend on each
+ * other, so they go out together.
+ */
 export async function getProject(actor: Actor | null, id: number): Promise<ProjectDetail> {
   const a = await access(actor, id, 'read');
   const k = db();
-  const s = await getSummary(actor, id);
-  const head = s.headRevision ? await k('revisions as r').leftJoin('users as u', 'u.id', 'r.author_id').where('r.id', s.headRevision).first('r.*', 'u.name as author_name') : null;
-  const [{ n }] = await k('revisions').where({ project_id: id }).count<{ n: number }[]>({ n: '*' });
-  const p = await k('projects').where({ id }).first('forked_from_project', 'forked_from_revision');
+  const [s, head, count, parentRow, forkRows] = await Promise.all([
+    getSummary(actor, id, k),
+    k('projects as p').join('revisions as r', 'r.id', 'p.head_revision').leftJoin('users as u', 'u.id', 'r.author_id').where('p.id', id).first('r.*', 'u.name as author_name'),
+    k('revisions').where({ project_id: id }).count<{ n: number }[]>({ n: '*' }),
+    parentQuery(k, actor, id),
+    summaryQuery(k, actor).where('p.forked_from_project', id).leftJoin('revisions as fr', 'fr.id', 'p.forked_from_revision').select('p.forked_from_revision', 'fr.number as fork_number', 'p.visibility').orderBy('p.created_at', 'asc'),
+  ]);
   let parent: ProjectDetail['parent'] = null;
-  if (p.forked_from_project) {
-    const pr = await k('projects as p').join('users as o', 'o.id', 'p.owner_id').where('p.id', p.forked_from_project).first('p.id', 'p.name', 'p.visibility', 'o.name as owner_name');
-    if (pr) {
-      const pa = await loadAccess(actor, Number(pr.id));
-      const rev = p.forked_from_revision ? await k('revisions').where({ id: p.forked_from_revision }).first('number') : null;
-      const visible = canRead(actor, pa);
-      parent = {
-        id: Number(pr.id),
-        name: visible ? pr.name : 'a private project',
-        ownerName: visible ? pr.owner_name : '',
-        revision: p.forked_from_revision ? Number(p.forked_from_revision) : null,
-        revisionNumber: rev ? Number(rev.number) : null,
-        visible,
-      };
-    }
+  if (parentRow) {
+    const visible = canRead(actor, { id: Number(parentRow.id), visibility: parentRow.visibility, role: parentRow.my_role ?? null });
+    parent = {
+      id: Number(parentRow.id),
+      name: visible ? parentRow.name : 'a private project',
+      ownerName: visible ? parentRow.owner_name : '',
+      revision: parentRow.forked_from_revision ? Number(parentRow.forked_from_revision) : null,
+      revisionNumber: parentRow.revision_number ? Number(parentRow.revision_number) : null,
+      visible,
+    };
   }
-  const forkRows = await summaryQuery(k, actor).where('p.forked_from_project', id).leftJoin('revisions as fr', 'fr.id', 'p.forked_from_revision').select('p.forked_from_revision', 'fr.number as fork_number', 'p.visibility').orderBy('p.created_at', 'asc');
   const canSee = (r: { visibility: string; my_role: string | null }) => r.visibility !== 'private' || r.my_role || actor?.siteRole === 'admin';
   const hiddenForks = forkRows.filter((r) => !canSee(r)).length;
   const forks: ProjectLink[] = forkRows
@@ -241,12 +211,28 @@ export async function getProject(actor: Actor | null, id: number): Promise<Proje
   return {
     ...s,
     head: head ? revisionInfo(head) : null,
-    revisionCount: Number(n),
+    revisionCount: Number(count[0].n),
     parent,
     forks,
     hiddenForks,
     permissions: permissions(actor, a),
   };
+}
+
+/** The project this one was forked from, the revision it was forked at and the actor's role there, in one row (none for an original). */
+function parentQuery(k: Knex, actor: Actor | null, id: number) {
+  const q = k('projects as c')
+    .join('projects as p', 'p.id', 'c.forked_from_project')
+    .join('users as o', 'o.id', 'p.owner_id')
+    .leftJoin('revisions as fr', 'fr.id', 'c.forked_from_revision')
+    .where('c.id', id)
+    .select('p.id', 'p.name', 'p.visibility', 'o.name as owner_name', 'c.forked_from_revision', 'fr.number as revision_number');
+  if (actor) {
+    q.leftJoin('project_members as me', function () {
+      this.on('me.project_id', '=', 'p.id').andOn('me.user_id', '=', k.raw('?', [actor.id]));
+    }).select('me.role as my_role');
+  }
+  return q.first();
 }
 
 export async function updateProject(actor: Actor | null, id: number, input: z.infer<typeof updateProjectSchema>): Promise<ProjectSummary> {

@@ -4,13 +4,14 @@
  * nothing, so the client still holds its edits and can merge them onto the newer revision.
  */
 import { z } from 'zod';
+import { modelParamsSchema } from '../models/params';
 import { db } from './db';
 import { ApiError } from './errors';
-import type { Actor } from './actor';
+import { access, type Actor } from './authz';
 import { audit } from './audit';
 import { iso, listQuery, type Page, contains } from './paging';
+import { fieldErrors } from './http';
 import { jsonDiff, type DiffEntry } from './json-diff';
-import { access, validateParams } from './projects';
 
 export const saveRevisionSchema = z.strictObject({
   params: z.unknown().refine((v) => v !== undefined, 'send the model params'),
@@ -36,6 +37,17 @@ export interface RevisionInfo {
   authorName: string | null;
   createdAt: string;
   params: Record<string, unknown>;
+}
+
+/** The params a revision stores (a project's first one included): valid model params, or a 400 naming each field under `params.`. */
+export function validateParams(params: unknown): Record<string, unknown> {
+  const r = modelParamsSchema.safeParse(params);
+  if (!r.success) throw new ApiError('validation_failed', 'The model parameters are not valid.', { fields: prefix(fieldErrors(r.error), 'params') });
+  return r.data as Record<string, unknown>;
+}
+
+function prefix(fields: Record<string, string>, p: string): Record<string, string> {
+  return Object.fromEntries(Object.entries(fields).map(([k, v]) => [k === '(body)' ? p : `${p}.${k}`, v]));
 }
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any

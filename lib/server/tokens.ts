@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { db } from './db';
 import { ApiError } from './errors';
 import { randomToken, sha256Hex } from './crypto';
-import type { Actor } from './actor';
+import type { Actor } from './authz';
 import { audit } from './audit';
 
 export const createTokenSchema = z.strictObject({

@@ -13,7 +13,7 @@ import { randomToken, sha256Hex } from './crypto';
 import { sendMail, siteUrl } from './mail';
 import { audit } from './audit';
 import { clearAccount, consumeAttempt } from './ratelimit';
-import type { Actor, SiteRole } from './actor';
+import type { Actor, SiteRole } from './authz';
 import { acceptInvitationInTrx, checkInvitation } from './members';
 
 export const BCRYPT_COST = 10;

@@ -9,7 +9,7 @@ import { randomUUID } from 'node:crypto';
 import { db } from '../../lib/server/db';
 import { createToken } from '../../lib/server/tokens';
 import { sha256Hex, signPayload } from '../../lib/server/crypto';
-import type { Actor } from '../../lib/server/actor';
+import type { Actor } from '../../lib/server/authz';
 
 export const PASSWORD = 'correct horse battery';
 let passwordHash: string | null = null;

@@ -1,9 +1,11 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
-import { Card, Notice } from '@/components/auth/ui';
+import { Card } from '@/components/ui/Card';
+import { Notice } from '@/components/ui/messages';
 import { AcceptInvite } from '@/components/auth/AcceptInvite';
 import { checkInvitation } from '@/lib/server/members';
 import { currentActor } from '@/lib/server/session';
+import { buttonClass } from '@/components/ui/buttons';
 
 export const metadata: Metadata = { title: 'Invitation' };
 
@@ -32,7 +34,7 @@ export default async function InvitePage({ searchParams }: { searchParams: Promi
         )
       ) : (
         <div className="flex gap-3 text-sm">
-          <Link href={`/signup?invite=${encodeURIComponent(token)}`} className="rounded-md bg-tide px-4 py-2 font-medium text-white">Create an account</Link>
+          <Link href={`/signup?invite=${encodeURIComponent(token)}`} className={buttonClass}>Create an account</Link>
           <Link href={`/signin?callbackUrl=${encodeURIComponent(back)}`} className="rounded-md border border-rule px-4 py-2 font-medium">I have an account</Link>
         </div>
       )}

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { Card } from '@/components/auth/ui';
+import { Card } from '@/components/ui/Card';
 import { ResetConfirmForm, ResetRequestForm } from '@/components/auth/TokenActionForm';
 
 export const metadata: Metadata = { title: 'Reset your password' };

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { Card } from '@/components/auth/ui';
+import { Card } from '@/components/ui/Card';
 import { SignInForm } from '@/components/auth/SignInForm';
 
 export const metadata: Metadata = { title: 'Sign in' };

@@ -1,5 +1,5 @@
 import type { Metadata } from 'next';
-import { Card } from '@/components/auth/ui';
+import { Card } from '@/components/ui/Card';
 import { SignUpForm } from '@/components/auth/SignUpForm';
 import { checkInvitation } from '@/lib/server/members';
 

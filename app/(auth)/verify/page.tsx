@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
-import { Card, Notice } from '@/components/auth/ui';
+import { Card } from '@/components/ui/Card';
+import { Notice } from '@/components/ui/messages';
 import { VerifyButton } from '@/components/auth/TokenActionForm';
 
 export const metadata: Metadata = { title: 'Confirm your address' };

@@ -1,6 +1,8 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
 import { projectForPage } from '@/lib/server/page-data';
+import { currentActor } from '@/lib/server/session';
+import { idSchema } from '@/lib/server/http';
 import { datasetListQuery, listDatasets } from '@/lib/server/datasets';
 import { Workspace } from '@/components/workspace/Workspace';
 import { starterParams, type Params } from '@/components/forms/families';
@@ -9,15 +11,9 @@ export const metadata: Metadata = { title: 'Workspace' };
 
 export default async function WorkspacePage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const { actor, project } = await projectForPage(id, `/projects/${id}/workspace`);
+  // The project and its measured patterns are read side by side; the project decides 404 or sign-in.
+  const [{ project }, datasets] = await Promise.all([projectForPage(id, `/projects/${id}/workspace`), measuredPatterns(id)]);
   const head = project.head;
-  let datasets: { id: string; name: string; url: string }[] = [];
-  try {
-    const page = await listDatasets(actor, project.id, datasetListQuery.parse({}));
-    datasets = page.items.filter((d) => d.kind === 'pattern').map((d) => ({ id: String(d.id), name: d.filename, url: d.downloadUrl }));
-  } catch {
-    datasets = [];
-  }
   const initial = (head?.params as Params | undefined) ?? starterParams('icosahedral');
   return (
     <div className="space-y-2">
@@ -39,4 +35,16 @@ export default async function WorkspacePage({ params }: { params: Promise<{ id: 
       />
     </div>
   );
+}
+
+/** The project's measured patterns for the diffraction panel; none when they cannot be read. */
+async function measuredPatterns(id: string): Promise<{ id: string; name: string; url: string }[]> {
+  const projectId = idSchema.safeParse(id);
+  if (!projectId.success) return [];
+  try {
+    const page = await listDatasets(await currentActor(), projectId.data, datasetListQuery.parse({}));
+    return page.items.filter((d) => d.kind === 'pattern').map((d) => ({ id: String(d.id), name: d.filename, url: d.downloadUrl }));
+  } catch {
+    return [];
+  }
 }

@@ -1,5 +1,4 @@
 import type { Metadata } from 'next';
-import { ProjectHeader } from '@/components/projects/ProjectHeader';
 import { ExportsView } from '@/components/projects/ExportsView';
 import { projectForPage } from '@/lib/server/page-data';
 
@@ -9,10 +8,9 @@ export default async function ExportsPage({ params }: { params: Promise<{ id: st
   const { id } = await params;
   const { project } = await projectForPage(id, `/projects/${id}/exports`);
   return (
-    <div className="space-y-6">
-      <ProjectHeader project={project} tab="Exports" />
+    <>
       <p className="text-sm text-ink-soft">Each file records the sha256 of its bytes, the sha256 of the parameters that made it and the engine version. The same revision and format always give the same file.</p>
       <ExportsView projectId={project.id} />
-    </div>
+    </>
   );
 }

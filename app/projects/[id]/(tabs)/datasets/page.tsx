@@ -1,5 +1,4 @@
 import type { Metadata } from 'next';
-import { ProjectHeader } from '@/components/projects/ProjectHeader';
 import { DatasetsView } from '@/components/projects/DatasetsView';
 import { projectForPage } from '@/lib/server/page-data';
 
@@ -8,10 +7,5 @@ export const metadata: Metadata = { title: 'Datasets' };
 export default async function DatasetsPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const { project } = await projectForPage(id, `/projects/${id}/datasets`);
-  return (
-    <div className="space-y-6">
-      <ProjectHeader project={project} tab="Datasets" />
-      <DatasetsView projectId={project.id} canEdit={project.permissions.edit} />
-    </div>
-  );
+  return <DatasetsView projectId={project.id} canEdit={project.permissions.edit} />;
 }
