@@ -169,6 +169,9 @@ export function TilingView({ structure, fileBase }: { structure: Structure; file
               ))}
             </tbody>
           </table>
+          {cfg.periodic && !chain ? (
+            <p className="mt-2 text-xs text-ink-soft">An approximant is the quasiperiodic tiling under a linear phason strain, so a few vertices per cell can have neighbourhoods that the quasiperiodic tiling never shows.</p>
+          ) : null}
         </section>
       </div>
     </div>
