@@ -5,3 +5,5 @@ export * from './pick';
 export * from './neighbours';
 export * from './palette';
 export * from './impostor';
+export * from './lattice2';
+export * from './unwrap-tile';
