@@ -1,10 +1,13 @@
 /**
  * Vertex environments of a chain or planar tiling: which tiles meet at each vertex, and at what corner
- * angle. A vertex is "complete" when its corner angles sum to 360° (1D: it has a segment on both sides);
- * vertices on the patch rim are left out of the count. For the Penrose rhombus tiling these signatures
- * separate seven of de Bruijn's eight vertex types (1981; his S and S5 both read "thick 72° ×5").
+ * angle. A vertex is "complete" when its corner angles sum to 360° (1D: it has one segment on each side);
+ * vertices on the rim of a finite patch are left out of the count. A periodic cut (approximant) has no
+ * rim: each tile is unwrapped across the cell edges first (lib/view/unwrap-tile.ts), so every vertex of the
+ * cell is counted with all its tiles, once. For the Penrose rhombus tiling these signatures separate seven
+ * of de Bruijn's eight vertex types (1981; his S and S5 both read "thick 72° ×5").
  */
 import type { Structure } from '@/lib/structure/types';
+import { periodicityOf, unwrapTile } from '@/lib/view/unwrap-tile';
 
 export interface VertexConfig {
   /** e.g. "thick 72° ×5" or "L | S". */
@@ -12,36 +15,49 @@ export interface VertexConfig {
   count: number;
 }
 
-export function vertexConfigurations(s: Structure): { configs: VertexConfig[]; complete: number; rim: number } {
+export interface VertexConfigurations {
+  configs: VertexConfig[];
+  /** Vertices with a full set of tiles around them. */
+  complete: number;
+  /** Vertices left out: on the rim of a patch (or, in a periodic cell, not closed — which would be a defect). */
+  rim: number;
+  /** Counted over periodic boundaries (the cut has a cell). */
+  periodic: boolean;
+}
+
+export function vertexConfigurations(s: Structure): VertexConfigurations {
   const t = s.tiles;
-  if (!t) return { configs: [], complete: 0, rim: 0 };
+  const periodicity = periodicityOf(s);
+  const periodic = periodicity.kind !== 'none';
+  if (!t) return { configs: [], complete: 0, rim: 0, periodic };
   const n = s.species.length;
   const P = s.positions;
   const per: string[][] = Array.from({ length: n }, () => []);
-  const angle: number[] = new Array(n).fill(0);
+  const angle = new Float64Array(n);
   const k = t.cornersPerTile;
   const tiles = t.kind.length;
+  const xy = new Float64Array(2 * k);
   for (let ti = 0; ti < tiles; ti++) {
     const kind = t.kinds[t.kind[ti]];
+    unwrapTile(P, t, ti, periodicity, xy);
     if (k === 2) {
       const a = t.corners[2 * ti];
       const b = t.corners[2 * ti + 1];
-      const [left, right] = P[3 * a] <= P[3 * b] ? [a, b] : [b, a];
+      const [left, right] = xy[0] <= xy[2] ? [a, b] : [b, a];
       per[left].push(`R${kind}`);
       per[right].push(`L${kind}`);
       continue;
     }
     for (let c = 0; c < k; c++) {
       const v = t.corners[k * ti + c];
-      const u = t.corners[k * ti + ((c + k - 1) % k)];
-      const w = t.corners[k * ti + ((c + 1) % k)];
-      const ax = P[3 * u] - P[3 * v];
-      const ay = P[3 * u + 1] - P[3 * v + 1];
-      const bx = P[3 * w] - P[3 * v];
-      const by = P[3 * w + 1] - P[3 * v + 1];
+      const u = (c + k - 1) % k;
+      const w = (c + 1) % k;
+      const ax = xy[2 * u] - xy[2 * c];
+      const ay = xy[2 * u + 1] - xy[2 * c + 1];
+      const bx = xy[2 * w] - xy[2 * c];
+      const by = xy[2 * w + 1] - xy[2 * c + 1];
       const deg = (Math.acos(Math.max(-1, Math.min(1, (ax * bx + ay * by) / (Math.hypot(ax, ay) * Math.hypot(bx, by))))) * 180) / Math.PI;
-      const rounded = Math.round(deg);
-      per[v].push(`${kind} ${rounded}°`);
+      per[v].push(`${kind} ${Math.round(deg)}°`);
       angle[v] += deg;
     }
   }
@@ -53,13 +69,14 @@ export function vertexConfigurations(s: Structure): { configs: VertexConfig[]; c
     if (list.length === 0) continue;
     let sig: string;
     if (k === 2) {
-      if (list.length < 2) {
+      // One segment ending here from the left and one starting here to the right; anything else is a chain end.
+      const l = list.filter((x) => x[0] === 'L');
+      const r = list.filter((x) => x[0] === 'R');
+      if (l.length !== 1 || r.length !== 1) {
         rim++;
         continue;
       }
-      const l = list.find((x) => x[0] === 'L')!.slice(1);
-      const r = list.find((x) => x[0] === 'R')!.slice(1);
-      sig = `${l} | ${r}`;
+      sig = `${l[0].slice(1)} | ${r[0].slice(1)}`;
     } else {
       if (Math.abs(angle[v] - 360) > 0.5) {
         rim++;
@@ -75,6 +92,6 @@ export function vertexConfigurations(s: Structure): { configs: VertexConfig[]; c
     complete++;
     counts.set(sig, (counts.get(sig) ?? 0) + 1);
   }
-  const configs = [...counts.entries()].map(([signature, count]) => ({ signature, count })).sort((a, b) => b.count - a.count);
-  return { configs, complete, rim };
+  const configs = [...counts.entries()].map(([signature, count]) => ({ signature, count })).sort((a, b) => b.count - a.count || (a.signature < b.signature ? -1 : 1));
+  return { configs, complete, rim, periodic };
 }

@@ -14,6 +14,7 @@ import { TilingView } from '@/components/tiling2d/TilingView';
 import { SeriesTable } from '@/components/plots/SeriesTable';
 import { DiffractionPanel, type DatasetRef } from './DiffractionPanel';
 import { Progress } from './Progress';
+import { ViewBoundary } from './ViewBoundary';
 import { useJob } from './useJob';
 import { FORMAT_NAMES, formatUnavailable, saveStructure, slug, type StructureFormat } from './downloads';
 import { SaveDialog, postRevision, type RevisionRef } from './SavePanel';
@@ -269,6 +270,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
             <CutFacts summary={summary} stale={stale} ms={cut.ms} />
           </div>
           <div className="min-h-0 flex-1 rounded-lg border border-rule bg-card p-2">
+            <ViewBoundary name={VIEW_NAMES[shownView]} resetKeys={[shownView, structure, seriesJob.result]}>
             {shownView === 'series' ? (
               <div className="h-full overflow-y-auto">
                 <div className="mb-2 flex items-center gap-2">
@@ -320,6 +322,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
                 target={project && !lab ? { projectId: project.id, canEdit: project.canEdit, onStored: (d) => setDatasetList((l) => [d, ...l.filter((x) => x.id !== d.id)]) } : undefined}
               />
             )}
+            </ViewBoundary>
           </div>
         </section>
       </div>

@@ -4,3 +4,5 @@ export * from './pick';
 export * from './bonds';
 export * from './palette';
 export * from './impostor';
+export * from './lattice2';
+export * from './unwrap-tile';
