@@ -29,7 +29,7 @@ export function periodicityOf(s: Pick<Structure, 'cell' | 'dim' | 'tiles'>): Per
  * (0, period]. Not the minimum image: at orders 0 and 1 a long segment is more than half the period
  * (ℓ/(ℓ + s) = 1/τ ≈ 0.62 for the ideal ratio, and order 0 has one segment that is the whole period, from a
  * vertex to its own image), so "nearest" would pick the wrong way round. Chain segments are stored in
- * walk order (lib/tiling/fibonacci.ts: the last one runs from the last vertex to vertex 0 of the next
+ * walk order (lib/models/chain/generate.ts: the last one runs from the last vertex to vertex 0 of the next
  * cell), which makes the forward step the right one at every order.
  */
 export function forwardSpan(dx: number, period: number): number {

@@ -14,7 +14,7 @@
  *   tile, two tiles per edge), so F = V.
  */
 import { describe, expect, it } from 'vitest';
-import { generate } from '@/lib/generate';
+import { generate } from '@/lib/models';
 import { vertexConfigurations } from '@/components/tiling2d/vertex-configs';
 import { tileShapes } from '@/components/tiling2d/tile-shapes';
 import { CONTEXT, MAIN, layoutTiles } from '@/components/tiling2d/tile-layout';

@@ -8,7 +8,7 @@
  * - every edge of a rhombus has the same length, and its four corners close.
  */
 import { describe, expect, it } from 'vitest';
-import { generate } from '@/lib/generate';
+import { generate } from '@/lib/models';
 import { forwardSpan, periodicityOf, unwrapTile } from '@/lib/view/unwrap-tile';
 import type { Structure } from '@/lib/structure/types';
 
