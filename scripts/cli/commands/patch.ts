@@ -18,8 +18,9 @@ export function registerPatch(program: Command): void {
     .option('--decoration <file>', 'JSON file with site classes {"classes": […]}')
     .option('--max-points <n>', 'refuse to build more points than this (default 2000000)', number)
     .addOption(new Option('--format <fmt>', STRUCTURE_FORMATS.join(', ')).choices(STRUCTURE_FORMATS).default('xyz'))
-    .action((o: Record<string, unknown> & { decoration?: string; format: StructureFormat }) => {
+    .action((o: Record<string, unknown> & { decoration?: string; format: StructureFormat }, cmd: Command) => {
       generateAndEmit(
+        cmd,
         {
           family: 'icosahedral',
           mode: 'patch',
