@@ -138,6 +138,6 @@ export function emit(cmd: Command, text: string): void {
 /** Params → Structure through the registry (the only way in), written to stdout in one coordinate format. */
 export function generateAndEmit(cmd: Command, params: Record<string, unknown>, format: StructureFormat): void {
   const s = compute(() => generate(params));
-  const text = writeStructure(s, format);
+  const text = compute(() => writeStructure(s, format));
   emit(cmd, text.endsWith('\n') ? text : text + '\n');
 }
