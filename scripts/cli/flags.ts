@@ -3,13 +3,16 @@
  * "option '--aR <len>' argument 'abc' is invalid. …", exit code 2), reading files, and writing results.
  */
 import { readFileSync } from 'node:fs';
-import { InvalidArgumentError } from 'commander';
+import { InvalidArgumentError, Option, type Command } from 'commander';
 import type { ZodType } from 'zod';
 import { CliError, zodMessage } from './errors';
 import type { Structure } from '../../lib/structure/types';
 import { readStructure, type StructureFormat } from '../../lib/formats/read';
 import { writeStructure } from '../../lib/formats/write';
 import { generate } from '../../lib/models';
+import { radiationSchema } from '../../lib/diffraction/params';
+import type { Radiation } from '../../lib/diffraction/form-factors';
+import { parseWavelength } from '../../lib/diffraction/wavelengths';
 
 /** commander parser: a finite number. */
 export function number(v: string): number {
@@ -23,6 +26,35 @@ export function vector3(v: string): number[] {
   const parts = v.split(',');
   if (parts.length !== 3) throw new InvalidArgumentError('expected three numbers x,y,z');
   return parts.map((p) => number(p));
+}
+
+/** commander parser: "b0,b1,…" → numbers (one or more). */
+export function numbers(v: string): number[] {
+  return v.split(',').map((p) => {
+    try {
+      return number(p);
+    } catch {
+      throw new InvalidArgumentError(`"${p}" is not a number; expected numbers separated by commas`);
+    }
+  });
+}
+
+/**
+ * commander parser: a wavelength spec (an X-ray line such as CuKa1, "<n>kV" for electrons, or a length
+ * in Å), checked here and kept as written: the line name also tells `diffract powder --kalpha2` its Kα2.
+ */
+export function wavelength(v: string): string {
+  try {
+    parseWavelength(v, 'wavelength');
+  } catch (e) {
+    throw new InvalidArgumentError((e as Error).message.replace(/^wavelength: /, ''));
+  }
+  return v;
+}
+
+/** --radiation: which scattering factors the diffraction commands use. */
+export function radiationOption(fallback: Radiation): Option {
+  return new Option('--radiation <r>', 'radiation, for the scattering factors').choices(radiationSchema.options).default(fallback);
 }
 
 /** commander parser: "p/q" → {p, q} (whether p/q is an allowed order is the model's to say). */
@@ -94,31 +126,18 @@ export function compute<T>(f: () => T): T {
   }
 }
 
+/**
+ * A command's result goes to its standard output: commander's writeOut, which program.ts sets to
+ * process.stdout (or to a buffer when a test runs the program in-process).
+ */
+export function emit(cmd: Command, text: string): void {
+  const write = cmd.configureOutput().writeOut ?? ((t: string) => process.stdout.write(t));
+  write(text);
+}
+
 /** Params → Structure through the registry (the only way in), written to stdout in one coordinate format. */
-export function generateAndEmit(params: Record<string, unknown>, format: StructureFormat): void {
+export function generateAndEmit(cmd: Command, params: Record<string, unknown>, format: StructureFormat): void {
   const s = compute(() => generate(params));
-  const text = writeStructure(s, format);
-  process.stdout.write(text.endsWith('\n') ? text : text + '\n');
-}
-
-/** A flag value that must be a number (for commands that parse their flags after commander). */
-export function num(flag: string, v: string | undefined): number | undefined {
-  if (v === undefined) return undefined;
-  const x = Number(v);
-  if (v.trim() === '' || !Number.isFinite(x)) throw new CliError(`${flag}: "${v}" is not a number`);
-  return x;
-}
-
-export function oneOf<T extends string>(flag: string, v: string, allowed: readonly T[]): T {
-  if (!(allowed as readonly string[]).includes(v)) throw new CliError(`${flag}: must be one of ${allowed.join(', ')}, got "${v}"`);
-  return v as T;
-}
-
-/** "20:90" → [20, 90] (for commands that parse their flags after commander). */
-export function range(flag: string, v: string): [number, number] {
-  try {
-    return span(v);
-  } catch (e) {
-    throw new CliError(`${flag}: ${(e as Error).message}, got "${v}"`);
-  }
+  const text = compute(() => writeStructure(s, format));
+  emit(cmd, text.endsWith('\n') ? text : text + '\n');
 }

@@ -1,16 +1,8 @@
 /**
  * Tauforge command line: `npm run -s cli -- COMMAND [flags]`.
- * Results go to stdout; errors go to stderr with a non-zero exit code.
- * Each command registers itself from commands/<command>.ts.
+ * Results go to stdout; errors go to stderr with a non-zero exit code. The commands are in program.ts.
  */
-import { Command, CommanderError } from 'commander';
-import { registerConvergents } from './commands/convergents';
-import { registerChain } from './commands/chain';
-import { registerTiling } from './commands/tiling';
-import { registerPatch } from './commands/patch';
-import { registerApproximant } from './commands/approximant';
-import { registerDiffract } from './commands/diffract';
-import { CliError } from './errors';
+import { runCli } from './program';
 
 // `… | head` closes the pipe early; that is the reader's choice, not an error.
 process.stdout.on('error', (err: NodeJS.ErrnoException) => {
@@ -18,31 +10,7 @@ process.stdout.on('error', (err: NodeJS.ErrnoException) => {
   throw err;
 });
 
-const program = new Command();
-program
-  .name('tauforge')
-  .description('Build, check, export and diffract quasicrystal models and approximants.')
-  .exitOverride()
-  .configureOutput({ writeErr: (s) => process.stderr.write(s) });
-
-registerConvergents(program);
-registerChain(program);
-registerTiling(program);
-registerPatch(program);
-registerApproximant(program);
-registerDiffract(program);
-
-async function main() {
-  try {
-    await program.parseAsync(process.argv);
-  } catch (err) {
-    if (err instanceof CommanderError) {
-      process.exit(err.exitCode === 0 ? 0 : 2);
-    }
-    const message = err instanceof Error ? err.message : String(err);
-    process.stderr.write(`error: ${message}\n`);
-    process.exit(err instanceof CliError ? err.exitCode : 1);
-  }
-}
-
-void main();
+// On success let the process end by itself (stdout drains first); on failure stop at once.
+void runCli(process.argv.slice(2)).then((code) => {
+  if (code !== 0) process.exit(code);
+});

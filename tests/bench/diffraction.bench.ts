@@ -14,7 +14,7 @@ import { join } from 'node:path';
 import { hklPartialSums, rowsFromSortedHkl } from '../../lib/diffraction/hkl-sum';
 import { histogramSpec } from '../../lib/diffraction/pair-histogram';
 import { debyeFromHistogram, type PairHistogram } from '../../lib/diffraction/debye';
-import { DiffractionPool } from '../../lib/server/workers/diffraction-pool';
+import { DiffractionPool } from '../../scripts/cli/diffraction-pool/pool';
 
 const PY = '/usr/bin/python3';
 

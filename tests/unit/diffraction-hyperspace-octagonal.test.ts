@@ -1,6 +1,5 @@
-import { describe, expect, it, vi } from 'vitest';
-import { Command } from 'commander';
-import { registerDiffract } from '../../scripts/cli/commands/diffract';
+import { describe, expect, it } from 'vitest';
+import { cli } from '../helpers/cli';
 import { hyperspacePeaks, octagonalPeaks, octagonalWindow } from '../../lib/diffraction/hyperspace';
 import { intensityAt } from '../../lib/diffraction/intensity-at';
 import { zone } from '../../lib/worker/engine';
@@ -89,19 +88,9 @@ describe('hyperspace diffraction: octagonal (Ammann–Beenker) tiling from Z⁴'
   });
 
   it('CLI: diffract hyperspace --family octagonal --aR gives the edge-a module; the strongest star sits at |Q∥| = (π/a)|e_0 + e_1 + e_2| = (π/a)(1 + √2) (Beenker 1982 basis)', async () => {
-    const program = new Command().exitOverride();
-    registerDiffract(program);
-    let out = '';
-    const spy = vi.spyOn(process.stdout, 'write').mockImplementation((s: string | Uint8Array) => {
-      out += String(s);
-      return true;
-    });
-    try {
-      await program.parseAsync(['node', 'tauforge', 'diffract', 'hyperspace', '--family', 'octagonal', '--aR', '2.0', '--qmax', '4', '--format', 'json']);
-    } finally {
-      spy.mockRestore();
-    }
-    const h = JSON.parse(out) as { family: string; aR: number; peaks: { indices: number[]; qParNorm: number; qPerpNorm: number; intensity: number; relative: number }[] };
+    const r = await cli(['diffract', 'hyperspace', '--family', 'octagonal', '--aR', '2.0', '--qmax', '4', '--format', 'json']);
+    expect(r.code).toBe(0);
+    const h = JSON.parse(r.out) as { family: string; aR: number; peaks: { indices: number[]; qParNorm: number; qPerpNorm: number; intensity: number; relative: number }[] };
     expect(h.family).toBe('octagonal');
     expect(h.peaks[0].indices).toEqual([0, 0, 0, 0]);
     expect(h.peaks[0].intensity).toBeCloseTo(1, 6);

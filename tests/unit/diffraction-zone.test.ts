@@ -118,8 +118,8 @@ describe('zone axes', () => {
     }
   });
 
-  it('worker-thread grid sums (lib/server/workers) give the same map as the in-process sum', async () => {
-    const { DiffractionPool } = await import('../../lib/server/workers/diffraction-pool');
+  it('worker-thread grid sums (scripts/cli/diffraction-pool) give the same map as the in-process sum', async () => {
+    const { DiffractionPool } = await import('../../scripts/cli/diffraction-pool/pool');
     const { zoneLayers, zoneMapFromSums } = await import('../../lib/diffraction/zone-axis');
     const { groupAtoms } = await import('../../lib/diffraction/scatterers');
     const o = { axis: '3' as const, qmax: 2.0, grid: 41, slab: 0.05 };

@@ -30,15 +30,16 @@ export function registerApproximant(program: Command): void {
     .option('--decoration <file>', 'JSON file with site classes {"classes": […]} (icosahedral)')
     .option('--max-points <n>', 'refuse to build more points than this (default 2000000)', number)
     .addOption(new Option('--format <fmt>', STRUCTURE_FORMATS.join(', ')).choices(STRUCTURE_FORMATS).default('xyz'))
-    .action((o: Flags) => {
+    .action((o: Flags, cmd: Command) => {
       if (o.family === 'decagonal') {
         // Penrose layers stacked along c (lib/models/decagonal); --aR is the rhombus edge.
         if (o.lattice !== undefined || o.offset !== undefined || o.decoration !== undefined)
           throw new CliError('--family: decagonal approximants take --order, --aR, --species, --max-points only');
-        generateAndEmit({ family: 'decagonal', approximant: o.order, edge: o.aR, species: o.species, maxPoints: o.maxPoints }, o.format);
+        generateAndEmit(cmd, { family: 'decagonal', approximant: o.order, edge: o.aR, species: o.species, maxPoints: o.maxPoints }, o.format);
         return;
       }
       generateAndEmit(
+        cmd,
         {
           family: 'icosahedral',
           mode: 'approximant',

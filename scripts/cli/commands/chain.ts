@@ -13,8 +13,9 @@ export function registerChain(program: Command): void {
     .option('--ratio <r>', 'long/short length ratio (default τ)', number)
     .option('--max-points <n>', 'refuse to build more points than this', number)
     .addOption(new Option('--format <fmt>', 'xyz or json').choices(['xyz', 'json']).default('xyz'))
-    .action((o: { order: number; approximant?: boolean; offset?: number; long?: number; ratio?: number; maxPoints?: number; format: 'xyz' | 'json' }) => {
+    .action((o: { order: number; approximant?: boolean; offset?: number; long?: number; ratio?: number; maxPoints?: number; format: 'xyz' | 'json' }, cmd: Command) => {
       generateAndEmit(
+        cmd,
         { family: 'fibonacci', order: o.order, approximant: o.approximant === true, offset: o.offset, long: o.long, ratio: o.ratio, maxPoints: o.maxPoints },
         o.format,
       );

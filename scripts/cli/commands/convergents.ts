@@ -1,6 +1,6 @@
 import { Option, type Command } from 'commander';
 import { CliError } from '../errors';
-import { number, parse } from '../flags';
+import { emit, number, parse } from '../flags';
 import { convergents, GOLDEN_MEAN, SILVER_MEAN } from '../../../lib/math/convergents';
 import { convergentsParamsSchema } from '../../../lib/math/convergents-params';
 
@@ -12,7 +12,7 @@ export function registerConvergents(program: Command): void {
     .addOption(new Option('--of <name>', 'tau or silver').choices(['tau', 'silver']).makeOptionMandatory())
     .requiredOption('--count <n>', 'number of convergents', number)
     .addOption(new Option('--format <fmt>', 'table or json').choices(['table', 'json']).default('table'))
-    .action((o: { of: string; count: number; format: 'table' | 'json' }) => {
+    .action((o: { of: string; count: number; format: 'table' | 'json' }, cmd: Command) => {
       const p = parse(convergentsParamsSchema, { of: o.of, count: o.count });
       const x = p.of === 'tau' ? GOLDEN_MEAN : p.of === 'silver' ? SILVER_MEAN : p.of;
       let rows;
@@ -24,7 +24,7 @@ export function registerConvergents(program: Command): void {
       }
       if (o.format === 'json') {
         const out = rows.map((r) => ({ k: r.k, a: r.a, p: r.p, q: r.q, value: r.value, error: r.error, boundOk: r.boundOk }));
-        process.stdout.write(JSON.stringify(out) + '\n');
+        emit(cmd, JSON.stringify(out) + '\n');
         return;
       }
       const head = ['k', 'a', 'p', 'q', 'p/q', '|x - p/q|', '< 1/q^2'];
@@ -39,6 +39,6 @@ export function registerConvergents(program: Command): void {
       ]);
       const widths = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
       const line = (cells: string[]) => cells.map((c, i) => c.padStart(widths[i])).join('  ');
-      process.stdout.write([line(head), ...body.map(line)].join('\n') + '\n');
+      emit(cmd, [line(head), ...body.map(line)].join('\n') + '\n');
     });
 }

@@ -1,11 +1,16 @@
 import type { Command } from 'commander';
 import { CliError } from '../errors';
-import { compute, loadStructure, parse, readText } from '../flags';
-import { radiationSchema } from '../../../lib/diffraction/params';
+import { compute, emit, loadStructure, radiationOption, readText } from '../flags';
+import type { Radiation } from '../../../lib/diffraction/form-factors';
 import { intensityAt } from '../../../lib/diffraction/intensity-at';
 
-function atCommand(o: { input: string; qFile: string; radiation: string }): void {
-  const radiation = parse(radiationSchema, o.radiation);
+interface AtFlags {
+  input: string;
+  qFile: string;
+  radiation: Radiation;
+}
+
+function atCommand(o: AtFlags, cmd: Command): void {
   const s = loadStructure(o.input);
   const text = readText(o.qFile, '--q-file');
   const q: number[] = [];
@@ -19,8 +24,8 @@ function atCommand(o: { input: string; qFile: string; radiation: string }): void
     }
     q.push(v[0], v[1], v[2]);
   });
-  const out = compute(() => intensityAt(s, Float64Array.from(q), radiation));
-  process.stdout.write(Array.from(out, (x) => x.toPrecision(12)).join('\n') + (out.length ? '\n' : ''));
+  const out = compute(() => intensityAt(s, Float64Array.from(q), o.radiation));
+  emit(cmd, Array.from(out, (x) => x.toPrecision(12)).join('\n') + (out.length ? '\n' : ''));
 }
 
 /** diffract at: |F(Q)|²/N at given Q. */
@@ -29,6 +34,6 @@ export function registerDiffractAt(d: Command): void {
     .description('|F(Q)|²/N at each Cartesian Q (Å⁻¹, phase Q·r) of a file with one "qx qy qz" a line.')
     .requiredOption('--input <file>', 'structure file')
     .requiredOption('--q-file <file>', 'file of qx qy qz lines')
-    .option('--radiation <r>', 'xray, neutron or electron', 'xray')
-    .action((o: { input: string; qFile: string; radiation: string }) => atCommand(o));;
+    .addOption(radiationOption('xray'))
+    .action((o: AtFlags, cmd: Command) => atCommand(o, cmd));
 }

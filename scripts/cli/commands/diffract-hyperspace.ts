@@ -1,47 +1,47 @@
-import type { Command } from 'commander';
-import { compute, num, oneOf, parse, r } from '../flags';
-import { hyperspaceParamsSchema } from '../../../lib/diffraction/params';
+import { Option, type Command } from 'commander';
+import { compute, emit, number, parse, r, radiationOption } from '../flags';
+import { hyperspaceParamsSchema, type HyperspaceParams } from '../../../lib/diffraction/params';
+import type { Radiation } from '../../../lib/diffraction/form-factors';
 import { hyperspacePeaks } from '../../../lib/diffraction/hyperspace';
 import { DIFFRACTION_UNITS } from '../../../lib/diffraction/units';
 import { ENGINE_VERSION } from '../../../lib/version';
 
 interface HyperFlags {
-  family: string;
-  aR: string;
-  qmax: string;
-  format: string;
-  qperpMax?: string;
-  radiation: string;
-  species?: string;
-  biso?: string;
-  threshold?: string;
-  lattice?: string;
+  family: HyperspaceParams['family'];
+  aR: number;
+  qmax: number;
+  format: 'json';
+  qperpMax?: number;
+  radiation: Radiation;
+  species?: number;
+  biso?: number;
+  threshold?: number;
+  lattice: HyperspaceParams['lattice'];
 }
 
 export function registerDiffractHyperspace(d: Command): void {
   d.command('hyperspace')
     .description('Ideal quasicrystal diffraction: indexed Bragg peaks of the Fourier module.')
-    .requiredOption('--family <f>', 'icosahedral, penrose, octagonal or fibonacci')
-    .requiredOption('--aR <A>', 'quasilattice constant (rhombohedron edge, penrose/octagonal tile edge, long chain segment) in Å')
-    .requiredOption('--qmax <Q>', 'largest |Q∥| in Å⁻¹')
-    .option('--format <fmt>', 'json', 'json')
-    .option('--qperp-max <Q>', 'largest |Q⊥| in Å⁻¹')
-    .option('--radiation <r>', 'xray, neutron or electron', 'xray')
-    .option('--species <Z>', 'atomic number on every vertex (0 = unit form factor)')
-    .option('--biso <B>', 'isotropic B in Å²')
-    .option('--threshold <f>', 'drop peaks with |F/N|² below this × f(0)²')
-    .option('--lattice <t>', 'icosahedral hyperlattice: P, F or I', 'P')
-    .action((o: HyperFlags) => {
-      oneOf('--format', o.format, ['json'] as const);
+    .addOption(new Option('--family <f>', 'the ideal tiling or model').choices(hyperspaceParamsSchema.shape.family.options).makeOptionMandatory())
+    .requiredOption('--aR <A>', 'quasilattice constant (rhombohedron edge, penrose/octagonal tile edge, long chain segment) in Å', number)
+    .requiredOption('--qmax <Q>', 'largest |Q∥| in Å⁻¹', number)
+    .addOption(new Option('--format <fmt>', 'output format').choices(['json']).default('json'))
+    .option('--qperp-max <Q>', 'largest |Q⊥| in Å⁻¹', number)
+    .addOption(radiationOption('xray'))
+    .option('--species <Z>', 'atomic number on every vertex (0 = unit form factor)', number)
+    .option('--biso <B>', 'isotropic B in Å²', number)
+    .option('--threshold <f>', 'drop peaks with |F/N|² below this × f(0)²', number)
+    .addOption(new Option('--lattice <t>', 'icosahedral hyperlattice').choices(['P', 'F', 'I']).default('P'))
+    .action((o: HyperFlags, cmd: Command) => {
       const p = parse(hyperspaceParamsSchema, {
         family: o.family,
-        aR: num('--aR', o.aR),
-        qmax: num('--qmax', o.qmax),
-        qperpMax: num('--qperp-max', o.qperpMax),
+        aR: o.aR,
+        qmax: o.qmax,
+        qperpMax: o.qperpMax,
         radiation: o.radiation,
-        species: num('--species', o.species),
-        biso: num('--biso', o.biso),
-        threshold: num('--threshold', o.threshold),
+        species: o.species,
+        biso: o.biso,
+        threshold: o.threshold,
         lattice: o.lattice,
       });
       const peaks = compute(() => hyperspacePeaks(p));
@@ -69,6 +69,6 @@ export function registerDiffractHyperspace(d: Command): void {
           relative: r(k.relative, 4),
         })),
       };
-      process.stdout.write(JSON.stringify(out) + '\n');
+      emit(cmd, JSON.stringify(out) + '\n');
     });
 }

@@ -1,34 +1,34 @@
-import type { Command } from 'commander';
+import { Option, type Command } from 'commander';
 import { CliError } from '../errors';
-import { compute, loadStructure, num, oneOf, parse, r, range } from '../flags';
-import { powderParamsSchema, radiationSchema } from '../../../lib/diffraction/params';
+import { compute, emit, loadStructure, number, numbers, parse, r, radiationOption, span, wavelength } from '../flags';
+import { powderParamsSchema } from '../../../lib/diffraction/params';
+import type { Radiation } from '../../../lib/diffraction/form-factors';
 import { braggPowder } from '../../../lib/diffraction/powder';
 import { debyePowder } from '../../../lib/diffraction/debye-powder';
 import { groupAtoms } from '../../../lib/diffraction/scatterers';
 import { histogramSpec } from '../../../lib/diffraction/pair-histogram';
 import type { PairHistogram } from '../../../lib/diffraction/debye';
-import { DiffractionPool } from '../../../lib/server/workers/diffraction-pool';
+import { DiffractionPool } from '../diffraction-pool/pool';
 import { parseWavelength, XRAY_LINES } from '../../../lib/diffraction/wavelengths';
 import { DIFFRACTION_UNITS, UNITS_COMMENT } from '../../../lib/diffraction/units';
 import { peakTableCsv } from '../../../lib/diffraction/peak-table';
 import { ENGINE_VERSION } from '../../../lib/version';
 
-
 interface PowderFlags {
   input: string;
   wavelength: string;
-  range: string;
-  radiation: string;
-  format: string;
-  step?: string;
-  u?: string;
-  v?: string;
-  w?: string;
-  eta?: string;
-  background?: string;
-  monochromator?: string;
+  range: [number, number];
+  radiation: Radiation;
+  format: 'json' | 'csv';
+  step?: number;
+  U?: number;
+  V?: number;
+  W?: number;
+  eta?: number;
+  background?: number[];
+  monochromator?: number;
   kalpha2?: boolean;
-  bin?: string;
+  bin?: number;
 }
 
 function kalpha2Of(spec: string): number | undefined {
@@ -38,25 +38,16 @@ function kalpha2Of(spec: string): number | undefined {
   return XRAY_LINES[el].ka2;
 }
 
-async function powderCommand(o: PowderFlags): Promise<void> {
-  const fmt = oneOf('--format', o.format, ['json', 'csv'] as const);
-  const [t0, t1] = range('--range', o.range);
+async function powderCommand(o: PowderFlags, cmd: Command): Promise<void> {
   const p = parse(powderParamsSchema, {
     wavelength: o.wavelength,
-    radiation: parse(radiationSchema, o.radiation),
-    twoThetaMin: t0,
-    twoThetaMax: t1,
-    monochromator2Theta: num('--monochromator', o.monochromator),
+    radiation: o.radiation,
+    twoThetaMin: o.range[0],
+    twoThetaMax: o.range[1],
+    monochromator2Theta: o.monochromator,
     kalpha2: o.kalpha2 ?? false,
-    binWidth: num('--bin', o.bin),
-    profile: {
-      U: num('--U', o.u),
-      V: num('--V', o.v),
-      W: num('--W', o.w),
-      eta: num('--eta', o.eta),
-      step: num('--step', o.step),
-      background: o.background === undefined ? undefined : o.background.split(',').map((b) => num('--background', b)!),
-    },
+    binWidth: o.bin,
+    profile: { U: o.U, V: o.V, W: o.W, eta: o.eta, step: o.step, background: o.background },
   });
   const lambda = compute(() => parseWavelength(p.wavelength, '--wavelength'));
   const s = loadStructure(o.input);
@@ -91,16 +82,16 @@ async function powderCommand(o: PowderFlags): Promise<void> {
       intensity: r(k.intensity, 4),
     }));
     const prof = res.profile!;
-    if (fmt === 'json') {
+    if (o.format === 'json') {
       const out = {
         ...head,
         method: 'bragg',
         peaks,
         profile: { twoTheta: Array.from(prof.twoTheta, (x) => r(x)), intensity: Array.from(prof.intensity, (x) => r(x, 4)) },
       };
-      process.stdout.write(JSON.stringify(out) + '\n');
+      emit(cmd, JSON.stringify(out) + '\n');
     } else {
-      process.stdout.write(peakTableCsv(res.peaks, { radiation: p.radiation, wavelength: lambda }));
+      emit(cmd, peakTableCsv(res.peaks, { radiation: p.radiation, wavelength: lambda }));
     }
     return;
   }
@@ -118,7 +109,7 @@ async function powderCommand(o: PowderFlags): Promise<void> {
     }),
   );
   const peaks = res.maxima.map((k) => ({ twoTheta: r(k.twoTheta), d: r(k.d), q: r(k.q), hkl: null, multiplicity: null, intensity: r(k.intensity, 4) }));
-  if (fmt === 'json') {
+  if (o.format === 'json') {
     const out = {
       ...head,
       method: 'debye',
@@ -126,12 +117,12 @@ async function powderCommand(o: PowderFlags): Promise<void> {
       peaks,
       profile: { twoTheta: Array.from(res.twoTheta, (x) => r(x)), intensity: Array.from(res.intensity, (x) => r(x, 6)) },
     };
-    process.stdout.write(JSON.stringify(out) + '\n');
+    emit(cmd, JSON.stringify(out) + '\n');
   } else {
     const lines = [UNITS_COMMENT, `# radiation ${p.radiation}, wavelength ${lambda} Å; Debye equation, intensity per atom`];
     lines.push('twoTheta,q,intensity');
     for (let i = 0; i < res.twoTheta.length; i++) lines.push(`${r(res.twoTheta[i])},${r(res.q[i])},${r(res.intensity[i], 6)}`);
-    process.stdout.write(lines.join('\n') + '\n');
+    emit(cmd, lines.join('\n') + '\n');
   }
 }
 
@@ -155,18 +146,18 @@ export function registerDiffractPowder(d: Command): void {
   d.command('powder')
     .description('Powder pattern: Bragg peaks of a periodic cell, or the Debye equation for a finite patch.')
     .requiredOption('--input <file>', 'structure file: XYZ, extended XYZ, CIF or Tauforge JSON')
-    .option('--wavelength <spec>', 'CuKa1, CuKa2, CuKa, MoKa1, CoKa1, CrKa1, AgKa1, <n>kV, or Å', 'CuKa1')
-    .option('--range <a:b>', '2θ range in degrees', '10:120')
-    .option('--radiation <r>', 'xray, neutron or electron', 'xray')
-    .option('--format <fmt>', 'json or csv', 'json')
-    .option('--step <deg>', 'profile step in 2θ (degrees)')
-    .option('--U <u>', 'Caglioti U (deg²)')
-    .option('--V <v>', 'Caglioti V (deg²)')
-    .option('--W <w>', 'Caglioti W (deg²)')
-    .option('--eta <eta>', 'pseudo-Voigt Lorentzian fraction')
-    .option('--background <b0,b1,...>', 'background polynomial in 2θ')
-    .option('--monochromator <deg>', 'monochromator angle 2θ_m (degrees)')
+    .option('--wavelength <spec>', 'CuKa1, CuKa2, CuKa, MoKa1, CoKa1, CrKa1, AgKa1, <n>kV, or Å', wavelength, 'CuKa1')
+    .addOption(new Option('--range <a:b>', '2θ range in degrees').argParser(span).default([10, 120], '10:120'))
+    .addOption(radiationOption('xray'))
+    .addOption(new Option('--format <fmt>', 'json: peaks and profile; csv: peak table (cell) or profile (patch)').choices(['json', 'csv']).default('json'))
+    .option('--step <deg>', 'profile step in 2θ (degrees)', number)
+    .option('--U <u>', 'Caglioti U (deg²)', number)
+    .option('--V <v>', 'Caglioti V (deg²)', number)
+    .option('--W <w>', 'Caglioti W (deg²)', number)
+    .option('--eta <eta>', 'pseudo-Voigt Lorentzian fraction', number)
+    .option('--background <b0,b1,...>', 'background polynomial in 2θ', numbers)
+    .option('--monochromator <deg>', 'monochromator angle 2θ_m (degrees)', number)
     .option('--kalpha2', 'add the Kα2 line to the profile (ratio 0.5)')
-    .option('--bin <Å>', 'pair-distance bin for finite patches (Å)')
-    .action((o: PowderFlags & { U?: string; V?: string; W?: string }) => powderCommand({ ...o, u: o.U, v: o.V, w: o.W }));;
+    .option('--bin <Å>', 'pair-distance bin for finite patches (Å)', number)
+    .action((o: PowderFlags, cmd: Command) => powderCommand(o, cmd));
 }

@@ -1,23 +1,24 @@
-import type { Command } from 'commander';
-import { compute, loadStructure, num, oneOf, parse, r } from '../flags';
+import { Option, type Command } from 'commander';
+import { compute, emit, loadStructure, number, parse, r, radiationOption } from '../flags';
 import { zoneParamsSchema } from '../../../lib/diffraction/params';
 import { crystalZone, mapSpots, zonePattern, parseAxis, zoneLayers, zoneMapFromSums, type ZoneMap, type ZoneOptions, type ZoneSpot } from '../../../lib/diffraction/zone-axis';
 import { groupAtoms } from '../../../lib/diffraction/scatterers';
-import { DiffractionPool } from '../../../lib/server/workers/diffraction-pool';
+import { DiffractionPool } from '../diffraction-pool/pool';
 import type { Structure } from '../../../lib/structure/types';
+import type { Radiation } from '../../../lib/diffraction/form-factors';
 import { DIFFRACTION_UNITS } from '../../../lib/diffraction/units';
 import { ENGINE_VERSION } from '../../../lib/version';
 
 interface ZoneFlags {
   input: string;
   axis: string;
-  qmax: string;
-  format: string;
-  radiation: string;
-  laueZones?: string;
-  slab?: string;
-  grid?: string;
-  threshold?: string;
+  qmax: number;
+  format: 'json';
+  radiation: Radiation;
+  laueZones?: number;
+  slab?: number;
+  grid?: number;
+  threshold?: number;
 }
 
 /** Patch maps over 10⁸ atom×grid terms run on two worker threads; the result is the same sum. */
@@ -42,23 +43,22 @@ export function registerDiffractZone(d: Command): void {
     .description('Zone-axis pattern: spots in the reciprocal plane normal to an axis (5, 3, 2 icosahedral, or u,v,w).')
     .requiredOption('--input <file>', 'structure file')
     .requiredOption('--axis <axis>', '5, 3, 2 or u,v,w')
-    .requiredOption('--qmax <Q>', 'largest |Q| in Å⁻¹')
-    .option('--format <fmt>', 'json', 'json')
-    .option('--radiation <r>', 'xray, neutron or electron', 'electron')
-    .option('--laue-zones <n>', 'crystals: include Laue zones |n| ≤ this')
-    .option('--slab <Q>', 'patches: average over ±slab Å⁻¹ along the axis')
-    .option('--grid <n>', 'patches: grid points per side')
-    .option('--threshold <f>', 'drop spots weaker than this fraction of the strongest')
-    .action(async (o: ZoneFlags) => {
-      oneOf('--format', o.format, ['json'] as const);
+    .requiredOption('--qmax <Q>', 'largest |Q| in Å⁻¹', number)
+    .addOption(new Option('--format <fmt>', 'output format').choices(['json']).default('json'))
+    .addOption(radiationOption('electron'))
+    .option('--laue-zones <n>', 'crystals: include Laue zones |n| ≤ this', number)
+    .option('--slab <Q>', 'patches: average over ±slab Å⁻¹ along the axis', number)
+    .option('--grid <n>', 'patches: grid points per side', number)
+    .option('--threshold <f>', 'drop spots weaker than this fraction of the strongest', number)
+    .action(async (o: ZoneFlags, cmd: Command) => {
       const p = parse(zoneParamsSchema, {
         axis: o.axis.replace(/\s+/g, ''),
-        qmax: num('--qmax', o.qmax),
+        qmax: o.qmax,
         radiation: o.radiation,
-        laueZones: num('--laue-zones', o.laueZones),
-        slab: num('--slab', o.slab),
-        grid: num('--grid', o.grid),
-        threshold: num('--threshold', o.threshold),
+        laueZones: o.laueZones,
+        slab: o.slab,
+        grid: o.grid,
+        threshold: o.threshold,
       });
       const s = loadStructure(o.input);
       const axis = compute(() => parseAxis(p.axis));
@@ -80,6 +80,6 @@ export function registerDiffractZone(d: Command): void {
           relative: r(k.relative, 4),
         })),
       };
-      process.stdout.write(JSON.stringify(out) + '\n');
+      emit(cmd, JSON.stringify(out) + '\n');
     });
 }

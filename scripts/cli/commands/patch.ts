@@ -3,6 +3,9 @@ import { generateAndEmit, number, readJsonFile, vector3 } from '../flags';
 import { STRUCTURE_FORMATS } from '../../../lib/formats/write';
 import type { StructureFormat } from '../../../lib/formats/read';
 
+/** A CIF needs a periodic cell; a finite ball has none. */
+const PATCH_FORMATS = STRUCTURE_FORMATS.filter((f) => f !== 'cif');
+
 /** patch: a finite ball of the icosahedral model. */
 export function registerPatch(program: Command): void {
   program
@@ -17,9 +20,10 @@ export function registerPatch(program: Command): void {
     .option('--species <El>', 'element for the vertices (default X)')
     .option('--decoration <file>', 'JSON file with site classes {"classes": […]}')
     .option('--max-points <n>', 'refuse to build more points than this (default 2000000)', number)
-    .addOption(new Option('--format <fmt>', STRUCTURE_FORMATS.join(', ')).choices(STRUCTURE_FORMATS).default('xyz'))
-    .action((o: Record<string, unknown> & { decoration?: string; format: StructureFormat }) => {
+    .addOption(new Option('--format <fmt>', 'coordinate format (a patch has no cell, so no CIF)').choices(PATCH_FORMATS).default('xyz'))
+    .action((o: Record<string, unknown> & { decoration?: string; format: StructureFormat }, cmd: Command) => {
       generateAndEmit(
+        cmd,
         {
           family: 'icosahedral',
           mode: 'patch',

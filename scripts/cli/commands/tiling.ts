@@ -13,8 +13,8 @@ export function registerTiling(program: Command): void {
     .option('--approximant <p/q>', 'periodic approximant: a convergent p/q of τ (penrose) or 1+√2 (octagonal)', ratio)
     .option('--max-points <n>', 'refuse to build more points than this', number)
     .addOption(new Option('--format <fmt>', 'xyz or json').choices(['xyz', 'json']).default('xyz'))
-    .action((o: { family: string; radius?: number; edge?: number; approximant?: { p: number; q: number }; maxPoints?: number; format: 'xyz' | 'json' }) => {
+    .action((o: { family: string; radius?: number; edge?: number; approximant?: { p: number; q: number }; maxPoints?: number; format: 'xyz' | 'json' }, cmd: Command) => {
       if (o.approximant === undefined && o.radius === undefined) throw new CliError('--radius: required unless --approximant is given');
-      generateAndEmit({ family: o.family, radius: o.radius, edge: o.edge, approximant: o.approximant, maxPoints: o.maxPoints }, o.format);
+      generateAndEmit(cmd, { family: o.family, radius: o.radius, edge: o.edge, approximant: o.approximant, maxPoints: o.maxPoints }, o.format);
     });
 }

@@ -1,18 +1,20 @@
 /**
- * Split the diffraction loops over worker threads (server side). A pool keeps its workers alive between
- * calls; each call gives every worker an equal share of the outer loop and sums the partial results —
- * the same sums as the single-threaded call up to floating-point reassociation (≈ 1e-15 relative).
+ * Split the diffraction loops over Node worker threads (the command line and the benchmarks; the browser
+ * runs the same lib/ functions in its Web Worker). A pool keeps its workers alive between calls; each
+ * call gives every worker an equal share of the outer loop and sums the partial results — the same sums
+ * as the single-threaded call up to floating-point reassociation (≈ 1e-15 relative).
  */
 import { Worker } from 'node:worker_threads';
 import { fileURLToPath } from 'node:url';
-import type { HklRows } from '../../diffraction/hkl-sum';
-import type { PlaneGrid } from '../../diffraction/cartesian-sum';
-import { balancedRowRanges, type PairHistogramSpec } from '../../diffraction/pair-histogram';
-import type { DiffractionJob } from './diffraction-worker';
+import type { HklRows } from '../../../lib/diffraction/hkl-sum';
+import type { PlaneGrid } from '../../../lib/diffraction/cartesian-sum';
+import { balancedRowRanges, type PairHistogramSpec } from '../../../lib/diffraction/pair-histogram';
+import type { DiffractionJob } from './worker';
 
-const WORKER_URL = new URL('./diffraction-worker.ts', import.meta.url);
+// The worker is this module's sibling; the URL is computed from where this module is loaded from.
+const WORKER_URL = new URL('./worker.ts', import.meta.url);
 
-/** From TypeScript sources (CLI, bench under tsx) the worker first registers tsx's require hook. */
+/** From TypeScript sources (CLI and bench under tsx, tests under vitest) the worker first registers tsx's require hook. */
 function spawn(): Worker {
   if (!WORKER_URL.pathname.endsWith('.ts')) return new Worker(WORKER_URL);
   const file = fileURLToPath(WORKER_URL);

@@ -1,6 +1,6 @@
 /**
- * worker_threads entry for the heavy diffraction loops (server side only). It runs the same pure
- * functions as the browser's Web Worker would: the caller splits the outer loop (atoms for hkl sums,
+ * worker_threads entry for the heavy diffraction loops (Node only: the command line and the benchmarks).
+ * It runs the same pure functions as the browser's Web Worker would: the caller splits the outer loop (atoms for hkl sums,
  * rows i for the pair histogram) and adds the returned partial arrays.
  *
  * Messages: { kind: 'hkl', frac, groupOf, weight, rows, nGroups, j0, j1 } → { re, im }
@@ -9,9 +9,9 @@
  * Every answer also carries `ms`, the job's time inside the worker (to check that all workers were busy).
  */
 import { parentPort } from 'node:worker_threads';
-import { hklPartialSums, type HklRows } from '../../diffraction/hkl-sum';
-import { accumulatePairs, type PairHistogramSpec } from '../../diffraction/pair-histogram';
-import { gridPartialSums, type PlaneGrid } from '../../diffraction/cartesian-sum';
+import { hklPartialSums, type HklRows } from '../../../lib/diffraction/hkl-sum';
+import { accumulatePairs, type PairHistogramSpec } from '../../../lib/diffraction/pair-histogram';
+import { gridPartialSums, type PlaneGrid } from '../../../lib/diffraction/cartesian-sum';
 
 export type DiffractionJob =
   | { kind: 'hkl'; frac: Float64Array; groupOf: Uint16Array; weight: Float64Array; rows: HklRows; nGroups: number; j0: number; j1: number }
