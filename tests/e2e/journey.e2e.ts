@@ -16,11 +16,11 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { baseUrl, launch, screenshot } from './browser';
+import { runPython } from '../helpers/python';
 import { approximantVertexCount } from '../../lib/models/icosahedral/approximant';
 
 const PASSWORD = 'quasi-demo-2026';
@@ -156,9 +156,7 @@ describe('journey', () => {
     expect(cif.name).toMatch(/\.cif$/);
     const cifFile = path.join(work, cif.name);
     writeFileSync(cifFile, cif.text);
-    const py = spawnSync('/usr/bin/python3', ['-c', 'import gemmi, sys; s = gemmi.read_small_structure(sys.argv[1]); print(len(s.sites), s.cell.a)', cifFile], { encoding: 'utf8' });
-    expect(py.status, py.stderr).toBe(0);
-    const [sites, a] = py.stdout.trim().split(/\s+/).map(Number);
+    const [sites, a] = runPython<number[]>('import gemmi, sys, json; s = gemmi.read_small_structure(sys.stdin.read()); print(json.dumps([len(s.sites), s.cell.a]))', cifFile);
     await page.getByLabel('File format').selectOption('xyz');
     const xyz = await download(page, () => page.getByRole('button', { name: 'Download' }).click());
     expect(Number(xyz.text.split('\n')[0])).toBe(count);
@@ -204,9 +202,10 @@ describe('journey', () => {
     const cif = await download(page, () => page.getByRole('button', { name: 'Download' }).click());
     const cifFile = path.join(work, cif.name);
     writeFileSync(cifFile, cif.text);
-    const py = spawnSync('/usr/bin/python3', ['-c', 'import gemmi, sys; s = gemmi.read_small_structure(sys.argv[1]); c = s.cell; print(len(s.sites), c.a, c.b, c.c, c.alpha, c.beta, c.gamma)', cifFile], { encoding: 'utf8' });
-    expect(py.status, py.stderr).toBe(0);
-    const [sites, a, b, , alpha, beta, gamma] = py.stdout.trim().split(/\s+/).map(Number);
+    const [sites, a, b, , alpha, beta, gamma] = runPython<number[]>(
+      'import gemmi, sys, json; s = gemmi.read_small_structure(sys.stdin.read()); c = s.cell; print(json.dumps([len(s.sites), c.a, c.b, c.c, c.alpha, c.beta, c.gamma]))',
+      cifFile,
+    );
     expect(sites).toBe(count);
     expect([alpha, beta, gamma]).toEqual([90, 90, 90]);
     expect(await page.textContent('body')).toContain(`a, b, c = ${a.toFixed(3)}, ${b.toFixed(3)}`);

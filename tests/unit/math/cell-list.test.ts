@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Cell } from '@/lib/math/cell';
 import { forEachPairWithin } from '@/lib/math/cell-list';
-import { runPython } from '../structure-pyref';
+import { runPython } from '../../helpers/python';
 
 /** Deterministic pseudo-random numbers (LCG from Numerical Recipes, common practice). */
 function lcg(seed: number) {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { cellFromParameters, cellParameters, cellVolume, faceSpacings, type Cell } from '@/lib/math/cell';
-import { runPython } from '../structure-pyref';
+import { runPython } from '../../helpers/python';
 
 const tric: Cell = [
   [5.1, 0, 0],

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { Cell } from '@/lib/math/cell';
 import { toCartesian, toFractional, wrapFractional } from '@/lib/math/frac';
-import { runPython } from '../structure-pyref';
+import { runPython } from '../../helpers/python';
 
 const tric: Cell = [
   [5.1, 0, 0],

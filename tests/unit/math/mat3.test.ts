@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { determinant, identity, inverse, matVec, multiply, reciprocal, transpose, vecMat, type Mat3 } from '@/lib/math/mat3';
 import { dot, norm } from '@/lib/math/vec3';
-import { runPython } from '../structure-pyref';
+import { runPython } from '../../helpers/python';
 
 const A: Mat3 = [
   [2.5, -1.25, 0.75],

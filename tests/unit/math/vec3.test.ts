@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { add, angleDeg, cross, distance, dot, norm, normalize, pointAt, scale, sub, type Vec3 } from '@/lib/math/vec3';
-import { runPython } from '../structure-pyref';
+import { runPython } from '../../helpers/python';
 
 /** Deterministic pseudo-random numbers (LCG from Numerical Recipes, common practice). */
 function lcg(seed: number) {
