@@ -31,6 +31,9 @@ describe('tiling CLI', () => {
     expect(r.code).toBe(0);
     const doc = JSON.parse(r.out);
     expect(Object.keys(doc).slice(0, 6)).toEqual(['cell', 'positions', 'species', 'site', 'perp', 'provenance']);
+    // Worked by hand: the square cell of side (1+√2)² edges has area (3 + 2√2)² = 17 + 12√2 = 17·1 + 24·sin 45°
+    // edge², so 17 squares and 24 rhombi (√2 is irrational: the split is unique), and a rhombus tiling of a
+    // torus has as many vertices as tiles (V − E + F = 0, E = 2F): 41.
     expect(doc.positions.length).toBe(41);
     expect(doc.species.every((s: string) => s === 'X')).toBe(true);
     expect(doc.cell[0][0]).toBeCloseTo(2 * (3 + 2 * Math.SQRT2), 6); // side (1+√2)²·edge

@@ -44,6 +44,8 @@ print(json.dumps(list(np.linalg.lstsq(A,y*np.sqrt(w),rcond=None)[0])))`,
       lines.push(`${sim.profile!.twoTheta[i].toFixed(4)} ${(3.7 * sim.profile!.intensity[i] + 12).toFixed(6)}`);
     }
     const m = readMeasured(lines.join('\n'));
+    // fcc Cu, 30° < 2θ < 100° at Cu Kα1: 111, 200, 220, 311, 222 (F-lattice extinctions; 2θ(400) = 116.9°).
+    expect(sim.peaks.map((p) => p.hkl.join(''))).toEqual(['111', '200', '220', '311', '222']);
     const refl = sim.peaks.map((p) => ({ twoTheta: p.twoTheta, d: p.d, hkl: p.hkl, intensity: p.intensity }));
     const r = comparePatterns(m, sim.profile!, refl, { wavelength: 1.540593 });
     expect(r.scale).toBeCloseTo(3.7, 4);

@@ -104,7 +104,9 @@ describe('hyperspace diffraction: octagonal (Ammann–Beenker) tiling from Z⁴'
     const edge = 1.5;
     const ideal = octagonalPeaks({ family: 'octagonal', aR: edge, qmax: 6, threshold: 1e-3 }).filter((p) => p.qParNorm > 0);
     // Every ideal peak is recovered from its Q∥ alone.
-    for (const p of ideal.filter((x) => x.relative > 1)) {
+    const indexed = ideal.filter((x) => x.relative > 1);
+    expect(indexed.length).toBeGreaterThan(16);
+    for (const p of indexed) {
       const idx = indexOctagonalSpot([p.qPar[0], p.qPar[1]], edge, 1e-6)!;
       expect(idx.h, `${p.indices}`).toEqual(p.indices);
       expect(idx.qPerp).toBeCloseTo(p.qPerpNorm, 9);

@@ -72,6 +72,7 @@ describe('hyperspace diffraction', () => {
     const key = (x: number, y: number) => `${Math.round(x * 1e6)},${Math.round(y * 1e6)}`;
     const map = new Map(peaks.map((p) => [key(p.qPar[0], p.qPar[1]), p.intensity]));
     const strong = peaks.filter((p) => p.relative > 5);
+    expect(strong.length).toBeGreaterThanOrEqual(20);
     for (const p of strong) {
       for (let r = 1; r < 10; r++) {
         const c = Math.cos((r * Math.PI) / 5);
@@ -94,6 +95,14 @@ describe('hyperspace diffraction', () => {
   });
 
   it('CSG indexing: map is invertible; |Q∥|², |Q⊥|² from N, M agree with the hyperlattice projection', () => {
+    // Worked by hand: one reciprocal basis vector E*_1 has |E*_1| = 2π/|E_1| = 2π/(√2 aR) and equal parallel and
+    // perpendicular parts, so |Q∥|² = |Q⊥|² = π²/aR². In the CSG scheme (Cahn, Shechtman & Gratias 1986) it is
+    // 1/0 0/1 0/0 with N = 1 + 1 = 2, M = 1, and c²(N + Mτ) = π²(2 + τ)/(aR²(2 + τ)) = π²/aR².
+    const e1 = csgFromHyper([1, 0, 0, 0, 0, 0]);
+    expect([e1.label, e1.N, e1.M]).toEqual(['1/0 0/1 0/0', 2, 1]);
+    const q1 = qSquaredFromNM(e1.N, e1.M, 4.6);
+    expect(q1.par).toBeCloseTo(Math.PI ** 2 / 4.6 ** 2, 12);
+    expect(q1.perp).toBeCloseTo(Math.PI ** 2 / 4.6 ** 2, 12);
     const peaks = icosahedralPeaks({ family: 'icosahedral', aR: 4.6, qmax: 3.2, threshold: 1e-3 });
     expect(peaks.length).toBeGreaterThan(50);
     for (const p of peaks) {
@@ -139,6 +148,7 @@ describe('hyperspace diffraction', () => {
       if (lattice === 'F') expect(peaks.some((p) => !Number.isInteger(p.indices[0]))).toBe(true);
       if (lattice === 'I') for (const p of peaks) expect(Math.abs(p.indices.reduce((a, b) => a + b) % 2)).toBe(0);
       const top = peaks.slice().sort((a, b) => b.intensity - a.intensity).slice(0, 8);
+      expect(top).toHaveLength(8);
       const q: number[] = [];
       for (const p of top) q.push(...p.qPar);
       const direct = intensityAt(patch, Float64Array.from(q));
@@ -153,6 +163,7 @@ describe('hyperspace diffraction', () => {
       .filter((p) => p.qParNorm > 0)
       .sort((a, b) => b.intensity - a.intensity)
       .slice(0, 20);
+    expect(peaks).toHaveLength(20);
     const q: number[] = [];
     for (const p of peaks) q.push(p.qPar[0], p.qPar[1], 0);
     const direct = intensityAt(t, Float64Array.from(q));

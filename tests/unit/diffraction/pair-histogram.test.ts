@@ -1,24 +1,29 @@
 import { describe, expect, it } from 'vitest';
 import { accumulatePairs, balancedRowRanges, histogramSpec } from '../../../lib/diffraction/pair-histogram';
 import { pairRowKernel } from '../../../lib/diffraction/pair-kernel';
+import { runPython } from '../../helpers/python';
 
-// Reference: the definition itself — every pair i < j once, bin trunc(√(dx² + dy² + dz²) · (1/Δ)) in
-// doubles, weight w_i·w_j into the block of its group pair (a ≤ b) — as a plain double loop.
+/**
+ * Reference: the definition, evaluated by numpy (reference library) — every pair i < j once
+ * (numpy.triu_indices), bin trunc(√(dx² + dy² + dz²) · (1/Δ)) in IEEE doubles, weight w_i·w_j summed into the
+ * block of its group pair (a ≤ b) by numpy.bincount. The arithmetic is the same IEEE double arithmetic in the
+ * same order, so the histograms must agree exactly, bin edges included.
+ */
 function naive(pos: Float64Array, groupOf: Uint16Array, weight: Float64Array, ng: number, binWidth: number, nb: number): Float64Array {
-  const inv = 1 / binWidth;
-  const n = groupOf.length;
-  const h = new Float64Array(ng * ng * nb);
-  for (let i = 0; i < n; i++) {
-    for (let j = i + 1; j < n; j++) {
-      const dx = pos[3 * j] - pos[3 * i];
-      const dy = pos[3 * j + 1] - pos[3 * i + 1];
-      const dz = pos[3 * j + 2] - pos[3 * i + 2];
-      const a = Math.min(groupOf[i], groupOf[j]);
-      const b = Math.max(groupOf[i], groupOf[j]);
-      h[(a * ng + b) * nb + ((Math.sqrt(dx * dx + dy * dy + dz * dz) * inv) | 0)] += weight[i] * weight[j];
-    }
-  }
-  return h;
+  const h = runPython<number[]>(
+    `import sys, json, numpy as np
+d = json.load(sys.stdin)
+p = np.array(d["pos"]).reshape(-1, 3); g = np.array(d["g"]); w = np.array(d["w"]); ng = d["ng"]; nb = d["nb"]
+inv = 1.0 / d["dw"]
+i, j = np.triu_indices(len(g), 1)
+dx = p[j, 0] - p[i, 0]; dy = p[j, 1] - p[i, 1]; dz = p[j, 2] - p[i, 2]
+b = (np.sqrt(dx * dx + dy * dy + dz * dz) * inv).astype(np.int64)
+lo = np.minimum(g[i], g[j]); hi = np.maximum(g[i], g[j])
+print(json.dumps(np.bincount((lo * ng + hi) * nb + b, weights=w[i] * w[j], minlength=ng * ng * nb).tolist()))`,
+    JSON.stringify({ pos: Array.from(pos), g: Array.from(groupOf), w: Array.from(weight), ng, nb, dw: binWidth }),
+  );
+  expect(h).toHaveLength(ng * ng * nb);
+  return Float64Array.from(h);
 }
 
 /** Seeded points: random ones in a 40 Å box plus an fcc block (many repeated distances, some on bin edges). */

@@ -71,6 +71,7 @@ describe('zone axes', () => {
     const all = mapSpots(map, qmax, 0.05);
     expect(Math.max(...all.map((s) => s.q))).toBeLessThanOrEqual(qmax);
     const spots = all.filter((s) => s.q > 0.3);
+    expect(spots.length).toBeGreaterThanOrEqual(10);
     const ideal = icosahedralPeaks({ family: 'icosahedral', aR, qmax, threshold: 1e-3 });
     const u = map.frame.axis;
     const plane = ideal.filter((p) => Math.abs(p.qPar[0] * u[0] + p.qPar[1] * u[1] + p.qPar[2] * u[2]) < 1e-9);

@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { estimateCount, generate } from '../../../lib/models';
 import { STARTERS } from '../../../lib/models/starters';
-import { writeXyz } from '../../../lib/formats';
 import { ENGINE_VERSION } from '../../../lib/version';
 
 describe('generate: one entry point for every family', () => {
@@ -11,14 +10,12 @@ describe('generate: one entry point for every family', () => {
     expect(n).toBeGreaterThan(0);
     expect(s.positions.length).toBe(3 * n);
     // The estimate is density × volume (model-set density formula); finite patches differ at the rim.
+    // An internal consistency check between the size cap and the generator (common practice); the
+    // densities themselves are checked against outside values in the per-family tests.
     const est = estimateCount(params);
     expect(Math.abs(est - n) / n).toBeLessThan(0.35);
     expect(s.provenance.engine).toBe(ENGINE_VERSION);
     expect((s.provenance.params as { family: string }).family).toBe(params.family);
-  });
-
-  it('is deterministic: the same Params give the same bytes', () => {
-    for (const st of STARTERS) expect(writeXyz(generate(st.params))).toBe(writeXyz(generate(st.params)));
   });
 
   it('the Fibonacci approximant of order n holds F(n+1) long and F(n) short segments (OEIS A000045)', () => {

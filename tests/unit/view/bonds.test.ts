@@ -50,8 +50,12 @@ describe('bondPairs (the viewer on the shared cell list)', () => {
     p.set(p.subarray(0, 3), 3); // atom 1 on top of atom 0
     const shown = Uint8Array.from({ length: 600 }, () => (r() < 0.6 ? 1 : 0));
     shown[0] = shown[1] = 1;
-    expect(asKeys(bondPairs(p, 2.4, { visible: shown }).pairs)).toEqual(bruteForce(p, 2.4, 0.1, shown));
-    expect(asKeys(bondPairs(p, 2.4, { minDistance: 1 }).pairs)).toEqual(bruteForce(p, 2.4, 1));
+    const masked = bruteForce(p, 2.4, 0.1, shown);
+    const far = bruteForce(p, 2.4, 1);
+    // The data hold pairs to find (600 points in 15³ Å³: several hundred within 2.4 Å).
+    expect(Math.min(masked.length, far.length)).toBeGreaterThan(100);
+    expect(asKeys(bondPairs(p, 2.4, { visible: shown }).pairs)).toEqual(masked);
+    expect(asKeys(bondPairs(p, 2.4, { minDistance: 1 }).pairs)).toEqual(far);
   });
 
   it('skips coincident points, honours the visible mask and stops at maxBonds', () => {

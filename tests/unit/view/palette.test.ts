@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { distinctSpecies, PLACEHOLDER_RADIUS, speciesColour, speciesRadius, tablePlace } from '@/lib/view/palette';
-import { covalentRadius } from '@/lib/structure/elements';
 
 describe('tablePlace (IUPAC 18-column periodic table)', () => {
   it.each([
@@ -39,7 +38,9 @@ describe('our species palette', () => {
 
 describe('drawn radii', () => {
   it('scale the covalent radius and fall back to the placeholder for X', () => {
-    expect(speciesRadius(13, 0.5)).toBeCloseTo(covalentRadius(13) * 0.5, 12);
+    // Al 1.21 Å, Cu 1.32 Å (Cordero et al., Dalton Trans. 2008, 2832, Table 2, as in elements.test.ts).
+    expect(speciesRadius(13, 0.5)).toBeCloseTo(0.605, 12);
+    expect(speciesRadius(29, 2)).toBeCloseTo(2.64, 12);
     expect(speciesRadius(0, 0.5)).toBe(PLACEHOLDER_RADIUS * 0.5);
     expect(distinctSpecies(new Uint16Array([29, 13, 13, 0]))).toEqual([0, 13, 29]);
   });

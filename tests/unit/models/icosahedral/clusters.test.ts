@@ -103,7 +103,6 @@ describe('mergeClose', () => {
     expect(Array.from(r.structure.species)).toEqual([25, 25]);
     expect(Array.from(r.structure.site!)).toEqual([0, 0]);
     expect(r.structure.positions[0]).toBe(0);
-    expect(mergeClose(s, 0.1)).toEqual(r); // deterministic
   });
 
   it('does not collapse a chain: a–b and b–c close, a–c not → only b goes', () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { icosahedralBasis } from '@/lib/models/icosahedral/hyperlattice';
-import { POLYHEDRON_NAMES, polyhedronVertices, type PolyhedronName } from '@/lib/models/icosahedral/polyhedra';
+import { polyhedronVertices, type PolyhedronName } from '@/lib/models/icosahedral/polyhedra';
 import { runPython } from '../../../helpers/python';
 
 function distances(v: Float64Array): number[] {
@@ -62,8 +62,7 @@ describe('named polyhedra', () => {
     }
   });
 
-  it('is deterministic and rejects bad input', () => {
-    for (const n of POLYHEDRON_NAMES) expect(Array.from(polyhedronVertices(n, 2))).toEqual(Array.from(polyhedronVertices(n, 2)));
+  it('rejects bad input', () => {
     expect(() => polyhedronVertices('icosahedron', -1)).toThrow(/circumradius/);
     expect(() => polyhedronVertices('heptahedron' as PolyhedronName, 1)).toThrow(/unknown polyhedron/);
   });
