@@ -28,7 +28,10 @@ export const chainParamsSchema = z.strictObject({
     .number({ message: 'must be a number' })
     .min(-1000, 'must be at least -1000')
     .max(1000, 'must be at most 1000')
-    .meta({ title: 'Phason offset', unit: 'short segments, perp. space', description: 'Shifts the window in perpendicular space.' })
+    .meta({
+      title: 'Phason offset',
+      description: 'Shifts the window in perpendicular space, in units of the short segment’s perpendicular image (the window is 1 + 1/τ long).',
+    })
     .default(0),
   /** Long segment length in Å. */
   long: z

@@ -35,21 +35,21 @@ export const windowSpecSchema = z
   .discriminatedUnion('kind', [
     z
       .object({
-        kind: z.literal('hypercube'),
+        kind: z.literal('hypercube').meta({ title: 'Shape' }),
         scale: z.number().positive().max(10).meta({ title: 'Window scaling', unit: '× triacontahedron' }).default(1),
       })
       .meta({ title: 'Triacontahedron (projected 6D cube)' }),
     z
       .object({
-        kind: z.literal('sphere'),
-        radius: z.number().positive().max(1000).meta({ title: 'Sphere radius, perp. space', unit: 'Å', examples: [2] }),
+        kind: z.literal('sphere').meta({ title: 'Shape' }),
+        radius: z.number().positive().max(1000).meta({ title: 'Sphere radius', unit: 'Å, perp. space', examples: [2] }),
       })
       .meta({ title: 'Sphere' }),
     z
       .object({
-        kind: z.literal('shell'),
-        r1: z.number().min(0).max(1000).meta({ title: 'Inner radius r1, perp. space', unit: 'Å', examples: [1] }),
-        r2: z.number().positive().max(1000).meta({ title: 'Outer radius r2, perp. space', unit: 'Å', examples: [2] }),
+        kind: z.literal('shell').meta({ title: 'Shape' }),
+        r1: z.number().min(0).max(1000).meta({ title: 'Inner radius r1', unit: 'Å, perp. space', examples: [1] }),
+        r2: z.number().positive().max(1000).meta({ title: 'Outer radius r2', unit: 'Å, perp. space', examples: [2] }),
       })
       .refine((w) => w.r2 > w.r1, { message: 'must be greater than the inner radius r1', path: ['r2'] })
       .meta({ title: 'Spherical shell' }),
@@ -70,7 +70,7 @@ export const siteClassSchema = z
       .record(z.string(), z.number().min(0).max(1).meta({ title: 'Fraction' }))
       .meta({ title: 'Mixed occupancy', description: 'Element → fraction; the fractions sum to at most 1.', examples: [{ Al: 0.7, Pd: 0.3 }] })
       .optional(),
-    occupancy: z.number().min(0).max(1).meta({ title: 'Occupancy', unit: '0–1', description: 'Fraction of the sites that hold an atom.' }).optional(),
+    occupancy: z.number().min(0).max(1).meta({ title: 'Occupancy', description: 'Fraction of the sites that hold an atom, 0–1.' }).optional(),
   })
   .superRefine((c, ctx) => {
     if (c.mix) {

@@ -10,7 +10,7 @@ const vec3 = z.tuple([finite, finite, finite]);
 /** Phason offset: a shift of the window in perpendicular space, Å, each component |x| ≤ 100. */
 const offset = vec3
   .refine((v) => v.every((x) => Math.abs(x) <= 100), { message: 'each component must be within ±100 Å' })
-  .meta({ title: 'Phason offset, perp. space', unit: 'Å', description: 'Shifts the occupation domain in perpendicular space.' })
+  .meta({ title: 'Phason offset', unit: 'Å, perp. space', description: 'Shifts the occupation domain in perpendicular space.' })
   .default([0, 0, 0]);
 
 const common = {

@@ -76,7 +76,8 @@ export function planarSchema<F extends string>(spec: PlanarFamilySpec<F>) {
           ctx.addIssue({ code: 'custom', path: ['approximant'], message: `${p}/${q} is not a convergent of ${spec.irrationalName}; use one of ${eg}, …` });
         }
       }
-    });
+    })
+    .meta({ examples: [{ family: spec.family, radius: 10, edge: 1 }] });
 }
 
 export type PlanarParams = z.infer<ReturnType<typeof planarSchema<string>>>;
