@@ -15,7 +15,7 @@ function newItem(element: FieldInfo, items: unknown[], word: string): unknown {
 
 export function ArrayField(props: ContainerProps) {
   const { errId, err, title, help } = useFieldText(props);
-  const { Field, info, value, path, errors, name, onChange } = props;
+  const { Field, info, value, path, errors, name, bare, onChange } = props;
   if (info.shape.kind !== 'array') return null;
   const { element, max } = info.shape;
   const arr = Array.isArray(value) ? value : [];
@@ -26,7 +26,9 @@ export function ArrayField(props: ContainerProps) {
     <div className="space-y-2">
       <div className="flex items-center justify-between">
         <span className="text-xs font-semibold text-ink">
-          {title} <span className="font-normal text-ink-soft">({arr.length})</span>
+          {/* Under its own on/off switch the list is already named. */}
+          {bare ? null : `${title} `}
+          <span className="font-normal text-ink-soft">({arr.length})</span>
         </span>
         <button
           type="button"

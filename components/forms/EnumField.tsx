@@ -1,10 +1,11 @@
 'use client';
 /** One of a fixed list of values, each shown in the words the schema gives it. */
-import { FieldLabel, Note, inputCls, useFieldText, type FieldProps } from './field-parts';
+import { FieldLabel, Note, inputCls, shownValue, useFieldText, type FieldProps } from './field-parts';
 
 export function EnumField(props: FieldProps) {
   const { id, errId, err, title, unit, help } = useFieldText(props);
-  const { info, value, onChange } = props;
+  const { info, onChange } = props;
+  const value = shownValue(props);
   const options = info.shape.kind === 'enum' ? info.shape.options : [];
   return (
     <div>

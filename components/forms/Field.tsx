@@ -9,6 +9,7 @@ import { BooleanField } from './BooleanField';
 import { ChoiceField } from './ChoiceField';
 import { EnumField } from './EnumField';
 import { FieldLabel, useFieldText } from './field-parts';
+import { NamePicker } from './NamePicker';
 import { NumberField } from './NumberField';
 import { ObjectField } from './ObjectField';
 import { OptionalGroup } from './OptionalGroup';
@@ -28,7 +29,7 @@ export function Field(props: FieldProps) {
     case 'number':
       return <NumberField {...props} />;
     case 'string':
-      return <TextField {...props} />;
+      return props.info.namesOf ? <NamePicker {...props} /> : <TextField {...props} />;
     case 'boolean':
       return <BooleanField {...props} />;
     case 'enum':

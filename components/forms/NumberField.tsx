@@ -1,6 +1,6 @@
 'use client';
 /** A number with its label, unit, help line and message. */
-import { FieldLabel, Note, useFieldText, type FieldProps } from './field-parts';
+import { FieldLabel, Note, shownValue, useFieldText, type FieldProps } from './field-parts';
 import { NumberBox } from './NumberBox';
 
 export function NumberField(props: FieldProps) {
@@ -9,7 +9,7 @@ export function NumberField(props: FieldProps) {
   return (
     <div>
       <FieldLabel htmlFor={id} title={title} unit={unit} />
-      <NumberBox id={id} value={props.value} onChange={props.onChange} integer={integer} invalid={!!err} describedBy={err ? errId : undefined} optional={props.info.optional} />
+      <NumberBox id={id} value={shownValue(props)} onChange={props.onChange} integer={integer} invalid={!!err} describedBy={err ? errId : undefined} optional={props.info.optional} />
       <Note errId={errId} err={err} help={help} />
     </div>
   );

@@ -4,7 +4,8 @@
  * default are not required), never through zod's internals. The words come from the schemas' own
  * `.meta()` (lib/models/<family>/schema.ts): `title` (the label), `unit`, `description` (the help line),
  * `examples` (the value a new or switched-on field starts from when it has no default) and `optionLabels`
- * (how a choice's values read). A field added to a schema shows up here without a code change.
+ * (how a choice's values read), `namesOf` (the value names an entry of the enclosing list with that key, so
+ * the form offers those names). A field added to a schema shows up here without a code change.
  */
 import { z } from 'zod';
 
@@ -38,6 +39,8 @@ export interface FieldInfo {
   help?: string;
   /** Value → words for enum choices. */
   optionLabels?: Record<string, string>;
+  /** The key of an enclosing list whose entries' names this text must be one of. */
+  namesOf?: string;
 }
 
 // Schemas are module constants, so each is converted once.
@@ -123,6 +126,7 @@ export function describeJson(node: Json, notRequired: boolean): FieldInfo {
     unit: text(node.unit),
     help: text(node.description),
     optionLabels: isJson(labels) ? (Object.fromEntries(Object.entries(labels).filter(([, v]) => typeof v === 'string')) as Record<string, string>) : undefined,
+    namesOf: text(node.namesOf),
   };
 }
 

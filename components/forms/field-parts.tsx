@@ -72,6 +72,11 @@ export function Hint({ text }: { text?: string }) {
   return text ? <p className="mt-0.5 text-xs text-ink-soft">{text}</p> : null;
 }
 
+/** What a control shows: the value, or the schema's default while the value is left out (the schema fills it in). */
+export function shownValue({ value, info }: Pick<FieldProps, 'value' | 'info'>): unknown {
+  return value === undefined ? info.fallback : value;
+}
+
 /** The message when there is one, else the help line. */
 export function Note({ errId, err, help }: { errId: string; err?: string; help?: string }) {
   return err ? <ErrorText id={errId} message={err} /> : <Hint text={help} />;

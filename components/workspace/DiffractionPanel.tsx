@@ -135,14 +135,14 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
                 Zone axis (5, 3, 2 or u,v,w)
               </label>
               <input id="zone-axis" className={`${input} w-28 font-mono`} value={axis} onChange={(e) => setAxis(e.target.value)} aria-invalid={zoneErr.has('axis')} />
-              {zoneErr.get('axis') ? <p className="text-xs text-clay">{zoneErr.get('axis')}</p> : null}
+              {zoneErr.get('axis') ? <p className="max-w-56 text-xs text-clay">{zoneErr.get('axis')}</p> : null}
             </div>
             <div>
               <label htmlFor="zone-qmax" className="block text-xs text-ink-soft">
                 |Q| up to (Å⁻¹)
               </label>
               <input id="zone-qmax" className={`${input} w-20 font-mono`} value={qmax} onChange={(e) => setQmax(e.target.value)} aria-invalid={zoneErr.has('qmax')} />
-              {zoneErr.get('qmax') ? <p className="text-xs text-clay">{zoneErr.get('qmax')}</p> : null}
+              {zoneErr.get('qmax') ? <p className="max-w-56 text-xs text-clay">{zoneErr.get('qmax')}</p> : null}
             </div>
             <div>
               <label htmlFor="zone-rad" className="block text-xs text-ink-soft">

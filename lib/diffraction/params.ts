@@ -48,7 +48,7 @@ export const powderParamsSchema = z
     /** Histogram bin (Å) for the Debye route (finite patches). */
     binWidth: z.number().positive().max(0.1).default(0.005),
   })
-  .refine((p) => p.twoThetaMax > p.twoThetaMin, { message: 'must be larger than the 2θ start (twoThetaMin)', path: ['twoThetaMax'] });
+  .refine((p) => p.twoThetaMax > p.twoThetaMin, { message: 'must be larger than the 2θ start', path: ['twoThetaMax'] });
 export type PowderParams = z.infer<typeof powderParamsSchema>;
 
 export const zoneParamsSchema = z.object({

@@ -98,6 +98,10 @@ describe('form fields from the JSON Schema', () => {
     expect(at(p, 'decoration.classes.0.window.radius')).toMatchObject({ title: 'Sphere radius', unit: 'Å, perp. space' });
     expect(at(p, 'decoration.classes.0.mix')).toMatchObject({ shape: { kind: 'record', value: { shape: { kind: 'number', min: 0, max: 1 } } }, optional: true });
 
+    // A cluster's site class is picked from the names of the decoration's classes.
+    expect(at({ ...p, decoration: { ...p.decoration, clusters: [{ at: 'a', preset: 'tsai' }] } }, 'decoration.clusters.0.at')).toMatchObject({ shape: { kind: 'string' }, namesOf: 'classes' });
+    expect(at({ ...p, decoration: { ...p.decoration, clusters: [{ at: 'a', preset: 'tsai' }] } }, 'decoration.clusters.0.preset').optionLabels?.tsai).toMatch(/YbCd/);
+
     expect(at(icoPatch, 'radius')).toMatchObject({ shape: { kind: 'number', max: 10_000 }, optional: false, title: 'Patch radius', unit: 'Å' });
     expect(at(icoPatch, 'centre')).toMatchObject({ shape: { kind: 'tuple' }, unit: 'Å' });
   });

@@ -38,7 +38,7 @@ export const windowSpecSchema = z
         kind: z.literal('hypercube').meta({ title: 'Shape' }),
         scale: z.number().positive().max(10).meta({ title: 'Window scaling', unit: '× triacontahedron' }).default(1),
       })
-      .meta({ title: 'Triacontahedron (projected 6D cube)' }),
+      .meta({ title: 'Triacontahedron' }),
     z
       .object({
         kind: z.literal('sphere').meta({ title: 'Shape' }),
@@ -100,15 +100,20 @@ export const CLUSTER_PRESET_NAMES = ['mackay', 'bergman', 'tsai'] as const;
 
 /** The presets by the compound each is modelled on (clusters.ts gives the shells and their sources). */
 const PRESET_WORDS: Record<(typeof CLUSTER_PRESET_NAMES)[number], string> = {
-  mackay: 'Mackay — as in α-(Al,Mn)Si',
-  bergman: 'Bergman — as in Mg₃₂(Al,Zn)₄₉',
-  tsai: 'Tsai — as in YbCd₅.₇',
+  mackay: 'Mackay (α-AlMnSi)',
+  bergman: 'Bergman (Mg₃₂(Al,Zn)₄₉)',
+  tsai: 'Tsai (YbCd₅.₇)',
 };
 
 /** Clusters centred on every point of one site class: a published preset or shells of one's own. */
 export const clusterPlacementSchema = z
   .object({
-    at: z.string().min(1).max(60).meta({ title: 'On site class', description: 'The name of a site class; a cluster is centred on each of its points.', examples: ['vertex'] }),
+    at: z
+      .string()
+      .min(1)
+      .max(60)
+      // namesOf: the value is the name of an entry of the decoration's `classes` list (checked below).
+      .meta({ title: 'On site class', description: 'A cluster is centred on each point of this site class.', examples: ['vertex'], namesOf: 'classes' }),
     preset: z
       .enum(CLUSTER_PRESET_NAMES, { message: `must be one of ${CLUSTER_PRESET_NAMES.join(', ')}` })
       .meta({ title: 'Cluster preset', optionLabels: PRESET_WORDS })
