@@ -4,40 +4,53 @@
  * from that schema and the expected number of points before anything is generated.
  */
 import { useMemo } from 'react';
-import { Field, FieldFamily } from './SchemaFields';
-import { introspect, issuesByPath } from './introspect';
+import { Field } from './Field';
+import { describeSchema, fieldAt, type FieldInfo } from './describe';
+import { fieldName, formMessages } from './messages';
 import { FAMILIES, FAMILY_NAMES, FRAME_KEYS, ICO_MODES, icoMode, schemaFor, starterParams, validate, withIcoMode, type Params } from './families';
 
 export interface ModelPanelProps {
   params: Params;
   onChange: (p: Params) => void;
-  /** Messages from the engine that name a field (e.g. "order: …"), keyed by field path. */
+  /** Messages from the engine that name a field (e.g. "order: …"), keyed by field path, without the path. */
   engineErrors?: Map<string, string>;
 }
 
+function describedFor(params: Params): FieldInfo | null {
+  const schema = schemaFor(params);
+  return schema ? describeSchema(schema) : null;
+}
+
+/**
+ * The schema's verdict on the params: the error (one issue per field, so its length is the number of messages
+ * the panel shows), the messages by field path, and whether the params may be generated.
+ */
 export function useValidation(params: Params) {
   return useMemo(() => {
     const error = validate(params);
-    return { error, byPath: issuesByPath(error), ok: !error && schemaFor(params) !== null };
+    return { error, byPath: formMessages(error, describedFor(params), params), ok: !error && schemaFor(params) !== null };
   }, [params]);
 }
 
 const selectCls = 'w-full rounded-md border border-rule bg-card px-2 py-1 text-sm';
 
 export function ModelPanel({ params, onChange, engineErrors }: ModelPanelProps) {
-  const schema = schemaFor(params);
-  const info = useMemo(() => (schema ? introspect(schema) : null), [schema]);
+  const info = useMemo(() => describedFor(params), [params]);
   const { byPath } = useValidation(params);
   const errors = useMemo(() => {
     if (!engineErrors?.size) return byPath;
     const m = new Map(byPath);
-    for (const [k, v] of engineErrors) if (!m.has(k)) m.set(k, v);
+    for (const [k, v] of engineErrors) {
+      const name = info && k ? fieldName(info, k, params) : '';
+      if (!m.has(k)) m.set(k, name ? `${name}: ${v}` : v);
+    }
     return m;
-  }, [byPath, engineErrors]);
+  }, [byPath, engineErrors, info, params]);
   // A periodic approximant (planar and decagonal families) has no patch radius; do not offer a field it ignores.
   const periodic = typeof params.approximant === 'object' && params.approximant !== null;
   const skip = useMemo(() => (periodic ? new Set([...FRAME_KEYS, 'radius']) : FRAME_KEYS), [periodic]);
-  const extra = [...errors.entries()].filter(([k]) => k === '' || k === 'family' || (info?.shape.kind === 'object' && !info.shape.fields.some((f) => k === f.key || k.startsWith(`${f.key}.`))));
+  // Messages no control shows (about the whole model, or a field not drawn) are listed under the form.
+  const extra = [...errors.entries()].filter(([k]) => k === '' || skip.has(k.split('.')[0]) || !info || !fieldAt(info, k, params));
 
   return (
     <div className="space-y-3">
@@ -70,15 +83,12 @@ export function ModelPanel({ params, onChange, engineErrors }: ModelPanelProps) 
         </fieldset>
       ) : null}
       {info ? (
-        <FieldFamily.Provider value={params.family}>
-          <Field name="" path={[]} info={info} value={params} errors={errors} skip={skip} onChange={(v) => onChange({ ...(v as Params), family: params.family, ...(params.mode ? { mode: params.mode } : {}) })} />
-        </FieldFamily.Provider>
+        <Field name="" path={[]} info={info} value={params} errors={errors} skip={skip} onChange={(v) => onChange({ ...(v as Params), family: params.family, ...(params.mode ? { mode: params.mode } : {}) })} />
       ) : (
         <p className="rounded-md border border-brass bg-brass-pale p-2 text-sm">The {params.family} engine has not arrived in this build yet; pick another family.</p>
       )}
       {extra.map(([k, v]) => (
         <p key={k} className="text-xs text-clay">
-          {k ? `${k}: ` : ''}
           {v}
         </p>
       ))}

@@ -2,7 +2,7 @@
 /** Zone-axis patterns and powder profiles of the current cut, with a measured pattern to compare against. */
 import { useMemo, useState } from 'react';
 import type { Structure } from '@/lib/structure/types';
-import { zoneParamsSchema } from '@/lib/diffraction/params';
+import { powderParamsSchema, zoneParamsSchema } from '@/lib/diffraction/params';
 import { parseWavelength } from '@/lib/diffraction/wavelengths';
 import { readMeasured, type MeasuredPattern } from '@/lib/formats/measured';
 import { comparePatterns } from '@/lib/diffraction/compare';
@@ -10,10 +10,24 @@ import { ZonePattern } from '@/components/plots/ZonePattern';
 import { PowderPlot } from '@/components/plots/PowderPlot';
 import { useJob } from './useJob';
 import { Progress } from './Progress';
-import { fieldMessages } from '@/lib/zod-text';
+import { plainError } from '@/lib/zod-text';
+import { describeSchema } from '@/components/forms/describe';
+import { firstPerField, formMessages } from '@/components/forms/messages';
 
 const input = 'rounded-md border border-rule bg-card px-2 py-1 text-sm aria-[invalid=true]:border-clay';
 const btn = 'rounded-md bg-tide px-3 py-1 text-sm font-medium text-white hover:bg-tide-deep disabled:opacity-50';
+
+// The settings' words, limits and defaults come from their schemas (lib/diffraction/params.ts).
+const ZONE_FORM = describeSchema(zoneParamsSchema);
+const POWDER_FORM = describeSchema(powderParamsSchema);
+const POWDER_DEFAULTS = powderParamsSchema.parse({});
+/** Widest constant peak the panel offers, degrees: the panel's own choice (the profile takes W = FWHM²). */
+const MAX_FWHM = 5;
+
+/** A typed number, or the text itself so the schema can say what is wrong with it. */
+function numberOrText(t: string): number | string {
+  return t.trim() !== '' && Number.isFinite(Number(t)) ? Number(t) : t;
+}
 
 export interface DatasetRef {
   id: string;
@@ -33,9 +47,9 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
   const [axis, setAxis] = useState('5');
   const [qmax, setQmax] = useState('3');
   const [radiation, setRadiation] = useState<'xray' | 'neutron' | 'electron'>('xray');
-  const [wl, setWl] = useState('CuKa1');
-  const [tt0, setTt0] = useState('10');
-  const [tt1, setTt1] = useState('90');
+  const [wl, setWl] = useState(String(POWDER_DEFAULTS.wavelength));
+  const [tt0, setTt0] = useState(String(POWDER_DEFAULTS.twoThetaMin));
+  const [tt1, setTt1] = useState(String(POWDER_DEFAULTS.twoThetaMax));
   const [fwhm, setFwhm] = useState('0.15');
   // What is laid over the simulation: a local file (kept as File so it can be stored) or a project dataset.
   const [measured, setMeasured] = useState<{ name: string; data: MeasuredPattern; file?: File; datasetId?: string } | null>(null);
@@ -44,8 +58,9 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
   const zone = useJob<'zone'>('diffraction');
   const powder = useJob<'powder'>('diffraction');
 
-  const zoneCheck = zoneParamsSchema.safeParse({ axis: axis.replace(/\s+/g, ''), qmax: Number(qmax) });
-  const zoneErr = new Map(zoneCheck.success ? [] : Object.entries(fieldMessages(zoneCheck.error)));
+  const zoneInput = { axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax) };
+  const zoneCheck = zoneParamsSchema.safeParse(zoneInput, { error: plainError });
+  const zoneErr = formMessages(firstPerField(zoneCheck.error), ZONE_FORM, zoneInput);
   let lambda: number | null = null;
   let wlErr: string | null = null;
   try {
@@ -53,8 +68,11 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
   } catch (e) {
     wlErr = (e as Error).message;
   }
-  const rangeErr = !(Number(tt0) >= 0 && Number(tt1) <= 180 && Number(tt1) > Number(tt0)) ? '2θ range: need 0 ≤ start < end ≤ 180 degrees' : null;
-  const fwhmErr = !(Number(fwhm) > 0 && Number(fwhm) <= 5) ? 'peak width: must be between 0 and 5 degrees' : null;
+  const powderInput = { wavelength: lambda ?? wl, radiation, twoThetaMin: numberOrText(tt0), twoThetaMax: numberOrText(tt1) };
+  const powderCheck = powderParamsSchema.safeParse(powderInput, { error: plainError });
+  const powderErr = formMessages(firstPerField(powderCheck.error), POWDER_FORM, powderInput);
+  const rangeErr = [powderErr.get('twoThetaMin'), powderErr.get('twoThetaMax')].filter((m): m is string => !!m);
+  const fwhmErr = !(Number(fwhm) > 0 && Number(fwhm) <= MAX_FWHM) ? `Peak width: must be more than 0° and at most ${MAX_FWHM}°` : null;
 
   // A comparison that cannot be made says why (e.g. the measured range lies outside the simulated one).
   const { comparison, compareErr } = useMemo(() => {
@@ -117,14 +135,14 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
                 Zone axis (5, 3, 2 or u,v,w)
               </label>
               <input id="zone-axis" className={`${input} w-28 font-mono`} value={axis} onChange={(e) => setAxis(e.target.value)} aria-invalid={zoneErr.has('axis')} />
-              {zoneErr.get('axis') ? <p className="text-xs text-clay">{zoneErr.get('axis')}</p> : null}
+              {zoneErr.get('axis') ? <p className="max-w-56 text-xs text-clay">{zoneErr.get('axis')}</p> : null}
             </div>
             <div>
               <label htmlFor="zone-qmax" className="block text-xs text-ink-soft">
                 |Q| up to (Å⁻¹)
               </label>
               <input id="zone-qmax" className={`${input} w-20 font-mono`} value={qmax} onChange={(e) => setQmax(e.target.value)} aria-invalid={zoneErr.has('qmax')} />
-              {zoneErr.get('qmax') ? <p className="text-xs text-clay">{zoneErr.get('qmax')}</p> : null}
+              {zoneErr.get('qmax') ? <p className="max-w-56 text-xs text-clay">{zoneErr.get('qmax')}</p> : null}
             </div>
             <div>
               <label htmlFor="zone-rad" className="block text-xs text-ink-soft">
@@ -152,8 +170,9 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
             className="flex flex-wrap items-end gap-3"
             onSubmit={(e) => {
               e.preventDefault();
-              if (lambda === null || rangeErr || fwhmErr) return;
-              void powder.start({ kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: Number(tt0), twoThetaMax: Number(tt1), step: 0.02, fwhm: Number(fwhm) });
+              if (lambda === null || !powderCheck.success || fwhmErr) return;
+              const p = powderCheck.data;
+              void powder.start({ kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm) });
             }}
           >
             <div>
@@ -165,9 +184,13 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
             </div>
             <div>
               <span className="block text-xs text-ink-soft">2θ from – to (°)</span>
-              <input aria-label="2θ start in degrees" className={`${input} w-16 font-mono`} value={tt0} onChange={(e) => setTt0(e.target.value)} aria-invalid={!!rangeErr} />
-              <input aria-label="2θ end in degrees" className={`${input} ml-1 w-16 font-mono`} value={tt1} onChange={(e) => setTt1(e.target.value)} aria-invalid={!!rangeErr} />
-              {rangeErr ? <p className="text-xs text-clay">{rangeErr}</p> : null}
+              <input aria-label="2θ start in degrees" className={`${input} w-16 font-mono`} value={tt0} onChange={(e) => setTt0(e.target.value)} aria-invalid={powderErr.has('twoThetaMin')} />
+              <input aria-label="2θ end in degrees" className={`${input} ml-1 w-16 font-mono`} value={tt1} onChange={(e) => setTt1(e.target.value)} aria-invalid={powderErr.has('twoThetaMax')} />
+              {rangeErr.map((m) => (
+                <p key={m} className="max-w-56 text-xs text-clay">
+                  {m}
+                </p>
+              ))}
             </div>
             <div>
               <label htmlFor="pw-fwhm" className="block text-xs text-ink-soft">
@@ -186,7 +209,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
                 <option value="electron">Electron</option>
               </select>
             </div>
-            <button type="submit" className={btn} disabled={lambda === null || !!rangeErr || !!fwhmErr || powder.running}>
+            <button type="submit" className={btn} disabled={lambda === null || !powderCheck.success || !!fwhmErr || powder.running}>
               Compute powder pattern
             </button>
           </form>

@@ -11,12 +11,17 @@ export const radiationSchema = z.enum(['xray', 'neutron', 'electron'], {
 /** A line name (CuKa1, MoKa, …), "<n>kV" for electrons, or a number in Å. */
 export const wavelengthSchema = z.union([z.number().positive('wavelength must be positive (Å)'), z.string().min(1)]);
 
+/** The 2θ every powder calculation accepts, degrees: 0 is the direct beam, 180 straight back. */
+export const TWO_THETA_LIMITS = { min: 0, max: 180 } as const;
+/** Default profile step, degrees: fine enough for peaks of ~0.1° width, and the largest step allowed. */
+export const POWDER_STEP = { default: 0.02, max: 5 } as const;
+
 export const profileSchema = z.object({
   U: z.number().default(0.01),
   V: z.number().default(-0.005),
   W: z.number().default(0.005),
   eta: z.number().min(0, 'eta must be between 0 and 1').max(1, 'eta must be between 0 and 1').default(0.5),
-  step: z.number().positive('step must be positive (degrees)').max(5).default(0.02),
+  step: z.number().positive('step must be positive (degrees)').max(POWDER_STEP.max).meta({ title: 'Step', unit: '°' }).default(POWDER_STEP.default),
   background: z.array(z.number()).max(8, 'at most 8 background coefficients').default([]),
 });
 
@@ -24,8 +29,18 @@ export const powderParamsSchema = z
   .object({
     wavelength: wavelengthSchema.default('CuKa1'),
     radiation: radiationSchema.default('xray'),
-    twoThetaMin: z.number().min(0, 'twoThetaMin must be ≥ 0').max(180).default(10),
-    twoThetaMax: z.number().min(0).max(180, 'twoThetaMax must be ≤ 180').default(120),
+    twoThetaMin: z
+      .number()
+      .min(TWO_THETA_LIMITS.min, `must be at least ${TWO_THETA_LIMITS.min}°`)
+      .max(TWO_THETA_LIMITS.max, `must be at most ${TWO_THETA_LIMITS.max}°`)
+      .meta({ title: '2θ start', unit: '°' })
+      .default(10),
+    twoThetaMax: z
+      .number()
+      .min(TWO_THETA_LIMITS.min, `must be at least ${TWO_THETA_LIMITS.min}°`)
+      .max(TWO_THETA_LIMITS.max, `must be at most ${TWO_THETA_LIMITS.max}°`)
+      .meta({ title: '2θ end', unit: '°' })
+      .default(120),
     monochromator2Theta: z.number().min(0).max(180).optional(),
     /** Add the Kα2 line (same element) to the profile with intensity ratio 0.5. */
     kalpha2: z.boolean().default(false),
@@ -33,13 +48,16 @@ export const powderParamsSchema = z
     /** Histogram bin (Å) for the Debye route (finite patches). */
     binWidth: z.number().positive().max(0.1).default(0.005),
   })
-  .refine((p) => p.twoThetaMax > p.twoThetaMin, { message: 'twoThetaMax must exceed twoThetaMin', path: ['twoThetaMax'] });
+  .refine((p) => p.twoThetaMax > p.twoThetaMin, { message: 'must be larger than the 2θ start', path: ['twoThetaMax'] });
 export type PowderParams = z.infer<typeof powderParamsSchema>;
 
 export const zoneParamsSchema = z.object({
   /** "5", "3", "2" (icosahedral axes of lib/models/icosahedral/hyperlattice.ts) or "u,v,w". */
-  axis: z.string().regex(/^(5|3|2|-?\d+,-?\d+,-?\d+)$/, 'axis must be 5, 3, 2 or u,v,w'),
-  qmax: z.number().positive('qmax must be positive (Å⁻¹)').max(50),
+  axis: z
+    .string()
+    .regex(/^(5|3|2|-?\d+,-?\d+,-?\d+)$/, 'must be 5, 3 or 2 (an icosahedral axis) or three integers u,v,w')
+    .meta({ title: 'Zone axis' }),
+  qmax: z.number().positive('must be positive').max(50, 'must be at most 50 Å⁻¹').meta({ title: '|Q| up to', unit: 'Å⁻¹' }),
   radiation: radiationSchema.default('xray'),
   /** Half-thickness of the included reciprocal slab in Å⁻¹ (patches) / highest Laue zone |n| (crystals). */
   laueZones: z.number().int().min(0).max(10).default(0),

@@ -12,13 +12,14 @@ export const maxPointsSchema = z
   .number()
   .int('must be an integer')
   .min(1, 'must be at least 1')
-  .max(MAX_POINTS_LIMIT, `must be at most ${MAX_POINTS_LIMIT}`)
+  .max(MAX_POINTS_LIMIT, `must be at most ${MAX_POINTS_LIMIT.toLocaleString('en-US')}`)
+  .meta({ title: 'Point cap', unit: 'points', description: 'The cut stops with a message before it would hold more points than this.' })
   .default(DEFAULT_MAX_POINTS);
 
 /** Fail before allocating when the estimated output is larger than the caller allows. */
 export function checkPointCap(estimated: number, maxPoints: number, what: string): void {
   if (estimated > maxPoints) {
     const n = (x: number) => Math.round(x).toLocaleString('en-US');
-    throw new RangeError(`maxPoints: ${what} would hold about ${n(estimated)} points, more than the cap of ${n(maxPoints)}; lower the size or raise maxPoints`);
+    throw new RangeError(`maxPoints: ${what} would hold about ${n(estimated)} points, more than the cap of ${n(maxPoints)}; lower the size or raise the point cap (maxPoints)`);
   }
 }

@@ -10,34 +10,57 @@ export const decagonalModelSchema = z
   .strictObject({
     family: z.literal('decagonal'),
     /** In-plane patch radius in Å (quasiperiodic model). */
-    radius: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1e5, 'must be at most 100000 Å').optional(),
+    radius: z
+      .number({ message: 'must be a number' })
+      .gt(0, 'must be positive')
+      .max(1e5, 'must be at most 100000 Å')
+      .meta({ title: 'Patch radius', unit: 'Å', description: 'In-plane radius of each layer’s Penrose patch.', examples: [8] })
+      .optional(),
     /** Periodic approximant: τ replaced by the convergent p/q in every layer. */
     approximant: z
       .strictObject({
-        p: z.number().int('must be an integer').min(1, 'must be at least 1'),
-        q: z.number().int('must be an integer').min(1, 'must be at least 1'),
+        p: z.number().int('must be an integer').min(1, 'must be at least 1').meta({ title: 'p' }),
+        q: z.number().int('must be an integer').min(1, 'must be at least 1').meta({ title: 'q' }),
+      })
+      .meta({
+        title: 'Periodic approximant',
+        description: `Order p/q of every layer, a convergent of τ: ${TAU_CONVERGENTS.slice(0, 5).map((c) => `${c.p}/${c.q}`).join(', ')} …`,
+        examples: [{ p: 2, q: 1 }],
       })
       .optional(),
     /** Rhombus edge in Å. Default 2.45 Å, a typical decagonal Al–Ni–Co value (from memory). */
-    edge: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1000, 'must be at most 1000 Å').default(2.45),
+    edge: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1000, 'must be at most 1000 Å').meta({ title: 'Edge length', unit: 'Å' }).default(2.45),
     /** Layers per period along c. Default 2 (the common two-layer stacking). */
-    layers: z.number({ message: 'must be a number' }).int('must be an integer').min(1, 'must be at least 1').max(1000, 'must be at most 1000').default(2),
+    layers: z
+      .number({ message: 'must be a number' })
+      .int('must be an integer')
+      .min(1, 'must be at least 1')
+      .max(1000, 'must be at most 1000')
+      .meta({ title: 'Layers per period', description: 'Penrose layers in one period along the tenfold axis.' })
+      .default(2),
     /** Layer spacing in Å. Default 2.04 Å (half of c ≈ 4.08 Å in d-Al–Ni–Co, from memory). */
-    spacing: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1000, 'must be at most 1000 Å').default(2.04),
+    spacing: z
+      .number({ message: 'must be a number' })
+      .gt(0, 'must be positive')
+      .max(1000, 'must be at most 1000 Å')
+      .meta({ title: 'Layer spacing', unit: 'Å', description: 'Distance between neighbouring layers along the tenfold axis.' })
+      .default(2.04),
     /** In-plane shift of each layer relative to the one below, in Å. */
     shift: z
       .tuple([
         z.number({ message: 'must be a number' }).min(-1000, 'must be at least -1000').max(1000, 'must be at most 1000'),
         z.number({ message: 'must be a number' }).min(-1000, 'must be at least -1000').max(1000, 'must be at most 1000'),
       ])
+      .meta({ title: 'Layer shift', unit: 'Å', description: 'How far each layer sits sideways (x, y) from the one below.' })
       .default([0, 0]),
     /** Pentagrid offsets γ_j of the layer tiling (5 entries, default 0). */
     gamma: z
       .array(z.number({ message: 'must be a number' }).min(-100, 'must be at least -100').max(100, 'must be at most 100'))
       .length(5, 'must have 5 entries')
+      .meta({ title: 'Grid offsets γ', description: '5 numbers, one per grid direction; Σγ = 0 gives the tiling proper.', examples: [[0, 0, 0, 0, 0]] })
       .optional(),
     /** Element for every vertex (default: unassigned, written X). */
-    species: elementSymbolSchema.optional(),
+    species: elementSymbolSchema.meta({ title: 'Species', description: 'Element on every vertex; empty leaves them unassigned (written X).' }).optional(),
     maxPoints: maxPointsSchema,
   })
   .superRefine((v, ctx) => {

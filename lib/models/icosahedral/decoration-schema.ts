@@ -12,27 +12,65 @@ import { POLYHEDRON_NAMES, type PolyhedronName } from './polyhedra';
 /** Named positions in the hyperlattice cell: node 0, body centre ½(1,…,1), edge centres ½e_i. */
 export const SITE_POSITIONS = ['node', 'body', 'edge1', 'edge2', 'edge3', 'edge4', 'edge5', 'edge6'] as const;
 
-const fraction6 = z.tuple([z.number(), z.number(), z.number(), z.number(), z.number(), z.number()]).refine((v) => v.every((x) => Number.isFinite(x) && x >= 0 && x < 1), {
-  message: 'each of the six fractional coordinates must be in [0, 1)',
-});
+/** How a form names the positions (the ids stay short for files and the command line). */
+const POSITION_WORDS: Record<(typeof SITE_POSITIONS)[number], string> = {
+  node: 'node — lattice point 0',
+  body: 'body centre ½(1,…,1)',
+  edge1: 'edge centre ½e₁',
+  edge2: 'edge centre ½e₂',
+  edge3: 'edge centre ½e₃',
+  edge4: 'edge centre ½e₄',
+  edge5: 'edge centre ½e₅',
+  edge6: 'edge centre ½e₆',
+};
 
-export const windowSpecSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('hypercube'), scale: z.number().positive().max(10).default(1) }),
-  z.object({ kind: z.literal('sphere'), radius: z.number().positive().max(1000) }),
-  z
-    .object({ kind: z.literal('shell'), r1: z.number().min(0).max(1000), r2: z.number().positive().max(1000) })
-    .refine((w) => w.r2 > w.r1, { message: 'r2 must be greater than r1', path: ['r2'] }),
-]);
+const fraction6 = z
+  .tuple([z.number(), z.number(), z.number(), z.number(), z.number(), z.number()])
+  .refine((v) => v.every((x) => Number.isFinite(x) && x >= 0 && x < 1), {
+    message: 'each of the six fractional coordinates must be in [0, 1)',
+  })
+  .meta({ title: 'Six fractional coordinates', examples: [[0.5, 0, 0, 0, 0, 0]] });
+
+export const windowSpecSchema = z
+  .discriminatedUnion('kind', [
+    z
+      .object({
+        kind: z.literal('hypercube').meta({ title: 'Shape' }),
+        scale: z.number().positive().max(10).meta({ title: 'Window scaling', unit: '× triacontahedron' }).default(1),
+      })
+      .meta({ title: 'Triacontahedron' }),
+    z
+      .object({
+        kind: z.literal('sphere').meta({ title: 'Shape' }),
+        radius: z.number().positive().max(1000).meta({ title: 'Sphere radius', unit: 'Å, perp. space', examples: [2] }),
+      })
+      .meta({ title: 'Sphere' }),
+    z
+      .object({
+        kind: z.literal('shell').meta({ title: 'Shape' }),
+        r1: z.number().min(0).max(1000).meta({ title: 'Inner radius r1', unit: 'Å, perp. space', examples: [1] }),
+        r2: z.number().positive().max(1000).meta({ title: 'Outer radius r2', unit: 'Å, perp. space', examples: [2] }),
+      })
+      .refine((w) => w.r2 > w.r1, { message: 'must be greater than the inner radius r1', path: ['r2'] })
+      .meta({ title: 'Spherical shell' }),
+  ])
+  .meta({ title: 'Occupation domain', description: 'The window in perpendicular space that selects this class’s points.' });
 
 export const siteClassSchema = z
   .object({
-    name: z.string().min(1).max(60),
-    position: z.union([z.enum(SITE_POSITIONS), fraction6]).default('node'),
+    name: z.string().min(1).max(60).meta({ title: 'Name', description: 'Clusters are placed on a class by this name.' }),
+    position: z
+      .union([z.enum(SITE_POSITIONS).meta({ optionLabels: POSITION_WORDS }), fraction6])
+      .meta({ title: 'Position in the 6D cell', description: 'A named site or six fractional coordinates in [0, 1).' })
+      .default('node'),
     window: windowSpecSchema.default({ kind: 'hypercube', scale: 1 }),
-    species: elementSymbolSchema.optional(),
+    species: elementSymbolSchema.meta({ title: 'Species', description: 'Element on this class’s sites, e.g. Al.' }).optional(),
     /** Mixed occupancy: element symbol → fraction, fractions sum to ≤ 1. */
-    mix: z.record(z.string(), z.number().min(0).max(1)).optional(),
-    occupancy: z.number().min(0).max(1).optional(),
+    mix: z
+      .record(z.string(), z.number().min(0).max(1).meta({ title: 'Fraction' }))
+      .meta({ title: 'Mixed occupancy', description: 'Element → fraction; the fractions sum to at most 1.', examples: [{ Al: 0.7, Pd: 0.3 }] })
+      .optional(),
+    occupancy: z.number().min(0).max(1).meta({ title: 'Occupancy', description: 'Fraction of the sites that hold an atom, 0–1.' }).optional(),
   })
   .superRefine((c, ctx) => {
     if (c.mix) {
@@ -43,39 +81,70 @@ export const siteClassSchema = z
       if (Object.keys(c.mix).length === 0) ctx.addIssue({ code: 'custom', message: 'needs at least one element', path: ['mix'] });
     }
     if (c.species && c.mix) ctx.addIssue({ code: 'custom', message: 'give either species or mix, not both', path: ['mix'] });
-  });
+  })
+  .meta({ title: 'Site class', examples: [{ name: 'vertex', position: 'node', window: { kind: 'hypercube', scale: 1 }, species: 'Al' }] });
 
 /** One shell of a cluster template: a polyhedron of a given circumradius (Å) carrying one element. */
-export const clusterShellSchema = z.object({
-  name: z.string().min(1).max(60).optional(),
-  polyhedron: z.enum(POLYHEDRON_NAMES as [PolyhedronName, ...PolyhedronName[]], { message: `must be one of ${POLYHEDRON_NAMES.join(', ')}` }),
-  radius: z.number().positive().max(50),
-  species: elementSymbolSchema,
-});
+export const clusterShellSchema = z
+  .object({
+    name: z.string().min(1).max(60).meta({ title: 'Name' }).optional(),
+    polyhedron: z
+      .enum(POLYHEDRON_NAMES as [PolyhedronName, ...PolyhedronName[]], { message: `must be one of ${POLYHEDRON_NAMES.join(', ')}` })
+      .meta({ title: 'Polyhedron' }),
+    radius: z.number().positive().max(50).meta({ title: 'Circumradius', unit: 'Å', examples: [2.5] }),
+    species: elementSymbolSchema.meta({ title: 'Species', examples: ['Al'] }),
+  })
+  .meta({ title: 'Shell' });
 
 export const CLUSTER_PRESET_NAMES = ['mackay', 'bergman', 'tsai'] as const;
+
+/** The presets by the compound each is modelled on (clusters.ts gives the shells and their sources). */
+const PRESET_WORDS: Record<(typeof CLUSTER_PRESET_NAMES)[number], string> = {
+  mackay: 'Mackay (α-AlMnSi)',
+  bergman: 'Bergman (Mg₃₂(Al,Zn)₄₉)',
+  tsai: 'Tsai (YbCd₅.₇)',
+};
 
 /** Clusters centred on every point of one site class: a published preset or shells of one's own. */
 export const clusterPlacementSchema = z
   .object({
-    at: z.string().min(1).max(60),
-    preset: z.enum(CLUSTER_PRESET_NAMES, { message: `must be one of ${CLUSTER_PRESET_NAMES.join(', ')}` }).optional(),
-    shells: z.array(clusterShellSchema).min(1).max(12).optional(),
+    at: z
+      .string()
+      .min(1)
+      .max(60)
+      // namesOf: the value is the name of an entry of the decoration's `classes` list (checked below).
+      .meta({ title: 'On site class', description: 'A cluster is centred on each point of this site class.', examples: ['vertex'], namesOf: 'classes' }),
+    preset: z
+      .enum(CLUSTER_PRESET_NAMES, { message: `must be one of ${CLUSTER_PRESET_NAMES.join(', ')}` })
+      .meta({ title: 'Cluster preset', optionLabels: PRESET_WORDS })
+      .optional(),
+    shells: z.array(clusterShellSchema).min(1).max(12).meta({ title: 'Shells of one’s own' }).optional(),
   })
-  .refine((c) => (c.preset === undefined) !== (c.shells === undefined), { message: 'give either preset or shells', path: ['preset'] });
+  .refine((c) => (c.preset === undefined) !== (c.shells === undefined), { message: 'give either a preset or shells of one’s own, not both', path: ['preset'] })
+  .meta({ title: 'Cluster', examples: [{ at: 'vertex', preset: 'mackay' }] });
 
 export const decorationSchema = z
   .object({
-    classes: z.array(siteClassSchema).min(1, { message: 'needs at least one site class' }).max(64),
-    clusters: z.array(clusterPlacementSchema).max(8).optional(),
+    classes: z.array(siteClassSchema).min(1, { message: 'needs at least one site class' }).max(64).meta({ title: 'Site classes' }),
+    clusters: z.array(clusterPlacementSchema).max(8).meta({ title: 'Clusters', examples: [[]] }).optional(),
     /** Atoms closer than this (Å) are merged after placing clusters, across periodic boundaries too; 0 = off. */
-    mergeTolerance: z.number().min(0).max(5).default(0),
+    mergeTolerance: z
+      .number()
+      .min(0)
+      .max(5)
+      .meta({ title: 'Merge tolerance', unit: 'Å', description: 'Atoms closer than this after placing clusters become one; 0 merges nothing.' })
+      .default(0),
   })
   .superRefine((d, ctx) => {
     const names = new Set(d.classes.map((c) => c.name));
     d.clusters?.forEach((c, i) => {
       if (!names.has(c.at)) ctx.addIssue({ code: 'custom', path: ['clusters', i, 'at'], message: `no site class is named "${c.at}"` });
     });
+  })
+  .meta({
+    title: 'Decoration',
+    description: 'Site classes with their occupation domains and species, and clusters placed on them.',
+    examples: [{ classes: [{ name: 'vertex', position: 'node', window: { kind: 'hypercube', scale: 1 }, species: 'Al' }] }],
   });
 
 export type WindowSpecParams = z.infer<typeof windowSpecSchema>;

@@ -8,15 +8,29 @@ const finite = z.number().refine(Number.isFinite, { message: 'must be a finite n
 const vec3 = z.tuple([finite, finite, finite]);
 
 /** Phason offset: a shift of the window in perpendicular space, Å, each component |x| ≤ 100. */
-const offset = vec3.refine((v) => v.every((x) => Math.abs(x) <= 100), { message: 'each component must be within ±100 Å' }).default([0, 0, 0]);
+const offset = vec3
+  .refine((v) => v.every((x) => Math.abs(x) <= 100), { message: 'each component must be within ±100 Å' })
+  .meta({ title: 'Phason offset', unit: 'Å, perp. space', description: 'Shifts the occupation domain in perpendicular space.' })
+  .default([0, 0, 0]);
 
 const common = {
   /** Quasilattice constant: edge of the rhombohedra, Å. */
-  aR: z.number().positive().max(50),
-  lattice: z.enum(['P', 'F', 'I'], { message: 'lattice must be P, F or I' }).default('P'),
+  aR: z
+    .number()
+    .positive()
+    .max(50)
+    .meta({ title: 'Rhombohedron edge a_R', unit: 'Å', description: 'Quasilattice constant; the edge of both rhombohedra.', examples: [4.6] }),
+  lattice: z
+    .enum(['P', 'F', 'I'], { message: 'must be P, F or I' })
+    .meta({
+      title: 'Hyperlattice type',
+      description: 'The 6D lattice the cut is taken from.',
+      optionLabels: { P: 'P — simple', F: 'F — face-centred', I: 'I — body-centred' },
+    })
+    .default('P'),
   offset,
   /** Element for the plain vertices (ignored when a decoration is given). */
-  species: elementSymbolSchema.optional(),
+  species: elementSymbolSchema.meta({ title: 'Species', description: 'Element on every vertex when there is no decoration, e.g. Al.' }).optional(),
   maxPoints: maxPointsSchema,
   decoration: decorationSchema.optional(),
 };
@@ -25,8 +39,8 @@ export const icosahedralPatchSchema = z.object({
   family: z.literal('icosahedral').default('icosahedral'),
   ...common,
   /** Ball radius, Å. */
-  radius: z.number().positive().max(10_000),
-  centre: vec3.default([0, 0, 0]),
+  radius: z.number().positive().max(10_000).meta({ title: 'Patch radius', unit: 'Å', description: 'Points within this distance of the centre.', examples: [15] }),
+  centre: vec3.meta({ title: 'Patch centre', unit: 'Å' }).default([0, 0, 0]),
 });
 
 /** True when p/q = F(n+1)/F(n) with F(1) = F(2) = 1 (OEIS A000045). */
@@ -47,11 +61,12 @@ export function parseOrder(order: string): { p: number; q: number } {
 
 export const approximantOrderSchema = z
   .string()
-  .regex(/^\d{1,6}\/\d{1,6}$/, { message: 'must look like P/Q, e.g. 3/2' })
+  .regex(/^\d{1,6}\/\d{1,6}$/, { message: 'must look like p/q, e.g. 3/2' })
   .refine((s) => {
     const { p, q } = parseOrder(s);
     return isFibonacciOrder(p, q);
-  }, { message: 'must be a ratio of consecutive Fibonacci numbers: 1/1, 2/1, 3/2, 5/3, 8/5, 13/8, 21/13, 34/21, …' });
+  }, { message: 'must be a ratio of consecutive Fibonacci numbers: 1/1, 2/1, 3/2, 5/3, 8/5, 13/8, 21/13, 34/21, …' })
+  .meta({ title: 'Order p/q', description: 'Consecutive Fibonacci numbers: 1/1, 2/1, 3/2, 5/3, 8/5 …', examples: ['2/1'] });
 
 export const icosahedralApproximantSchema = z.object({
   family: z.literal('icosahedral').default('icosahedral'),

@@ -31,22 +31,34 @@ export function planarConvergents(spec: PlanarFamilySpec<string>) {
 
 export function planarSchema<F extends string>(spec: PlanarFamilySpec<F>) {
   const list = planarConvergents(spec);
+  const first = list.slice(0, 5).map((c) => `${c.p}/${c.q}`).join(', ');
+  // The cell a form offers first: the smallest convergent that is more than one tile across.
+  const small = list.find((c) => c.p >= 2) ?? list[0];
   return z
     .strictObject({
       family: z.literal(spec.family),
       /** Patch radius in Å: tiles whose centre lies within it (quasiperiodic patches). */
-      radius: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1e5, 'must be at most 100000 Å').optional(),
+      radius: z
+        .number({ message: 'must be a number' })
+        .gt(0, 'must be positive')
+        .max(1e5, 'must be at most 100000 Å')
+        .meta({ title: 'Patch radius', unit: 'Å', description: 'Tiles whose centre lies within this distance of the origin.', examples: [10] })
+        .optional(),
       /** Rhombus edge length in Å. */
-      edge: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1000, 'must be at most 1000 Å').default(1),
+      edge: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1000, 'must be at most 1000 Å').meta({ title: 'Edge length', unit: 'Å' }).default(1),
       /** Periodic approximant: the irrational replaced by the convergent p/q. */
       approximant: z
         .strictObject({
-          p: z.number().int('must be an integer').min(1, 'must be at least 1'),
-          q: z.number().int('must be an integer').min(1, 'must be at least 1'),
+          p: z.number().int('must be an integer').min(1, 'must be at least 1').meta({ title: 'p' }),
+          q: z.number().int('must be an integer').min(1, 'must be at least 1').meta({ title: 'q' }),
         })
+        .meta({ title: 'Periodic approximant', description: `Order p/q, a convergent of ${spec.irrationalName}: ${first} …`, examples: [{ p: small.p, q: small.q }] })
         .optional(),
       /** Grid offsets γ_j (one per direction); Σγ = 0 gives the Penrose tiling proper. Default 0. */
-      gamma: z.array(z.number({ message: 'must be a number' }).min(-100, 'must be at least -100').max(100, 'must be at most 100')).optional(),
+      gamma: z
+        .array(z.number({ message: 'must be a number' }).min(-100, 'must be at least -100').max(100, 'must be at most 100'))
+        .meta({ title: 'Grid offsets γ', description: `${spec.directions} numbers, one per grid direction; Σγ = 0 gives the tiling proper.`, examples: [Array(spec.directions).fill(0)] })
+        .optional(),
       maxPoints: maxPointsSchema,
     })
     .superRefine((v, ctx) => {
@@ -64,7 +76,8 @@ export function planarSchema<F extends string>(spec: PlanarFamilySpec<F>) {
           ctx.addIssue({ code: 'custom', path: ['approximant'], message: `${p}/${q} is not a convergent of ${spec.irrationalName}; use one of ${eg}, …` });
         }
       }
-    });
+    })
+    .meta({ examples: [{ family: spec.family, radius: 10, edge: 1 }] });
 }
 
 export type PlanarParams = z.infer<ReturnType<typeof planarSchema<string>>>;

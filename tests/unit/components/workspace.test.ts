@@ -6,7 +6,8 @@
  * complete vertex (de Bruijn 1981); Elser–Henley a(p/q) = 2(pτ+q)a_R/√(2+τ).
  */
 import { describe, expect, it } from 'vitest';
-import { introspect, issuesByPath } from '../../../components/forms/introspect';
+import { describeSchema } from '../../../components/forms/describe';
+import { formMessages } from '../../../components/forms/messages';
 import { validate, starterParams } from '../../../components/forms/families';
 import { indexIcosahedralSpot, indexScale } from '../../../lib/worker/zone-index';
 import { qSquaredFromNM, csgFromHyper } from '../../../lib/diffraction/indexing';
@@ -18,16 +19,16 @@ import { icosahedralApproximantModelSchema } from '../../../lib/models/icosahedr
 
 describe('workspace form', () => {
   it('draws the icosahedral approximant fields from the shared schema', () => {
-    const info = introspect(icosahedralApproximantModelSchema);
+    const info = describeSchema(icosahedralApproximantModelSchema);
     expect(info.shape.kind).toBe('object');
     const keys = info.shape.kind === 'object' ? info.shape.fields.map((f) => f.key) : [];
     expect(keys).toEqual(expect.arrayContaining(['order', 'aR', 'lattice', 'offset', 'decoration']));
   });
-  it('puts the schema message beside the field that is wrong', () => {
+  it('puts the schema message beside the field that is wrong, named as the form labels it', () => {
     const p = { ...starterParams('icosahedral'), order: '3/1', aR: -1 };
-    const byPath = issuesByPath(validate(p));
-    expect(byPath.get('order')).toMatch(/consecutive Fibonacci/);
-    expect(byPath.has('aR')).toBe(true);
+    const byPath = formMessages(validate(p), describeSchema(icosahedralApproximantModelSchema), p);
+    expect(byPath.get('order')).toMatch(/^Order p\/q: .*consecutive Fibonacci/);
+    expect(byPath.get('aR')).toBe('Rhombohedron edge a_R: must be more than 0 Å');
     expect(validate(starterParams('icosahedral'))).toBeUndefined();
   });
 });
