@@ -72,7 +72,7 @@ describe('diffract command line', () => {
     expect(await fails(['diffract', 'powder', '--input', cuFile, '--background', '1,x'])).toMatch(/--background .*"x" is not a number/);
     expect(await fails(['diffract', 'powder', '--input', cuFile, '--radiation', 'gamma'])).toMatch(/--radiation .*xray, neutron, electron/);
     expect(await fails(['diffract', 'hyperspace', '--family', 'hex', '--aR', '1', '--qmax', '2'])).toMatch(/--family .*icosahedral, penrose, octagonal, fibonacci/);
-    expect(await fails(['diffract', 'zone', '--input', cuFile, '--axis', '7', '--qmax', '5'])).toMatch(/axis: must be 5, 3 or 2 (an icosahedral axis) or three integers u,v,w/);
+    expect(await fails(['diffract', 'zone', '--input', cuFile, '--axis', '7', '--qmax', '5'])).toMatch(/axis: must be 5, 3 or 2 \(an icosahedral axis\) or three integers u,v,w/);
     expect(await fails(['diffract', 'powder', '--input', join(dir, 'missing.cif')])).toMatch(/--input: cannot read/);
   });
 
