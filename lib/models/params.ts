@@ -5,7 +5,7 @@
  * (lib/models/index.ts) must hold a definition for every member; the type checker fails otherwise.
  */
 import { z } from 'zod';
-import { zodText } from '../zod-text';
+import { plainError, zodText } from '../zod-text';
 import { chainModelSchema } from './chain/schema';
 import { penroseModelSchema } from './penrose/schema';
 import { octagonalModelSchema } from './octagonal/schema';
@@ -26,7 +26,7 @@ export type ParamsOf<F extends Family> = Extract<ModelParams, { family: F }>;
 
 /** Parse Params or throw one readable error naming every bad field. */
 export function parseModelParams(input: unknown): ModelParams {
-  const r = modelParamsSchema.safeParse(input);
+  const r = modelParamsSchema.safeParse(input, { error: plainError });
   if (!r.success) throw new Error(zodText(r.error, 'params'));
   return r.data;
 }

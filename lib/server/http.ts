@@ -6,7 +6,7 @@ import { z } from 'zod';
 import { ApiError } from './errors';
 import { resolveActor } from './actor';
 import type { Actor } from './authz';
-import { fieldMessages } from '../zod-text';
+import { fieldMessages, plainError } from '../zod-text';
 
 export function json(body: unknown, status = 200, headers: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(body), {
@@ -34,7 +34,7 @@ export function fieldErrors(error: z.ZodError): Record<string, string> {
 }
 
 export function parseWith<T extends z.ZodType>(schema: T, value: unknown, what = 'request body'): z.infer<T> {
-  const r = schema.safeParse(value);
+  const r = schema.safeParse(value, { error: plainError });
   if (!r.success) throw new ApiError('validation_failed', `The ${what} is not valid.`, { fields: fieldErrors(r.error) });
   return r.data;
 }

@@ -6,6 +6,7 @@ import { readFileSync } from 'node:fs';
 import { InvalidArgumentError, Option, type Command } from 'commander';
 import type { ZodType } from 'zod';
 import { CliError, zodMessage } from './errors';
+import { plainError } from '../../lib/zod-text';
 import type { Structure } from '../../lib/structure/types';
 import { readStructure, type StructureFormat } from '../../lib/formats/read';
 import { writeStructure } from '../../lib/formats/write';
@@ -76,7 +77,7 @@ export function span(v: string): [number, number] {
 
 /** Validate with a zod schema; a failure is the user's to fix (exit 2). */
 export function parse<T>(schema: ZodType<T>, input: unknown): T {
-  const r = schema.safeParse(input);
+  const r = schema.safeParse(input, { error: plainError });
   if (!r.success) throw new CliError(zodMessage(r.error));
   return r.data;
 }
