@@ -16,6 +16,7 @@ import { DiffractionPanel, type DatasetRef } from './DiffractionPanel';
 import { Progress } from './Progress';
 import { ViewBoundary } from './ViewBoundary';
 import { useJob } from './useJob';
+import { engineMessage, overCapReason } from './cut-limits';
 import { FORMAT_NAMES, formatUnavailable, saveStructure, slug, type StructureFormat } from './downloads';
 import { SaveDialog, postRevision, type RevisionRef } from './SavePanel';
 import { forkProject as postFork } from '@/components/projects/fork';
@@ -53,6 +54,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
   const estimate = useJob<'estimate'>('estimate');
   const seriesJob = useJob<'series'>('series');
   const { ok, error: invalid } = useValidation(params);
+  const overCap = overCapReason(params, ok && estimate.result ? estimate.result.estimate : null);
   const dirty = stable(params) !== stable(saved);
   const structure = cut.result?.structure ?? null;
   const summary = cut.result?.summary ?? null;
@@ -240,13 +242,14 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
               </span>
             </div>
             {invalid ? <p className="text-xs text-clay">{invalid.issues.length === 1 ? '1 field needs attention' : `${invalid.issues.length} fields need attention`}</p> : <p className="text-xs text-transparent">.</p>}
+            {overCap ? <p className="text-xs text-clay" data-testid="over-cap">{overCap}</p> : null}
             <div className="mt-1 flex gap-2">
-              <button type="button" disabled={!ok || cut.running} onClick={() => generate()} className="flex-1 rounded-md bg-tide px-3 py-1.5 text-sm font-semibold text-white hover:bg-tide-deep disabled:opacity-50">
+              <button type="button" disabled={!ok || cut.running || !!overCap} title={overCap ?? undefined} onClick={() => generate()} className="flex-1 rounded-md bg-tide px-3 py-1.5 text-sm font-semibold text-white hover:bg-tide-deep disabled:opacity-50">
                 {structure && !stale ? 'Cut again' : 'Generate'}
               </button>
             </div>
             <Progress label="Cut" running={cut.running} stage={cut.stage} fraction={cut.fraction} startedAt={cut.startedAt} onCancel={cut.cancel} />
-            {cut.error && !cut.running ? <p className="text-xs text-clay" role="alert">{cut.error.message}</p> : null}
+            {cut.error && !cut.running ? <p className="text-xs text-clay" role="alert">{engineMessage(params, cut.error)}</p> : null}
           </div>
         </section>
 
