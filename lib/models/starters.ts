@@ -25,6 +25,14 @@ export const STARTERS: Starter[] = [
     params: { family: 'penrose', radius: 10, edge: 1 },
   },
   {
+    id: 'octagonal',
+    title: 'Octagonal approximant',
+    description: 'Squares and 45° rhombi cut from the 4D lattice: the periodic 12/5 approximant, a square cell of 239 vertices.',
+    // 12/5 is the third convergent of 1+√2 (2/1, 5/2, 12/5): a cell that cuts in milliseconds yet holds both
+    // tiles in about the quasicrystal's proportion (140 rhombi : 99 squares ≈ √2). Output pinned in golden.test.ts.
+    params: { family: 'octagonal', approximant: { p: 12, q: 5 }, edge: 1 },
+  },
+  {
     id: 'icosahedral',
     title: 'Icosahedral approximant',
     description: 'A cubic p/q approximant of the 6D icosahedral lattice, ready to decorate.',

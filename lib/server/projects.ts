@@ -7,7 +7,7 @@ import { ApiError, notFound } from './errors';
 import { access, canRead, permissions, type Actor, type ProjectRole, type Visibility } from './authz';
 import { audit } from './audit';
 import { iso, listQuery, type Page, contains } from './paging';
-import { revisionInfo, validateParams, type RevisionInfo } from './revisions';
+import { copyHistory, revisionInfo, validateParams, type RevisionInfo } from './revisions';
 
 const VISIBILITY = ['private', 'unlisted', 'public'] as const;
 
@@ -38,8 +38,9 @@ export const updateProjectSchema = z
   .refine((v) => Object.keys(v).length > 0, 'send at least one of name, description, tags, visibility');
 
 export const forkSchema = z.strictObject({
-  revision: z.number().int().positive().optional(),
-  name: z.string().trim().min(1).max(120).optional(),
+  /** The parent's revision to fork at (its id, as in the revision list); the head when left out. */
+  revision: z.number({ message: 'send the id of the revision to fork at' }).int('a revision id is a whole number').positive('a revision id is a whole number').optional(),
+  name: z.string({ message: 'the name is text' }).trim().min(1, 'enter a name').max(120, 'at most 120 characters').optional(),
 });
 
 export const projectListQuery = listQuery(['updated_at', 'created_at', 'name'] as const, 'updated_at').extend({
@@ -58,6 +59,8 @@ export interface ProjectSummary {
   headRevision: number | null;
   headNumber: number | null;
   forkedFrom: number | null;
+  /** For a fork: the revision it was made at. Its revisions 1…forkedAtNumber are the parent's, as they were. */
+  forkedAtNumber: number | null;
   createdAt: string;
   updatedAt: string;
 }
@@ -97,7 +100,7 @@ function summaryQuery(k: Knex | Knex.Transaction, actor: Actor | null) {
   const q = k('projects as p')
     .join('users as o', 'o.id', 'p.owner_id')
     .leftJoin('revisions as h', 'h.id', 'p.head_revision')
-    .select('p.id', 'p.name', 'p.description', 'p.tags', 'p.visibility', 'p.head_revision', 'p.forked_from_project', 'p.created_at', 'p.updated_at', 'o.name as owner_name', 'h.number as head_number');
+    .select('p.id', 'p.name', 'p.description', 'p.tags', 'p.visibility', 'p.head_revision', 'p.forked_from_project', 'p.forked_at_number', 'p.created_at', 'p.updated_at', 'o.name as owner_name', 'h.number as head_number');
   if (actor) {
     q.leftJoin('project_members as me', function () {
       this.on('me.project_id', '=', 'p.id').andOn('me.user_id', '=', k.raw('?', [actor.id]));
@@ -121,6 +124,7 @@ function summary(r: any): ProjectSummary {
     headRevision: r.head_revision ? Number(r.head_revision) : null,
     headNumber: r.head_number ? Number(r.head_number) : null,
     forkedFrom: r.forked_from_project ? Number(r.forked_from_project) : null,
+    forkedAtNumber: r.forked_at_number ? Number(r.forked_at_number) : null,
     createdAt: iso(r.created_at)!,
     updatedAt: iso(r.updated_at)!,
   };
@@ -261,13 +265,22 @@ export async function deleteProject(actor: Actor | null, id: number): Promise<vo
   });
 }
 
+/**
+ * A fork is a new private project of the actor's that carries the parent's history up to the chosen
+ * revision (the head by default): copies of revisions 1…n with their numbers, params, messages, authors
+ * and times, its head the copy of n. Its own saves go on from n + 1, so "revision 3" means the same model
+ * in parent and fork up to the fork point. The fork point is recorded twice: the parent's revision
+ * (forked_from_revision, a link while the parent lives) and n itself (forked_at_number, kept for good).
+ * Datasets and exports stay with the parent (exports regenerate byte for byte from the params).
+ */
 export async function forkProject(actor: Actor | null, id: number, input: z.infer<typeof forkSchema>): Promise<ProjectSummary> {
   const newId = await db().transaction(async (trx) => {
     await access(actor, id, 'fork', trx);
     const src = await trx('projects').where({ id }).first();
     const revId = input.revision ?? src.head_revision;
-    const rev = revId ? await trx('revisions').where({ id: revId, project_id: id }).first() : null;
+    const rev = revId ? await trx('revisions').where({ id: revId, project_id: id }).first('id', 'number') : null;
     if (!rev) throw new ApiError('not_found', 'No such revision in this project.');
+    const number = Number(rev.number);
     const [pid] = await trx('projects').insert({
       owner_id: actor!.id,
       name: input.name ?? `${src.name} (fork)`.slice(0, 120),
@@ -276,12 +289,13 @@ export async function forkProject(actor: Actor | null, id: number, input: z.infe
       visibility: 'private',
       forked_from_project: id,
       forked_from_revision: rev.id,
+      forked_at_number: number,
     });
     await trx('project_members').insert({ project_id: pid, user_id: actor!.id, role: 'owner' });
-    const params = typeof rev.params === 'string' ? rev.params : JSON.stringify(rev.params);
-    const [rid] = await trx('revisions').insert({ project_id: pid, number: 1, params, message: `Forked from “${src.name}” revision ${rev.number}`, author_id: actor!.id });
-    await trx('projects').where({ id: pid }).update({ head_revision: rid });
-    await audit({ actorId: actor!.id, action: 'project.fork', targetType: 'project', targetId: pid, details: { from: id, revision: Number(rev.id) } }, trx);
+    const copied = await copyHistory(trx, id, Number(pid), number);
+    const head = await trx('revisions').where({ project_id: pid, number }).first('id');
+    await trx('projects').where({ id: pid }).update({ head_revision: head.id });
+    await audit({ actorId: actor!.id, action: 'project.fork', targetType: 'project', targetId: pid, details: { from: id, revision: Number(rev.id), number, copied } }, trx);
     return Number(pid);
   });
   return getSummary(actor, newId);

@@ -4,6 +4,7 @@
  * nothing, so the client still holds its edits and can merge them onto the newer revision.
  */
 import { z } from 'zod';
+import type { Knex } from 'knex';
 import { modelParamsSchema } from '../models/params';
 import { db } from './db';
 import { ApiError } from './errors';
@@ -105,6 +106,21 @@ async function insertRevision(actor: Actor | null, projectId: number, params: un
   });
   const r = await revQuery().where('r.id', id).first();
   return revisionInfo(r);
+}
+
+/**
+ * Copies a project's revisions 1…upTo into another project as they are: same numbers, params (the
+ * stored JSON text, so every params hash is unchanged), messages, authors and times. Revisions are
+ * immutable and numbered without gaps, so this is the history of revision upTo. Used by a fork, inside
+ * its transaction, after the access check; answers how many revisions were copied.
+ */
+export async function copyHistory(trx: Knex.Transaction, fromProject: number, toProject: number, upTo: number): Promise<number> {
+  const [result] = await trx.raw(
+    'INSERT INTO revisions (project_id, number, params, message, author_id, created_at) ' +
+      'SELECT ?, number, params, message, author_id, created_at FROM revisions WHERE project_id = ? AND number <= ? ORDER BY number',
+    [toProject, fromProject, upTo],
+  );
+  return Number((result as { affectedRows: number }).affectedRows);
 }
 
 export async function saveRevision(actor: Actor | null, projectId: number, input: z.infer<typeof saveRevisionSchema>): Promise<RevisionInfo> {

@@ -1,7 +1,7 @@
 /**
  * Team work end to end, in Chromium against the production build with the demo seed:
  * sign up → confirm the address from the mail the site sent (read on the admin's mailbox page) →
- * create a project → save two revisions → a second user forks it → downloads an XYZ of the fork.
+ * create a project → save two revisions → a second user forks it (with its history) → downloads an XYZ of the fork.
  * The XYZ is checked against the Fibonacci numbers (OEIS A000045: F(11) = 89), not against our code.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -104,9 +104,13 @@ describe('accounts and sharing', () => {
     await student.locator('[data-testid=forked-from]').getByText('Chain for the phason study').waitFor();
     expect(await student.locator('[data-testid=forked-from]').textContent()).toMatch(/revision 3/);
 
+    // The fork carries the parent's history: its head is the parent's revision 3, by the parent's author.
+    const forkUrl = student.url();
+    await student.getByText(/Head: revision 3 “order 9” by /).waitFor();
+
     // 6. …and downloads the XYZ of the fork's head.
     await student.selectOption('select[aria-label="Export format"]', 'xyz');
-    const [download] = await Promise.all([student.waitForEvent('download'), student.click('button:has-text("Export revision 1")')]);
+    const [download] = await Promise.all([student.waitForEvent('download'), student.click('button:has-text("Export revision 3")')]);
     expect(download.suggestedFilename()).toMatch(/\.xyz$/);
     const text = readFileSync((await download.path())!, 'utf8');
     const lines = text.trimEnd().split('\n');
@@ -116,6 +120,9 @@ describe('accounts and sharing', () => {
     expect(lines[1]).toContain('"order":9');
     for (const l of lines.slice(2)) expect(l).toMatch(/^\S+\s+-?\d+\.\d+\s+-?\d+\.\d+\s+-?\d+\.\d+$/);
     await screenshot(student, 'accounts-fork');
+    await student.goto(`${forkUrl}/history`);
+    for (const m of ['order 8', 'order 9']) await student.getByText(m, { exact: true }).first().waitFor();
+    await screenshot(student, 'accounts-fork-history');
 
     // The original counts the fork in its lineage (forks start private, so it is not named).
     await me.goto(projectUrl);

@@ -169,7 +169,9 @@ describe('journey', () => {
     await student.waitForSelector('[data-testid=estimate]');
     await student.getByRole('button', { name: 'Fork' }).click();
     await student.waitForURL((u) => /\/projects\/\d+\/workspace$/.test(u.pathname) && !u.href.startsWith(projectUrl + '/'), { timeout: 30_000 });
-    await student.getByText(/Forked from “Journey 2\/1 \d+” revision 2/).waitFor();
+    // The fork carries the parent's history: its head is the parent's revision 2, message and all.
+    await student.getByRole('heading', { name: /^Journey 2\/1 \d+ \(fork\)$/ }).waitFor();
+    await student.getByText('Revision 2 — Compared with the measured pattern').waitFor();
     await screenshot(student, 'journey-forked');
   });
 

@@ -28,6 +28,30 @@ describe('landing page', () => {
     await page.close();
   });
 
+  it('has its own icon and a robots.txt, and no request of the page fails', async () => {
+    const page = await browser.newPage();
+    const failed: string[] = [];
+    page.on('response', (r) => {
+      if (r.status() >= 400) failed.push(`${r.status()} ${r.url()}`);
+    });
+    await page.goto(baseUrl + '/');
+    await page.waitForLoadState('networkidle');
+    expect(failed).toEqual([]);
+    // The <link rel=icon> Next.js writes for app/icon.svg, and the /favicon.ico browsers ask for by themselves.
+    const href = await page.locator('head link[rel=icon]').first().getAttribute('href');
+    const svg = await page.request.get(new URL(href!, baseUrl).href);
+    expect(svg.status()).toBe(200);
+    expect(svg.headers()['content-type']).toMatch(/^image\/svg\+xml/);
+    const ico = await page.request.get(baseUrl + '/favicon.ico');
+    expect(ico.status()).toBe(200);
+    // ICONDIR header (reserved 0, type 1 = icon), as the ICO format defines it.
+    expect([...(await ico.body()).subarray(0, 4)]).toEqual([0, 0, 1, 0]);
+    const robots = await page.request.get(baseUrl + '/robots.txt');
+    expect(robots.status()).toBe(200);
+    expect(await robots.text()).toMatch(/^User-agent: \*$[\s\S]*^Disallow: \/api\/$/m);
+    await page.close();
+  });
+
   it('answers an unknown page with our 404', async () => {
     const page = await browser.newPage();
     const res = await page.goto(baseUrl + '/no-such-page');

@@ -1,5 +1,5 @@
 /**
- * Revision conflicts, fork lineage, invitation expiry and reuse, uploads that must store nothing.
+ * Revision conflicts, fork lineage and history, invitation expiry and reuse, uploads that must store nothing.
  * Status codes per RFC 9110 §15 (409 Conflict, 413 Content Too Large, 415 Unsupported Media Type,
  * 422 Unprocessable Content).
  */
@@ -15,6 +15,7 @@ import { resetRateLimits } from '../../lib/server/ratelimit';
 import { call, FIB, makeInvitation, makeProject, makeUser, type TestUser } from './api-fixtures';
 import { jsonDiff } from '../../lib/server/json-diff';
 import { canonicalJson } from '../../lib/formats/canonical-json';
+import { createHash } from 'node:crypto';
 
 let owner: TestUser;
 let editor: TestUser;
@@ -94,7 +95,83 @@ describe('fork lineage', () => {
     expect(parentForOwner.hiddenForks).toBe(1);
     // A revision of another project cannot be forked through this one.
     const q = await makeProject(owner, [], 'public');
+    const forksBefore = await count('projects', { owner_id: other.id });
     expect((await call(forkRoute, 'POST', `/api/projects/${p.id}/fork`, { params: { id: String(p.id) }, cookie: other.cookie, body: { revision: q.rev1 } })).status).toBe(404);
+    expect(await count('projects', { owner_id: other.id })).toBe(forksBefore);
+    // A malformed request names the field and stores nothing either.
+    const bad = await call(forkRoute, 'POST', `/api/projects/${p.id}/fork`, { params: { id: String(p.id) }, cookie: other.cookie, body: { revision: 'latest', name: '' } });
+    expect(bad.status).toBe(400);
+    const fields = (await bad.json()).error.details.fields;
+    expect(fields).toMatchObject({ revision: 'send the id of the revision to fork at', name: 'enter a name' });
+    expect(await count('projects', { owner_id: other.id })).toBe(forksBefore);
+  });
+
+  // The params hash an export records (sha256 of the RFC 8785 canonical params).
+  const paramsHash = (params: unknown) => createHash('sha256').update(canonicalJson(params)).digest('hex');
+  const history = async (id: number, u: TestUser) => {
+    const res = await call(revisionsRoute, 'GET', `/api/projects/${id}/revisions?sort=number&dir=asc&pageSize=100`, { params: { id: String(id) }, cookie: u.cookie });
+    expect(res.status).toBe(200);
+    return ((await res.json()) as { items: { id: number; number: number; message: string; authorName: string | null; createdAt: string; params: unknown }[] }).items;
+  };
+  const rawRows = (projectId: number) => db()('revisions').where({ project_id: projectId }).orderBy('number').select('id', 'number', 'params', 'message', 'author_id', 'created_at');
+  const fork = async (id: number, u: TestUser, body: Record<string, unknown> = {}) => {
+    const res = await call(forkRoute, 'POST', `/api/projects/${id}/fork`, { params: { id: String(id) }, cookie: u.cookie, body });
+    expect(res.status).toBe(201);
+    return (await res.json()) as { id: number; headRevision: number; headNumber: number; forkedAtNumber: number };
+  };
+
+  it('carries the parent’s history in order, with messages, authors, times and params as they were', async () => {
+    const p = await makeProject(owner, [[editor, 'editor']], 'public');
+    const r3 = await call(revisionsRoute, 'POST', `/api/projects/${p.id}/revisions`, { params: { id: String(p.id) }, cookie: editor.cookie, body: { params: { ...FIB, order: 9, offset: 0.25 }, message: 'order 9, shifted window', baseRevision: p.rev2 } });
+    expect(r3.status).toBe(201);
+    const parentRows = await rawRows(p.id);
+    const parent = await history(p.id, owner);
+    expect(parent.map((r) => r.number)).toEqual([1, 2, 3]);
+
+    const f = await fork(p.id, other);
+    expect(f.headNumber).toBe(3);
+    expect(f.forkedAtNumber).toBe(3);
+    const child = await history(f.id, other);
+    expect(child.map((r) => r.number)).toEqual([1, 2, 3]);
+    expect(child.map((r) => r.message)).toEqual(['one', 'two', 'order 9, shifted window']);
+    expect(child.map((r) => r.authorName)).toEqual(parent.map((r) => r.authorName));
+    expect(new Set(child.map((r) => r.authorName)).size).toBe(2);
+    expect(child.map((r) => r.createdAt)).toEqual(parent.map((r) => r.createdAt));
+    expect(child.map((r) => paramsHash(r.params))).toEqual(parent.map((r) => paramsHash(r.params)));
+    // New rows, not shared ones; the fork's head is its own copy of the fork point.
+    expect(child.some((r) => parent.some((q) => q.id === r.id))).toBe(false);
+    expect(f.headRevision).toBe(child[2].id);
+    const row = await db()('projects').where({ id: f.id }).first();
+    expect(Number(row.forked_from_revision)).toBe((await r3.json()).id);
+
+    // A save on the fork continues its numbering and leaves the parent as it was.
+    const save = await call(revisionsRoute, 'POST', `/api/projects/${f.id}/revisions`, { params: { id: String(f.id) }, cookie: other.cookie, body: { params: { ...FIB, order: 11 }, message: 'my own idea', baseRevision: f.headRevision } });
+    expect(save.status).toBe(201);
+    expect((await save.json()).number).toBe(4);
+    expect(await rawRows(p.id)).toEqual(parentRows);
+    expect(Number((await db()('projects').where({ id: p.id }).first()).head_revision)).toBe(parent[2].id);
+  });
+
+  it('forked at an older revision, carries only that revision’s history', async () => {
+    const p = await makeProject(owner, [], 'public');
+    const f = await fork(p.id, other, { revision: p.rev1 });
+    expect((await history(f.id, other)).map((r) => [r.number, r.message])).toEqual([[1, 'one']]);
+    expect(f.forkedAtNumber).toBe(1);
+    const save = await call(revisionsRoute, 'POST', `/api/projects/${f.id}/revisions`, { params: { id: String(f.id) }, cookie: other.cookie, body: { params: FIB, message: 'again', baseRevision: f.headRevision } });
+    expect((await save.json()).number).toBe(2);
+    expect(await count('revisions', { project_id: p.id })).toBe(2);
+  });
+
+  it('keeps its history and fork point when the parent is deleted', async () => {
+    const p = await makeProject(owner, [], 'public');
+    const f = await fork(p.id, other);
+    const before = await history(f.id, other);
+    expect(before.map((r) => r.number)).toEqual([1, 2]);
+    expect((await call(projectRoute, 'DELETE', `/api/projects/${p.id}`, { params: { id: String(p.id) }, cookie: owner.cookie })).status).toBeLessThan(300);
+    const child = await (await call(projectRoute, 'GET', `/api/projects/${f.id}`, { params: { id: String(f.id) }, cookie: other.cookie })).json();
+    expect(child.parent).toBeNull();
+    expect(child.forkedAtNumber).toBe(2);
+    expect(await history(f.id, other)).toEqual(before);
   });
 });
 

@@ -34,6 +34,12 @@ const GOLDEN: Record<string, Record<string, string>> = {
     'extxyz': '05bd84bc77c133c0e336175adce17b2779d5363f6f2bb53f700a10f4b381c1ec',
     'json': '3e501a11836d681063405e9bb3454f35c7cd613e3cf050ac0468f02a788b4b2c'
   },
+  'starter:octagonal': {
+    'xyz': '208909678542fb6bac3ad09f3fd2b04c821bc7124ffda1df4a9474ea00bdb803',
+    'cif': '1c905e61c034fd00e194148f558f51718f9b884c50a3b7b44aec00a5ba6c8d38',
+    'extxyz': '0f2ef74ade28f438be1cae06fd0a8dc120d40d4194d1ddb02df137c7d4b6de92',
+    'json': 'bd563d0e7c3af3fdd5e730dcedfd50c320ff20f1890609c90cd7c8f1cd9da6e2'
+  },
   'starter:icosahedral': {
     'xyz': '1937be3dc89360e7391a6ed7297003831ffc9083924b7b1c45f90c23f364c108',
     'cif': '8f075840273a3aa6b9503a8205341cfd34303d59afe21d446d4bd775963ca3c5',
