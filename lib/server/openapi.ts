@@ -70,7 +70,7 @@ const PATHS: Record<string, Record<string, Op>> = {
   '/api/projects/{id}/revisions/{rid}': { get: { summary: 'One revision', ok: 200 } },
   '/api/projects/{id}/revisions/{rid}/restore': { post: { summary: 'New revision copying an old one', body: restoreSchema, ok: 201 } },
   '/api/projects/{id}/diff': { get: { summary: 'JSON-path diff of params between two revisions', query: ['from', 'to'], ok: 200 } },
-  '/api/projects/{id}/fork': { post: { summary: 'Fork into a new project you own, carrying the parent's revisions up to the fork point', body: forkSchema, ok: 201 } },
+  '/api/projects/{id}/fork': { post: { summary: 'Fork into a new project you own, with the revisions of the parent up to the fork point', body: forkSchema, ok: 201 } },
   '/api/projects/{id}/members': {
     get: { summary: 'Members and pending invitations', ok: 200 },
     post: { summary: 'Invite by e-mail', body: inviteSchema, ok: 201 },
