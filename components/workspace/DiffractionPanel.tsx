@@ -2,6 +2,7 @@
 /** Zone-axis patterns and powder profiles of the current cut, with a measured pattern to compare against. */
 import { useMemo, useState } from 'react';
 import type { Structure } from '@/lib/structure/types';
+import type { PowderCurve } from '@/lib/worker/protocol';
 import { powderParamsSchema, zoneParamsSchema } from '@/lib/diffraction/params';
 import { parseWavelength } from '@/lib/diffraction/wavelengths';
 import { readMeasured, type MeasuredPattern } from '@/lib/formats/measured';
@@ -52,10 +53,13 @@ const FORM_DEFAULTS: DiffractionForm = { sub: 'zone', axis: '5', qmax: '3', radi
 export function DiffractionPanel({ structure, fileBase, datasets = [], target, modelKey }: { structure: Structure; fileBase: string; datasets?: DatasetRef[]; target?: DatasetTarget; modelKey?: string }) {
   const scope = target?.projectId ?? 'scratch';
   const model = modelKey ?? 'current';
-  const store = useResultsStore();
-  const { form, measured } = store.scopes[scope] ?? { form: FORM_DEFAULTS, measured: null };
+  const scoped = useResultsStore((st) => st.scopes[scope]);
+  const slots = useResultsStore((st) => st.slots);
+  const store = useResultsStore.getState;
+  const form = scoped?.form ?? FORM_DEFAULTS;
+  const measured = scoped?.measured ?? null;
   const { sub, axis, qmax, radiation, wl, tt0, tt1, fwhm } = form;
-  const set = (patch: Partial<DiffractionForm>) => store.setForm(scope, FORM_DEFAULTS, patch);
+  const set = (patch: Partial<DiffractionForm>) => store().setForm(scope, FORM_DEFAULTS, patch);
   const setSub = (v: DiffractionKind) => set({ sub: v });
   const setAxis = (v: string) => set({ axis: v });
   const setQmax = (v: string) => set({ qmax: v });
@@ -64,7 +68,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
   const setTt0 = (v: string) => set({ tt0: v });
   const setTt1 = (v: string) => set({ tt1: v });
   const setFwhm = (v: string) => set({ fwhm: v });
-  const setMeasured = (m: MeasuredRef | null | ((old: MeasuredRef | null) => MeasuredRef | null)) => store.setMeasured(scope, FORM_DEFAULTS, m);
+  const setMeasured = (m: MeasuredRef | null | ((old: MeasuredRef | null) => MeasuredRef | null)) => store().setMeasured(scope, FORM_DEFAULTS, m);
   const [measErr, setMeasErr] = useState<string | null>(null);
   const [keepState, setKeepState] = useState<{ busy?: boolean; ok?: string; error?: string }>({});
   const zoneInput = { axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax) };
@@ -88,18 +92,19 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
   const powderSettings = { kind: 'powder' as const, wavelength: lambda ?? wl, radiation, twoThetaMin: numberOrText(tt0), twoThetaMax: numberOrText(tt1), step: powderCheck.success ? powderCheck.data.profile.step : null, fwhm: numberOrText(fwhm) };
   const zoneKey = resultKey(scope, model, zoneSettings);
   const powderKey = resultKey(scope, model, powderSettings);
-  const zone = { ...slotOf<'zone'>(store.slots, zoneKey), cancel: () => store.cancel(zoneKey) };
-  const powder = { ...slotOf<'powder'>(store.slots, powderKey), cancel: () => store.cancel(powderKey) };
+  const zone = { ...slotOf<'zone'>(slots, zoneKey), cancel: () => store().cancel(zoneKey) };
+  const powder = { ...slotOf<'powder'>(slots, powderKey), cancel: () => store().cancel(powderKey) };
 
   // A comparison that cannot be made says why (e.g. the measured range lies outside the simulated one).
+  const curve = (slots[powderKey]?.result ?? null) as PowderCurve | null;
   const { comparison, compareErr } = useMemo(() => {
-    if (!measured || !powder.result) return { comparison: null, compareErr: null };
+    if (!measured || !curve) return { comparison: null, compareErr: null };
     try {
-      return { comparison: comparePatterns(measured.data, powder.result, powder.result.peaks, { wavelength: powder.result.wavelength, background: true }), compareErr: null };
+      return { comparison: comparePatterns(measured.data, curve, curve.peaks, { wavelength: curve.wavelength, background: true }), compareErr: null };
     } catch (e) {
-      return { comparison: null, compareErr: compareMessage((e as Error).message, measured.data, powder.result.twoTheta) };
+      return { comparison: null, compareErr: compareMessage((e as Error).message, measured.data, curve.twoTheta) };
     }
-  }, [measured, powder.result]);
+  }, [measured, curve]);
 
   const loadText = (name: string, text: string, from: { file?: File; datasetId?: string }) => {
     setKeepState({});
@@ -144,7 +149,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
             onSubmit={(e) => {
               e.preventDefault();
               if (!zoneCheck.success) return;
-              void store.run(zoneKey, 'diffraction', { kind: 'zone', structure, axis: zoneSettings.axis, qmax: Number(qmax), slab: 0, radiation });
+              void store().run(zoneKey, 'diffraction', { kind: 'zone', structure, axis: zoneSettings.axis, qmax: Number(qmax), slab: 0, radiation });
             }}
           >
             <div>
@@ -189,7 +194,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
               e.preventDefault();
               if (lambda === null || !powderCheck.success || fwhmErr) return;
               const p = powderCheck.data;
-              void store.run(powderKey, 'diffraction', { kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm) });
+              void store().run(powderKey, 'diffraction', { kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm) });
             }}
           >
             <div>
