@@ -85,6 +85,12 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
       const a = Math.abs(v);
       return a === 0 ? '0' : a >= 1e4 || a < 1e-2 ? v.toExponential(0) : String(Number(v.toPrecision(3)));
     };
+    const curvesOnly = (u: uPlot, splits: number[]) => {
+      const lo = u.scales.y.min ?? 0;
+      const hi = u.scales.y.max ?? 1;
+      const floor = lo + (hi - lo) * 0.24;
+      return splits.map((v) => (v >= floor ? v : null));
+    };
     let panFrom: { x: number; min: number; max: number } | null = null;
     const opts: uPlot.Options = {
       width: Math.max(320, box.clientWidth),
@@ -92,6 +98,7 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
       legend: { show: false },
       cursor: {
         drag: { x: true, y: false, setScale: true },
+        y: false,
         points: { show: false },
         bind: {
           mousedown: (u, _t, handler) => (e: MouseEvent) => {
@@ -139,15 +146,10 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
           labelFont,
           label: scale === 'linear' ? 'intensity (arb.)' : scale === 'sqrt' ? 'intensity (arb., √ axis)' : 'intensity (arb., log axis)',
           size: 56,
-          grid: { stroke: c.rule, width: 1 },
-          ticks: { stroke: c.inkSoft, width: 1 },
-          // Ticks sit below the curves' lower edge only; the difference band has no intensity ticks.
-          filter: (u, splits) => {
-            const lo = u.scales.y.min ?? 0;
-            const hi = u.scales.y.max ?? 1;
-            const floor = lo + (hi - lo) * 0.24;
-            return splits.map((v) => (v >= floor ? v : null));
-          },
+          // Ticks, grid and labels above the curves' lower edge only; the difference band has no intensity ticks.
+          grid: { stroke: c.rule, width: 1, filter: curvesOnly },
+          ticks: { stroke: c.inkSoft, width: 1, filter: curvesOnly },
+          filter: curvesOnly,
           values: (_u, splits) => splits.map((v) => (v === null ? '' : fmt(fromAxis(v, scale)))),
         },
       ],
