@@ -24,7 +24,7 @@ export function ZonePattern({ result, fileBase }: { result: ZoneResult; fileBase
     <div className="grid h-full min-h-0 gap-3 lg:grid-cols-[1fr_230px]">
       <div className="flex min-h-0 flex-col gap-1">
         <div className="flex flex-wrap items-center gap-3 text-xs">
-          <span className="text-ink-soft">
+          <span className="basis-full text-ink-soft xl:basis-auto">
             Looking down {result.axisLabel}; {result.spots.length} spots to |Q| = {q} Å⁻¹
           </span>
           <label className="flex items-center gap-2">
@@ -44,7 +44,8 @@ export function ZonePattern({ result, fileBase }: { result: ZoneResult; fileBase
               {decades === 0 ? 'linear' : `log, ${decades} dec.`}
             </span>
           </label>
-          <button type="button" className="ml-auto rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={() => svgRef.current && void saveSvgPng(svgRef.current, `${fileBase}-zone.png`)}>
+          <span className="ml-auto flex shrink-0 gap-2">
+          <button type="button" className="rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={() => svgRef.current && void saveSvgPng(svgRef.current, `${fileBase}-zone.png`)}>
             Save PNG
           </button>
           <button
@@ -54,6 +55,7 @@ export function ZonePattern({ result, fileBase }: { result: ZoneResult; fileBase
           >
             CSV
           </button>
+          </span>
         </div>
         <svg ref={svgRef} viewBox={`${-q * 1.05} ${-q * 1.05} ${2.1 * q} ${2.1 * q}`} className="min-h-0 w-full flex-1 rounded-md border border-rule bg-ink" role="img" aria-label={`Zone-axis pattern down ${result.axisLabel}`}>
           <circle cx={0} cy={0} r={q} fill="none" stroke="#3a4657" strokeWidth={q / 400} />
