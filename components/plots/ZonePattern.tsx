@@ -45,16 +45,16 @@ export function ZonePattern({ result, fileBase }: { result: ZoneResult; fileBase
             </span>
           </label>
           <span className="ml-auto flex shrink-0 gap-2">
-          <button type="button" className="rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={() => svgRef.current && void saveSvgPng(svgRef.current, `${fileBase}-zone.png`)}>
-            Save PNG
-          </button>
-          <button
-            type="button"
-            className="rounded border border-rule px-2 py-0.5 hover:border-tide"
-            onClick={() => saveText(csv([['indices', 'qx_per_A', 'qy_per_A', 'q_par_per_A', 'q_perp_per_A', 'intensity'], ...result.spots.map((s) => [s.label, s.x, s.y, s.qPar, s.qPerp, s.intensity])]), `${fileBase}-zone.csv`, 'text/csv')}
-          >
-            CSV
-          </button>
+            <button type="button" className="rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={() => svgRef.current && void saveSvgPng(svgRef.current, `${fileBase}-zone.png`)}>
+              Save PNG
+            </button>
+            <button
+              type="button"
+              className="rounded border border-rule px-2 py-0.5 hover:border-tide"
+              onClick={() => saveText(csv([['indices', 'qx_per_A', 'qy_per_A', 'q_par_per_A', 'q_perp_per_A', 'intensity'], ...result.spots.map((s) => [s.label, s.x, s.y, s.qPar, s.qPerp, s.intensity])]), `${fileBase}-zone.csv`, 'text/csv')}
+            >
+              CSV
+            </button>
           </span>
         </div>
         <svg ref={svgRef} viewBox={`${-q * 1.05} ${-q * 1.05} ${2.1 * q} ${2.1 * q}`} className="min-h-0 w-full flex-1 rounded-md border border-rule bg-ink" role="img" aria-label={`Zone-axis pattern down ${result.axisLabel}`}>
