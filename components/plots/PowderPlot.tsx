@@ -1,59 +1,255 @@
 'use client';
 /**
- * Powder profile: the calculated curve, the measured pattern laid over it (scaled by least squares), the
- * difference underneath, R_p and R_wp, and the table of matched peaks.
+ * Powder profile: the calculated curve at full resolution, the measured pattern laid over it (scaled by least
+ * squares), the difference underneath, R_p and R_wp, and the table of matched peaks. Drawn with uPlot on a
+ * canvas: drag to zoom into a 2θ range, Shift-drag (or the arrow buttons) to pan, double-click or Reset to see
+ * it all; pointing reads 2θ, the intensities and the nearest reflection; the intensity axis is linear, √ or log.
  */
-import { useMemo, useRef } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import uPlot from 'uplot';
+import 'uplot/dist/uPlot.min.css';
 import type { PowderCurve } from '@/lib/worker/protocol';
 import type { CompareResult } from '@/lib/diffraction/compare';
-import { csv, saveSvgPng, saveText } from '@/components/workspace/downloads';
+import { csv, saveCanvasPng, saveText } from '@/components/workspace/downloads';
+import { fromAxis, nearestReflection, toAxis, type IntensityScale } from '@/lib/view/intensity';
 
-// A wide, low frame: with the measured-pattern box above it the whole plot, x axis included, stays in view
-// on a 1280×800 screen; the peak table scrolls below.
-const W = 900;
-const H = 300;
-const M = { l: 52, r: 12, t: 10, b: 34 };
+const SCALES: { id: IntensityScale; label: string }[] = [
+  { id: 'linear', label: 'Linear' },
+  { id: 'sqrt', label: '√I' },
+  { id: 'log', label: 'log I' },
+];
 
-function path(xs: ArrayLike<number>, ys: ArrayLike<number>, X: (x: number) => number, Y: (y: number) => number): string {
-  let d = '';
-  const n = xs.length;
-  const step = Math.max(1, Math.floor(n / 2000));
-  for (let i = 0; i < n; i += step) d += `${i ? 'L' : 'M'}${X(xs[i]).toFixed(1)},${Y(ys[i]).toFixed(1)}`;
-  return d;
+/** Our design tokens (app/globals.css), read from the page so the canvas matches it. */
+function tokens() {
+  const css = typeof window !== 'undefined' ? getComputedStyle(document.documentElement) : null;
+  const t = (name: string, fallback: string) => css?.getPropertyValue(name).trim() || fallback;
+  const font = (typeof window !== 'undefined' ? getComputedStyle(document.body).fontFamily : '') || 'ui-sans-serif, system-ui, sans-serif';
+  return {
+    ink: t('--color-ink', '#16202e'),
+    inkSoft: t('--color-ink-soft', '#3a4657'),
+    card: t('--color-card', '#fffdf8'),
+    rule: t('--color-rule', '#ddd8cb'),
+    tide: t('--color-tide', '#0e6f6a'),
+    brass: t('--color-brass', '#b8862b'),
+    clay: t('--color-clay', '#b4472f'),
+    font,
+  };
+}
+
+/** Index of the value in an ascending array nearest to x. */
+function nearestIndex(xs: ArrayLike<number>, x: number): number {
+  let lo = 0;
+  let hi = xs.length - 1;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (xs[mid] < x) lo = mid;
+    else hi = mid;
+  }
+  return Math.abs(xs[lo] - x) <= Math.abs(xs[hi] - x) ? lo : hi;
+}
+
+interface Readout {
+  twoTheta: number;
+  calculated: number;
+  measured: number | null;
+  reflection: { hkl: number[] | null; twoTheta: number; d: number; intensity: number } | null;
 }
 
 export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curve: PowderCurve; comparison: CompareResult | null; measuredName?: string; fileBase: string }) {
-  const svgRef = useRef<SVGSVGElement>(null);
+  const boxRef = useRef<HTMLDivElement>(null);
+  const plotRef = useRef<uPlot | null>(null);
+  const [scale, setScale] = useState<IntensityScale>('linear');
+  const [readout, setReadout] = useState<Readout | null>(null);
+  const [zoomed, setZoomed] = useState(false);
+  // The 2θ window survives a change of intensity axis (the plot is rebuilt), not a new curve.
+  const windowRef = useRef<{ curve: PowderCurve; min: number; max: number } | null>(null);
   const residual = useMemo(() => (comparison ? comparison.observed.map((v, i) => v - comparison.calculated[i]) : null), [comparison]);
-  const view = useMemo(() => {
-    const x0 = curve.twoTheta[0];
-    const x1 = curve.twoTheta[curve.twoTheta.length - 1];
-    let yMax = 0;
-    for (const v of curve.intensity) yMax = Math.max(yMax, v);
-    let scale = 1;
-    let bg = 0;
-    if (comparison) {
-      scale = comparison.scale;
-      bg = comparison.background;
-      yMax = 0;
-      for (const v of comparison.observed) yMax = Math.max(yMax, v);
-      for (const v of curve.intensity) yMax = Math.max(yMax, v * scale + bg);
-    }
-    let rMax = 0;
-    if (residual) for (const v of residual) rMax = Math.max(rMax, Math.abs(v));
-    return { x0, x1, yMax: yMax || 1, scale, bg, rMax: rMax || 1 };
-  }, [curve, comparison, residual]);
-  const mainH = comparison ? (H - M.t - M.b) * 0.75 : H - M.t - M.b;
-  const resTop = M.t + mainH + 8;
-  const resH = H - M.b - resTop;
-  const X = (x: number) => M.l + ((x - view.x0) / (view.x1 - view.x0)) * (W - M.l - M.r);
-  const Y = (y: number) => M.t + mainH - (y / (view.yMax * 1.05)) * mainH;
-  const R = (r: number) => resTop + resH / 2 - (r / view.rMax) * (resH / 2);
-  const ticks: number[] = [];
-  const span = view.x1 - view.x0;
-  const stepT = span > 60 ? 10 : span > 20 ? 5 : 2;
-  for (let t = Math.ceil(view.x0 / stepT) * stepT; t <= view.x1; t += stepT) ticks.push(t);
-  const calcScaled = useMemo(() => curve.intensity.map((v) => v * view.scale + view.bg), [curve, view.scale, view.bg]);
+  const calcScaled = useMemo(() => (comparison ? curve.intensity.map((v) => v * comparison.scale + comparison.background) : curve.intensity), [curve, comparison]);
+  const x0 = curve.twoTheta[0];
+  const x1 = curve.twoTheta[curve.twoTheta.length - 1];
+
+  useEffect(() => {
+    const box = boxRef.current;
+    if (!box) return;
+    const c = tokens();
+    const f = (v: number) => toAxis(v, scale);
+    // One x column for both tables: the calculated curve on its own grid, the measured points and the difference
+    // on theirs (null where a table has no point; lines span the gaps).
+    const calcT: [number[], number[]] = [Array.from(curve.twoTheta), Array.from(calcScaled, f)];
+    const data: uPlot.AlignedData = comparison && residual
+      ? uPlot.join([calcT, [Array.from(comparison.twoTheta), Array.from(comparison.observed, f), Array.from(comparison.observed, (o, i) => f(o) - f(comparison.calculated[i]))]])
+      : [calcT[0], calcT[1]];
+    const axisFont = `11px ${c.font}`;
+    const labelFont = `12px ${c.font}`;
+    const fmt = (v: number) => {
+      const a = Math.abs(v);
+      return a === 0 ? '0' : a >= 1e4 || a < 1e-2 ? v.toExponential(0) : String(Number(v.toPrecision(3)));
+    };
+    const curvesOnly = (u: uPlot, splits: number[]) => {
+      const lo = u.scales.y.min ?? 0;
+      const hi = u.scales.y.max ?? 1;
+      const floor = lo + (hi - lo) * 0.24;
+      return splits.map((v) => (v >= floor ? v : null));
+    };
+    let panFrom: { x: number; min: number; max: number } | null = null;
+    const opts: uPlot.Options = {
+      width: Math.max(320, box.clientWidth),
+      height: comparison ? 340 : 300,
+      legend: { show: false },
+      cursor: {
+        drag: { x: true, y: false, setScale: true },
+        y: false,
+        points: { show: false },
+        bind: {
+          mousedown: (u, _t, handler) => (e: MouseEvent) => {
+            if (!e.shiftKey) return handler(e);
+            const sx = u.scales.x;
+            panFrom = { x: e.clientX, min: sx.min ?? x0, max: sx.max ?? x1 };
+            const move = (ev: MouseEvent) => {
+              if (!panFrom) return;
+              const dx = ((ev.clientX - panFrom.x) / u.over.clientWidth) * (panFrom.max - panFrom.min);
+              u.setScale('x', { min: panFrom.min - dx, max: panFrom.max - dx });
+            };
+            const up = () => {
+              panFrom = null;
+              window.removeEventListener('mousemove', move);
+              window.removeEventListener('mouseup', up);
+            };
+            window.addEventListener('mousemove', move);
+            window.addEventListener('mouseup', up);
+            return null;
+          },
+        },
+      },
+      scales: {
+        x: { time: false, range: (_u, min, max) => [min, max] },
+        // The curves fill the upper three quarters; the difference the lowest quarter (its own scale).
+        y: {
+          range: (_u, min, max) => {
+            const a = scale === 'log' ? min : Math.min(0, min);
+            const hi = max + 0.05 * (max - a || 1);
+            return [a - (hi - a) / 3, hi];
+          },
+        },
+        d: {
+          range: (_u, min, max) => {
+            const r = Math.max(Math.abs(min), Math.abs(max)) || 1;
+            return [-r, -r + (2 * r) / 0.22];
+          },
+        },
+      },
+      axes: [
+        { stroke: c.inkSoft, font: axisFont, labelFont, label: '2θ (degrees)', grid: { stroke: c.rule, width: 1 }, ticks: { stroke: c.inkSoft, width: 1 } },
+        {
+          stroke: c.inkSoft,
+          font: axisFont,
+          labelFont,
+          label: scale === 'linear' ? 'intensity (arb.)' : scale === 'sqrt' ? 'intensity (arb., √ axis)' : 'intensity (arb., log axis)',
+          size: 56,
+          // Ticks, grid and labels above the curves' lower edge only; the difference band has no intensity ticks.
+          grid: { stroke: c.rule, width: 1, filter: curvesOnly },
+          ticks: { stroke: c.inkSoft, width: 1, filter: curvesOnly },
+          filter: curvesOnly,
+          values: (_u, splits) => splits.map((v) => (v === null ? '' : fmt(fromAxis(v, scale)))),
+        },
+      ],
+      series: [
+        {},
+        { label: 'calculated', scale: 'y', stroke: c.tide, width: 1.4, spanGaps: true, points: { show: false } },
+        ...(comparison
+          ? [
+              { label: 'measured', scale: 'y', stroke: c.ink, fill: c.ink, width: 0, paths: () => null, points: { show: true, size: 2.6, width: 0, stroke: c.ink, fill: c.ink } },
+              { label: 'difference', scale: 'd', stroke: c.clay, width: 1, spanGaps: true, points: { show: false } },
+            ]
+          : []),
+      ],
+      hooks: {
+        // A card-coloured ground so the saved PNG is not transparent.
+        drawClear: [
+          (u) => {
+            u.ctx.save();
+            u.ctx.fillStyle = c.card;
+            u.ctx.fillRect(0, 0, u.ctx.canvas.width, u.ctx.canvas.height);
+            u.ctx.restore();
+          },
+        ],
+        // Reflection positions as short brass ticks along the foot of the curves; the difference's zero line.
+        draw: [
+          (u) => {
+            const ctx = u.ctx;
+            const { left, top, width, height } = u.bbox;
+            const dpr = devicePixelRatio || 1;
+            ctx.save();
+            ctx.beginPath();
+            ctx.rect(left, top, width, height);
+            ctx.clip();
+            const foot = top + height * 0.76;
+            ctx.strokeStyle = c.brass;
+            ctx.lineWidth = dpr;
+            ctx.beginPath();
+            for (const p of curve.peaks) {
+              if (p.intensity <= 1) continue;
+              const x = u.valToPos(p.twoTheta, 'x', true);
+              ctx.moveTo(x, foot);
+              ctx.lineTo(x, foot - 6 * dpr);
+            }
+            ctx.stroke();
+            if (comparison) {
+              const y = u.valToPos(0, 'd', true);
+              ctx.strokeStyle = c.rule;
+              ctx.beginPath();
+              ctx.moveTo(left, y);
+              ctx.lineTo(left + width, y);
+              ctx.stroke();
+            }
+            ctx.restore();
+          },
+        ],
+        setCursor: [
+          (u) => {
+            const left = u.cursor.left ?? -1;
+            if (left < 0) return setReadout(null);
+            const x = u.posToVal(left, 'x');
+            const i = nearestIndex(curve.twoTheta, x);
+            const span = (u.scales.x.max ?? x1) - (u.scales.x.min ?? x0);
+            const reflection = nearestReflection(curve.peaks, x, Math.max(0.05, span / 150), 0.01);
+            const j = comparison ? nearestIndex(comparison.twoTheta, x) : -1;
+            setReadout({ twoTheta: x, calculated: calcScaled[i], measured: comparison ? comparison.observed[j] : null, reflection });
+          },
+        ],
+        setScale: [
+          (u, key) => {
+            if (key !== 'x') return;
+            const min = u.scales.x.min ?? x0;
+            const max = u.scales.x.max ?? x1;
+            windowRef.current = { curve, min, max };
+            setZoomed(min > x0 + 1e-9 || max < x1 - 1e-9);
+          },
+        ],
+      },
+    };
+    const kept = windowRef.current?.curve === curve ? windowRef.current : null;
+    const u = new uPlot(opts, data, box);
+    plotRef.current = u;
+    if (kept) u.setScale('x', { min: kept.min, max: kept.max });
+    const ro = new ResizeObserver(() => u.setSize({ width: Math.max(320, box.clientWidth), height: opts.height }));
+    ro.observe(box);
+    return () => {
+      ro.disconnect();
+      u.destroy();
+      plotRef.current = null;
+    };
+  }, [curve, comparison, residual, calcScaled, scale, x0, x1]);
+
+  const pan = (dir: -1 | 1) => {
+    const u = plotRef.current;
+    if (!u) return;
+    const min = u.scales.x.min ?? x0;
+    const max = u.scales.x.max ?? x1;
+    const d = dir * 0.25 * (max - min);
+    u.setScale('x', { min: min + d, max: max + d });
+  };
+  const reset = () => plotRef.current?.setScale('x', { min: x0, max: x1 });
 
   const exportCsv = () => {
     const rows: (string | number | undefined)[][] = [['two_theta_deg', 'calculated']];
@@ -64,6 +260,7 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
     saveText(csv(rows), `${fileBase}-powder.csv`, 'text/csv');
   };
 
+  const small = 'rounded border border-rule px-2 py-0.5 hover:border-tide disabled:opacity-50';
   return (
     <div className="space-y-2">
       {/* One row: the legend (which may wrap within its own box), then R values and the buttons, which never wrap. */}
@@ -85,6 +282,9 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
               </span>
             </>
           ) : null}
+          <span className="inline-flex items-center gap-1">
+            <span className="inline-block h-2 w-px bg-brass" /> reflections
+          </span>
         </div>
         {comparison ? (
           <span className="flex shrink-0 gap-3 whitespace-nowrap font-mono">
@@ -93,49 +293,50 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
           </span>
         ) : null}
         <span className="flex shrink-0 gap-2">
-          <button type="button" className="rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={() => svgRef.current && void saveSvgPng(svgRef.current, `${fileBase}-powder.png`)}>
+          <button type="button" className={small} onClick={() => plotRef.current && saveCanvasPng(plotRef.current.ctx.canvas, `${fileBase}-powder.png`)}>
             Save PNG
           </button>
-          <button type="button" className="rounded border border-rule px-2 py-0.5 hover:border-tide" onClick={exportCsv}>
+          <button type="button" className={small} onClick={exportCsv}>
             CSV
           </button>
         </span>
       </div>
-      <svg ref={svgRef} viewBox={`0 0 ${W} ${H}`} className="w-full rounded-md border border-rule bg-card" role="img" aria-label="Powder pattern">
-        <rect x={0} y={0} width={W} height={H} fill="#fffdf8" />
-        <line x1={M.l} x2={W - M.r} y1={M.t + mainH} y2={M.t + mainH} stroke="#ddd8cb" />
-        {ticks.map((t) => (
-          <g key={t}>
-            <line x1={X(t)} x2={X(t)} y1={H - M.b} y2={H - M.b + 4} stroke="#3a4657" />
-            <text x={X(t)} y={H - M.b + 16} textAnchor="middle" fontSize={11} fill="#3a4657">
-              {t}
-            </text>
-          </g>
-        ))}
-        <text x={(W + M.l) / 2} y={H - 4} textAnchor="middle" fontSize={11} fill="#3a4657">
-          2θ (degrees)
-        </text>
-        <text x={14} y={M.t + mainH / 2} fontSize={11} fill="#3a4657" transform={`rotate(-90 14 ${M.t + mainH / 2})`} textAnchor="middle">
-          intensity (arb.)
-        </text>
-        {curve.peaks
-          .filter((p) => p.intensity > 1)
-          .map((p, i) => (
-            <line key={i} x1={X(p.twoTheta)} x2={X(p.twoTheta)} y1={M.t + mainH} y2={M.t + mainH - 5} stroke="#b8862b" />
+      <div className="flex flex-wrap items-center gap-3 text-xs">
+        <div role="radiogroup" aria-label="Intensity axis" className="flex overflow-hidden rounded border border-rule">
+          {SCALES.map((s) => (
+            <button key={s.id} type="button" role="radio" aria-checked={scale === s.id} onClick={() => setScale(s.id)} className={`px-2 py-0.5 ${scale === s.id ? 'bg-ink text-paper' : 'bg-card hover:bg-tide-pale'}`}>
+              {s.label}
+            </button>
           ))}
-        {comparison ? (
-          <g>
-            {Array.from(comparison.twoTheta, (x, i) => (i % Math.max(1, Math.floor(comparison.twoTheta.length / 1500)) === 0 ? <circle key={i} cx={X(x)} cy={Y(comparison.observed[i])} r={1.3} fill="#16202e" /> : null))}
-          </g>
-        ) : null}
-        <path d={path(curve.twoTheta, calcScaled, X, Y)} fill="none" stroke="#0e6f6a" strokeWidth={1.4} />
-        {comparison && residual ? (
-          <g>
-            <line x1={M.l} x2={W - M.r} y1={R(0)} y2={R(0)} stroke="#ddd8cb" />
-            <path d={path(comparison.twoTheta, residual, X, R)} fill="none" stroke="#b4472f" strokeWidth={1} />
-          </g>
-        ) : null}
-      </svg>
+        </div>
+        <span className="flex gap-1">
+          <button type="button" className={small} onClick={() => pan(-1)} disabled={!zoomed} aria-label="Pan to lower 2θ">
+            ←
+          </button>
+          <button type="button" className={small} onClick={() => pan(1)} disabled={!zoomed} aria-label="Pan to higher 2θ">
+            →
+          </button>
+          <button type="button" className={small} onClick={reset} disabled={!zoomed}>
+            Reset zoom
+          </button>
+        </span>
+        <span className="text-ink-soft">Drag to zoom · Shift-drag to pan · double-click to see all</span>
+      </div>
+      <div className="relative">
+        <div ref={boxRef} role="img" aria-label="Powder pattern" data-testid="powder-plot" className="tf-plot w-full overflow-hidden rounded-md border border-rule bg-card" />
+        <div className="pointer-events-none absolute right-2 top-2 min-w-44 rounded border border-rule bg-card/95 px-2 py-1 font-mono text-xs" aria-live="polite" data-testid="powder-readout">
+          {readout ? (
+            <>
+              <div>2θ = {readout.twoTheta.toFixed(3)}°</div>
+              <div className="text-tide">calc = {readout.calculated.toPrecision(4)}</div>
+              {readout.measured !== null ? <div>meas = {readout.measured.toPrecision(4)}</div> : null}
+              <div className="text-brass">{readout.reflection ? `hkl ${readout.reflection.hkl ? readout.reflection.hkl.join(' ') : '—'} at ${readout.reflection.twoTheta.toFixed(3)}°, d = ${readout.reflection.d.toFixed(4)} Å` : 'no reflection here'}</div>
+            </>
+          ) : (
+            <span className="font-sans text-ink-soft">Point at the plot to read it.</span>
+          )}
+        </div>
+      </div>
       {comparison ? (
         <div className="max-h-48 overflow-y-auto rounded-md border border-rule bg-card">
           <table className="w-full text-xs">

@@ -2,13 +2,14 @@
 /** Zone-axis patterns and powder profiles of the current cut, with a measured pattern to compare against. */
 import { useMemo, useState } from 'react';
 import type { Structure } from '@/lib/structure/types';
+import type { PowderCurve } from '@/lib/worker/protocol';
 import { powderParamsSchema, zoneParamsSchema } from '@/lib/diffraction/params';
 import { parseWavelength } from '@/lib/diffraction/wavelengths';
 import { readMeasured, type MeasuredPattern } from '@/lib/formats/measured';
 import { comparePatterns } from '@/lib/diffraction/compare';
 import { ZonePattern } from '@/components/plots/ZonePattern';
 import { PowderPlot } from '@/components/plots/PowderPlot';
-import { useJob } from './useJob';
+import { resultKey, slotOf, useResultsStore, type DiffractionForm, type DiffractionKind, type MeasuredRef } from './resultsStore';
 import { Progress } from './Progress';
 import { plainError } from '@/lib/zod-text';
 import { describeSchema } from '@/components/forms/describe';
@@ -42,22 +43,34 @@ export interface DatasetTarget {
   onStored: (d: DatasetRef) => void;
 }
 
-export function DiffractionPanel({ structure, fileBase, datasets = [], target }: { structure: Structure; fileBase: string; datasets?: DatasetRef[]; target?: DatasetTarget }) {
-  const [sub, setSub] = useState<'zone' | 'powder'>('zone');
-  const [axis, setAxis] = useState('5');
-  const [qmax, setQmax] = useState('3');
-  const [radiation, setRadiation] = useState<'xray' | 'neutron' | 'electron'>('xray');
-  const [wl, setWl] = useState(String(POWDER_DEFAULTS.wavelength));
-  const [tt0, setTt0] = useState(String(POWDER_DEFAULTS.twoThetaMin));
-  const [tt1, setTt1] = useState(String(POWDER_DEFAULTS.twoThetaMax));
-  const [fwhm, setFwhm] = useState('0.15');
-  // What is laid over the simulation: a local file (kept as File so it can be stored) or a project dataset.
-  const [measured, setMeasured] = useState<{ name: string; data: MeasuredPattern; file?: File; datasetId?: string } | null>(null);
+/** The panel's settings before anything was typed. */
+const FORM_DEFAULTS: DiffractionForm = { sub: 'zone', axis: '5', qmax: '3', radiation: 'xray', wl: String(POWDER_DEFAULTS.wavelength), tt0: String(POWDER_DEFAULTS.twoThetaMin), tt1: String(POWDER_DEFAULTS.twoThetaMax), fwhm: '0.15' };
+
+/**
+ * `modelKey` names the model the structure was cut from (results are kept per model and settings, so a
+ * pattern of one model is never shown for another).
+ */
+export function DiffractionPanel({ structure, fileBase, datasets = [], target, modelKey }: { structure: Structure; fileBase: string; datasets?: DatasetRef[]; target?: DatasetTarget; modelKey?: string }) {
+  const scope = target?.projectId ?? 'scratch';
+  const model = modelKey ?? 'current';
+  const scoped = useResultsStore((st) => st.scopes[scope]);
+  const slots = useResultsStore((st) => st.slots);
+  const store = useResultsStore.getState;
+  const form = scoped?.form ?? FORM_DEFAULTS;
+  const measured = scoped?.measured ?? null;
+  const { sub, axis, qmax, radiation, wl, tt0, tt1, fwhm } = form;
+  const set = (patch: Partial<DiffractionForm>) => store().setForm(scope, FORM_DEFAULTS, patch);
+  const setSub = (v: DiffractionKind) => set({ sub: v });
+  const setAxis = (v: string) => set({ axis: v });
+  const setQmax = (v: string) => set({ qmax: v });
+  const setRadiation = (v: DiffractionForm['radiation']) => set({ radiation: v });
+  const setWl = (v: string) => set({ wl: v });
+  const setTt0 = (v: string) => set({ tt0: v });
+  const setTt1 = (v: string) => set({ tt1: v });
+  const setFwhm = (v: string) => set({ fwhm: v });
+  const setMeasured = (m: MeasuredRef | null | ((old: MeasuredRef | null) => MeasuredRef | null)) => store().setMeasured(scope, FORM_DEFAULTS, m);
   const [measErr, setMeasErr] = useState<string | null>(null);
   const [keepState, setKeepState] = useState<{ busy?: boolean; ok?: string; error?: string }>({});
-  const zone = useJob<'zone'>('diffraction');
-  const powder = useJob<'powder'>('diffraction');
-
   const zoneInput = { axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax) };
   const zoneCheck = zoneParamsSchema.safeParse(zoneInput, { error: plainError });
   const zoneErr = formMessages(firstPerField(zoneCheck.error), ZONE_FORM, zoneInput);
@@ -74,15 +87,24 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
   const rangeErr = [powderErr.get('twoThetaMin'), powderErr.get('twoThetaMax')].filter((m): m is string => !!m);
   const fwhmErr = !(Number(fwhm) > 0 && Number(fwhm) <= MAX_FWHM) ? `Peak width: must be more than 0° and at most ${MAX_FWHM}°` : null;
 
+  // Which result is shown: the one computed for this model with exactly these settings, or none.
+  const zoneSettings = { kind: 'zone' as const, axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax), radiation };
+  const powderSettings = { kind: 'powder' as const, wavelength: lambda ?? wl, radiation, twoThetaMin: numberOrText(tt0), twoThetaMax: numberOrText(tt1), step: powderCheck.success ? powderCheck.data.profile.step : null, fwhm: numberOrText(fwhm) };
+  const zoneKey = resultKey(scope, model, zoneSettings);
+  const powderKey = resultKey(scope, model, powderSettings);
+  const zone = { ...slotOf<'zone'>(slots, zoneKey), cancel: () => store().cancel(zoneKey) };
+  const powder = { ...slotOf<'powder'>(slots, powderKey), cancel: () => store().cancel(powderKey) };
+
   // A comparison that cannot be made says why (e.g. the measured range lies outside the simulated one).
+  const curve = (slots[powderKey]?.result ?? null) as PowderCurve | null;
   const { comparison, compareErr } = useMemo(() => {
-    if (!measured || !powder.result) return { comparison: null, compareErr: null };
+    if (!measured || !curve) return { comparison: null, compareErr: null };
     try {
-      return { comparison: comparePatterns(measured.data, powder.result, powder.result.peaks, { wavelength: powder.result.wavelength, background: true }), compareErr: null };
+      return { comparison: comparePatterns(measured.data, curve, curve.peaks, { wavelength: curve.wavelength, background: true }), compareErr: null };
     } catch (e) {
-      return { comparison: null, compareErr: compareMessage((e as Error).message, measured.data, powder.result.twoTheta) };
+      return { comparison: null, compareErr: compareMessage((e as Error).message, measured.data, curve.twoTheta) };
     }
-  }, [measured, powder.result]);
+  }, [measured, curve]);
 
   const loadText = (name: string, text: string, from: { file?: File; datasetId?: string }) => {
     setKeepState({});
@@ -127,7 +149,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
             onSubmit={(e) => {
               e.preventDefault();
               if (!zoneCheck.success) return;
-              void zone.start({ kind: 'zone', structure, axis: axis.replace(/\s+/g, ''), qmax: Number(qmax), slab: 0, radiation });
+              void store().run(zoneKey, 'diffraction', { kind: 'zone', structure, axis: zoneSettings.axis, qmax: Number(qmax), slab: 0, radiation });
             }}
           >
             <div>
@@ -148,7 +170,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
               <label htmlFor="zone-rad" className="block text-xs text-ink-soft">
                 Radiation
               </label>
-              <select id="zone-rad" className={input} value={radiation} onChange={(e) => setRadiation(e.target.value as typeof radiation)}>
+              <select id="zone-rad" className={input} value={radiation} onChange={(e) => setRadiation(e.target.value as DiffractionForm['radiation'])}>
                 <option value="xray">X-ray</option>
                 <option value="neutron">Neutron</option>
                 <option value="electron">Electron</option>
@@ -172,7 +194,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
               e.preventDefault();
               if (lambda === null || !powderCheck.success || fwhmErr) return;
               const p = powderCheck.data;
-              void powder.start({ kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm) });
+              void store().run(powderKey, 'diffraction', { kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm) });
             }}
           >
             <div>
@@ -203,7 +225,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target }:
               <label htmlFor="pw-rad" className="block text-xs text-ink-soft">
                 Radiation
               </label>
-              <select id="pw-rad" className={input} value={radiation} onChange={(e) => setRadiation(e.target.value as typeof radiation)}>
+              <select id="pw-rad" className={input} value={radiation} onChange={(e) => setRadiation(e.target.value as DiffractionForm['radiation'])}>
                 <option value="xray">X-ray</option>
                 <option value="neutron">Neutron</option>
                 <option value="electron">Electron</option>

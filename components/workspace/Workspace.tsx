@@ -321,6 +321,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
               <DiffractionPanel
                 structure={structure}
                 fileBase={fileBase}
+                modelKey={cutFor ?? undefined}
                 datasets={datasetList}
                 target={project && !lab ? { projectId: project.id, canEdit: project.canEdit, onStored: (d) => setDatasetList((l) => [d, ...l.filter((x) => x.id !== d.id)]) } : undefined}
               />

@@ -94,7 +94,7 @@ describe('journey', () => {
     await page.getByRole('tab', { name: 'Diffraction' }).click();
     await page.getByRole('tab', { name: 'Powder pattern' }).click();
     await page.getByRole('button', { name: 'Compute powder pattern' }).click();
-    await page.waitForSelector('svg[aria-label="Powder pattern"] path', { timeout: 90_000 });
+    await page.waitForSelector('[aria-label="Powder pattern"] canvas', { timeout: 90_000 });
     const curve = await download(page, () => page.getByRole('button', { name: 'CSV' }).click());
     const rows = curve.text.trim().split('\n');
     expect(rows[0]).toBe('two_theta_deg,calculated');

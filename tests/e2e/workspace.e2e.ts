@@ -97,6 +97,12 @@ describe('workspace', () => {
     await page.locator('svg[aria-label^="Zone-axis"] circle[aria-label^="spot"]').last().hover({ force: true });
     await expect.poll(() => page.locator('[data-testid=spot-indices]').count()).toBe(1);
     await screenshot(page, 'workspace-zone');
+    // The pattern is kept: leaving the tab and the sub-tab and coming back shows the same spots, no recompute.
+    await page.getByRole('tab', { name: '3D model' }).click();
+    await page.getByRole('tab', { name: 'Diffraction' }).click();
+    await page.getByRole('tab', { name: 'Powder pattern' }).click();
+    await page.getByRole('tab', { name: 'Zone-axis pattern' }).click();
+    expect(await page.locator('svg[aria-label^="Zone-axis"] circle[aria-label^="spot"]').count()).toBe(spots);
 
     await page.getByRole('tab', { name: 'Perpendicular space' }).click();
     await page.waitForTimeout(500);
