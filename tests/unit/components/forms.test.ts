@@ -123,9 +123,9 @@ describe('form fields from the JSON Schema', () => {
 });
 
 describe('starting values', () => {
-  it('every family starts from a model its schema accepts, octagonal (no starter) from its schema’s example', () => {
+  it('every family starts from a model its schema accepts (its starter)', () => {
     for (const family of FAMILIES) expect(validate(starterParams(family)), family).toBeUndefined();
-    expect(starterParams('octagonal')).toMatchObject({ family: 'octagonal', radius: 10 });
+    expect(starterParams('octagonal')).toMatchObject({ family: 'octagonal', approximant: { p: 12, q: 5 } });
   });
 
   it('switching a group on, a shape or a cut starts from values the schema accepts', () => {
