@@ -24,8 +24,10 @@ export function AtomReadout({ structure, store, measurement }: { structure: Stru
   const last = picks.length - 1;
   const moved = (k: number) => measurement.shifts[k].some((x) => x !== 0);
   return (
-    <div className="rounded-lg border border-rule bg-card px-3 py-2 text-sm" data-testid="atom-readout" aria-live="polite">
-      <table className="w-full font-mono text-xs">
+    // Capped and scrolling, so three picks never squeeze the view above; the table scrolls sideways rather
+    // than wrapping its numbers in a narrow window.
+    <div className="max-h-36 overflow-auto rounded-lg border border-rule bg-card px-3 py-2 text-sm" data-testid="atom-readout" aria-live="polite">
+      <table className="w-full whitespace-nowrap font-mono text-xs [&_td]:pr-3 [&_th]:pr-3">
         <thead className="text-left text-ink-soft">
           <tr>
             <th className="font-medium">atom</th>

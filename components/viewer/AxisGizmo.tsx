@@ -31,7 +31,7 @@ export function AxisGizmo() {
   if (!font) return null;
   return (
     <GizmoHelper alignment="bottom-left" margin={[52, 52]} renderPriority={2}>
-      <GizmoViewport disabled axisColors={AXIS_COLOURS} labelColor="#fffdf8" font={font} labels={['x', 'y', 'z']} scale={34} />
+      <GizmoViewport disabled hideNegativeAxes axisColors={AXIS_COLOURS} labelColor="#fffdf8" font={font} labels={['x', 'y', 'z']} scale={34} />
     </GizmoHelper>
   );
 }

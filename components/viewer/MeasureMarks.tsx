@@ -2,14 +2,15 @@
 /**
  * The measurement drawn in the scene: a line from each pick to the next with its length beside it, the
  * angle at the middle pick, and — when the nearest image of an atom lies outside the drawn cell — a ghost
- * mark where that image sits, so the line ends on something. Lines are drei's Line (screen-space width,
- * drawn over the atoms so a measurement through a cluster stays visible); labels are drei's Html, plain
+ * mark where that image sits, so the line ends on something (the readout names the image's translation;
+ * a second label there would crowd the short lines that nearest images give). Lines are drei's Line (screen-space width,
+ * drawn over the atoms and after the translucent pick shells, so a measurement through a cluster stays
+ * visible and keeps its colour); labels are drei's Html, plain
  * DOM that takes the page's fonts and colours.
  */
 import { Html, Line } from '@react-three/drei';
 import { useEffect, useMemo } from 'react';
 import type { Measurement } from '@/lib/view/measure';
-import { formatIndices } from '@/lib/view/axes';
 import { createImpostorGeometry, createImpostorMaterial, type ClipUniforms } from './impostorMaterial';
 
 /** Brass from the palette (globals.css --color-brass): the colour of picks and measurements. */
@@ -42,7 +43,7 @@ export function MeasureMarks({ measurement, radii, clip }: { measurement: Measur
         const mid: [number, number, number] = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2, (a[2] + b[2]) / 2];
         return (
           <group key={k}>
-            <Line points={[a, b]} color={MEASURE_COLOUR} lineWidth={2.5} depthTest={false} renderOrder={12} name="measure-line" />
+            <Line points={[a, b]} color={MEASURE_COLOUR} lineWidth={2.5} depthTest={false} transparent renderOrder={12} name="measure-line" />
             <Html position={mid} center zIndexRange={[30, 20]}>
               <div className={chip} data-testid="measure-label">
                 {len.toFixed(3)} Å
@@ -60,14 +61,7 @@ export function MeasureMarks({ measurement, radii, clip }: { measurement: Measur
       )}
       {shifts.map((s, k) =>
         s.some((x) => x !== 0) ? (
-          <group key={`image-${k}`}>
-            <GhostMark at={points[k]} radius={radii[atoms[k]] * 1.3 + 0.1} clip={clip} />
-            <Html position={points[k]} center zIndexRange={[30, 20]}>
-              <div className={`${chip} translate-y-5 border-rule text-ink-soft`}>
-                #{atoms[k]} {formatIndices(s)}
-              </div>
-            </Html>
-          </group>
+          <GhostMark key={`image-${k}`} at={points[k]} radius={radii[atoms[k]] * 1.3 + 0.1} clip={clip} />
         ) : null,
       )}
     </group>

@@ -178,6 +178,7 @@ export function StructureViewer({
               store={store}
               centre={data.centre}
               radius={data.radius * Math.max(1, radiusScale)}
+              pad={data.largestAtom * radiusScale}
               positions={structure.positions}
               radii={radii}
               cell={structure.cell}

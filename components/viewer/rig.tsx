@@ -11,13 +11,14 @@ import { useFrame, useThree } from '@react-three/fiber';
 import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import * as THREE from 'three';
 import type { Cell } from '@/lib/structure/types';
-import { directionVector, viewPose } from '@/lib/view/axes';
+import { directionVector, uprightFor, viewPose } from '@/lib/view/axes';
+import { frameView } from '@/lib/view/frame';
 import { pickAtom } from '@/lib/view/pick';
 import type { Ball, Slab } from '@/lib/view/slab';
 import { visibleMask } from '@/lib/view/slab';
 import type { Vec3 } from '@/lib/math/vec3';
 import type { CameraMode, ViewStore } from './store';
-import { CameraPair, type Pose } from './viewCamera';
+import { CameraPair, FOV, type Pose } from './viewCamera';
 import { renderTimed } from './timing';
 
 export interface ViewerHandle {
@@ -38,7 +39,10 @@ export interface ViewerHandle {
 export interface RigProps {
   store: ViewStore;
   centre: Vec3;
+  /** Bounding sphere radius (near and far planes). */
   radius: number;
+  /** The largest drawn atom radius, the margin around every point when framing. */
+  pad: number;
   positions: Float64Array;
   radii: Float32Array;
   cell?: Cell;
@@ -72,7 +76,7 @@ function poseOf(controls: CameraControlsImpl, camera: THREE.PerspectiveCamera | 
   };
 }
 
-export function Rig({ store, centre, radius, positions, radii, cell, slab, ball, handleRef, exposeTestHook }: RigProps) {
+export function Rig({ store, centre, radius, pad, positions, radii, cell, slab, ball, handleRef, exposeTestHook }: RigProps) {
   const gl = useThree((s) => s.gl);
   const size = useThree((s) => s.size);
   const set = useThree((s) => s.set);
@@ -84,20 +88,53 @@ export function Rig({ store, centre, radius, positions, radii, cell, slab, ball,
   const [pair] = useState(() => new CameraPair());
   const camera = pair.of(mode);
   const [controls, setControls] = useState<CameraControlsImpl | null>(null);
+  const controlsRef = useRef<CameraControlsImpl | null>(null);
+  useEffect(() => {
+    controlsRef.current = controls;
+  }, [controls]);
   const frameCountRef = useRef(0);
+  // Framing sees the atoms and the cell's corners.
+  const corners = useMemo<Vec3[]>(() => {
+    if (!cell) return [];
+    const [a, b, c] = cell;
+    return Array.from({ length: 8 }, (_, k) => [0, 1, 2].map((d) => (k & 1 ? a[d] : 0) + (k & 2 ? b[d] : 0) + (k & 4 ? c[d] : 0)) as Vec3);
+  }, [cell]);
   // The last view, so switching projection (which gives the controls a new camera) keeps it.
   const poseRef = useRef<{ pose: Pose; mode: CameraMode } | null>(null);
   const framedRef = useRef<string>('');
   const snappedRef = useRef(0);
 
+  // A resized view keeps what it shows at the same fraction of its height in both projections (the
+  // perspective camera does so by itself; the orthographic zoom is in pixels per Å and must follow).
   useLayoutEffect(() => {
+    const before = pair.height;
     pair.setSize(size.width, size.height);
+    const c = controlsRef.current;
+    if (c && c.camera instanceof THREE.OrthographicCamera && before > 1) void c.zoomTo(c.camera.zoom * (pair.height / before), false);
     invalidate();
   }, [pair, size, invalidate]);
 
   useLayoutEffect(() => {
     set({ camera });
   }, [camera, set]);
+
+  /** Look along `back` (towards the camera) with `up`, standing just far enough back to see everything. */
+  const frameAlong = (c: CameraControlsImpl, back: THREE.Vector3, up: THREE.Vector3) => {
+    const f = frameView(positions, corners, {
+      back: [back.x, back.y, back.z],
+      up: [up.x, up.y, up.z],
+      fovY: (FOV * Math.PI) / 180,
+      aspect: pair.width / pair.height,
+      pad,
+    });
+    const [tx, ty, tz] = f.target;
+    // The orthographic camera's distance only sets near and far: keep it outside the structure.
+    const d = camera instanceof THREE.OrthographicCamera ? Math.max(f.distance, radius * 2) : f.distance;
+    camera.up.copy(up);
+    c.updateCameraUp();
+    void c.setLookAt(tx + back.x * d, ty + back.y * d, tz + back.z * d, tx, ty, tz, false);
+    if (camera instanceof THREE.OrthographicCamera) void c.zoomTo(pair.height / (2 * f.halfHeight), false);
+  };
 
   // Set up each controls instance (a new one comes with each camera), then frame or carry the view over.
   useLayoutEffect(() => {
@@ -114,35 +151,30 @@ export function Rig({ store, centre, radius, positions, radii, cell, slab, ball,
       void c.setLookAt(p.position.x, p.position.y, p.position.z, p.target.x, p.target.y, p.target.z, false);
       if (camera instanceof THREE.OrthographicCamera) void c.zoomTo(p.zoom, false);
     } else {
-      // A new structure, or "frame everything": look along the current direction (z at first) and fit.
+      // A new structure, or "frame everything": keep the direction (down z at first) and fit.
       framedRef.current = key;
-      const dir = last ? last.pose.position.clone().sub(last.pose.target).normalize() : new THREE.Vector3(0, 0, 1);
-      if (last) camera.up.copy(last.pose.up);
-      c.updateCameraUp();
-      const p = new THREE.Vector3(...centre).addScaledVector(dir, radius * 3);
-      void c.setLookAt(p.x, p.y, p.z, centre[0], centre[1], centre[2], false);
-      void c.fitToSphere(new THREE.Sphere(new THREE.Vector3(...centre), radius * 1.05), false);
+      const back = last ? last.pose.position.clone().sub(last.pose.target).normalize() : new THREE.Vector3(0, 0, 1);
+      const up = last ? last.pose.up.clone() : new THREE.Vector3(0, 1, 0);
+      frameAlong(c, back, up.addScaledVector(back, -up.dot(back)).normalize());
     }
     c.update(0);
     poseRef.current = { pose: poseOf(c, camera), mode };
     invalidate();
-  }, [controls, camera, mode, pair, centre, radius, resetRequest, invalidate]);
+    // frameAlong reads positions, corners and pad; centre and radius change with them.
+  }, [controls, camera, mode, pair, centre, radius, resetRequest, invalidate]); // eslint-disable-line react-hooks/exhaustive-deps
 
-  // Snap: look down the chosen axis through the structure's centre, as upright as possible.
+  // Snap: look down the chosen axis, upright to the cell (or to x y z), and frame what is seen from there.
   useLayoutEffect(() => {
     const axis = store.getState().axis;
     // Only a new request snaps: a new controls instance (projection switch) keeps the turned view.
     if (!controls || controls.camera !== camera || !axis || snapRequest === snappedRef.current) return;
     snappedRef.current = snapRequest;
     const d = directionVector(axis, cell);
-    const now = poseOf(controls, camera);
-    const pose = viewPose(centre, d, Math.max(now.position.distanceTo(now.target), 1), [camera.up.x, camera.up.y, camera.up.z]);
-    camera.up.set(...pose.up);
-    controls.updateCameraUp();
-    void controls.setLookAt(...pose.position, ...centre, false);
+    const candidates: Vec3[] = cell ? [cell[2], cell[1], cell[0]] : [[0, 0, 1], [0, 1, 0], [1, 0, 0]];
+    const pose = viewPose([0, 0, 0], d, 1, uprightFor(d, candidates));
+    frameAlong(controls, new THREE.Vector3(...d), new THREE.Vector3(...pose.up));
     controls.update(0);
     invalidate();
-    // centre is read, not watched: a new structure frames itself above.
   }, [controls, snapRequest, store, cell, invalidate]); // eslint-disable-line react-hooks/exhaustive-deps
 
   // Shown atoms for picking: the same rule as the shader's uniforms.

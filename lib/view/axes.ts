@@ -122,6 +122,26 @@ export function viewPose(target: Vec3, axis: Vec3, distance: number, upHint: Vec
 }
 
 /**
+ * An up direction for looking down `axis`: of the candidates (the cell rows c, b, a, or z, y, x without a
+ * cell), the one most nearly perpendicular to the axis, the earlier one on a tie. Snapping then gives the
+ * same picture every time, square to the cell: down [1 0 0] the cube stays a square with c up, and down a
+ * five-fold axis such as [0 1 τ] the perpendicular two-fold axis [1 0 0] points up.
+ */
+export function uprightFor(axis: Vec3, candidates: readonly Vec3[]): Vec3 {
+  const d = normalize(axis);
+  let best = candidates[0];
+  let bestDot = Infinity;
+  for (const c of candidates) {
+    const x = Math.abs(dot(normalize(c), d));
+    if (x < bestDot - 1e-9) {
+      bestDot = x;
+      best = c;
+    }
+  }
+  return normalize(best);
+}
+
+/**
  * A direction as a person chooses it: an icosahedral symmetry axis (fold and which one), a lattice
  * direction [uvw] or a plane normal (hkl).
  */

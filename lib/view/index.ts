@@ -8,3 +8,4 @@ export * from './lattice2';
 export * from './unwrap-tile';
 export * from './minimum-image';
 export * from './measure';
+export * from './frame';
