@@ -199,7 +199,7 @@ export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPane
           <AxisButtons
             title="Cartesian"
             items={[
-              { direction: { kind: 'uvw', uvw: [0, 0, 1] }, label: 'z', name: 'z, the stacking or tenfold axis' },
+              { direction: { kind: 'uvw', uvw: [0, 0, 1] }, label: 'z · tenfold', name: 'z, the stacking or tenfold axis' },
               { direction: { kind: 'uvw', uvw: [1, 0, 0] }, label: 'x', name: 'x' },
               { direction: { kind: 'uvw', uvw: [0, 1, 0] }, label: 'y', name: 'y' },
             ]}

@@ -265,7 +265,10 @@ export function Rig({ store, centre, radius, pad, positions, radii, cell, slab, 
       snapshot() {
         pair.fitDepth(camera);
         gl.render(scene, camera);
-        return gl.domElement.toDataURL('image/png');
+        const url = gl.domElement.toDataURL('image/png');
+        // The picture has the structure only; draw the full frame (with the axis gizmo) again on screen.
+        invalidate();
+        return url;
       },
       renderFrames(k) {
         pair.fitDepth(camera);
@@ -288,7 +291,7 @@ export function Rig({ store, centre, radius, pad, positions, radii, cell, slab, 
       if (handleRef.current === h) handleRef.current = null;
       if (w.__tauforgeViewer === h) delete w.__tauforgeViewer;
     };
-  }, [gl, scene, camera, pair, positions, handleRef, exposeTestHook, store]);
+  }, [gl, scene, camera, pair, positions, handleRef, exposeTestHook, store, invalidate]);
 
   // Short smoothing: in software WebGL every extra frame costs, and a viewer should follow the hand.
   return (
