@@ -17,7 +17,7 @@ import type { Cell } from '../math/cell';
 import { determinant, inverse, type Mat3 } from '../math/mat3';
 import { dot, type Vec3 } from '../math/vec3';
 
-export interface Image {
+export interface PeriodicImage {
   /** The shortest displacement d − t, in Å. */
   vector: Vec3;
   /** The lattice translation t removed, as integer multiples [n m l] of the cell rows a, b, c. */
@@ -93,7 +93,7 @@ export class PeriodicCell {
   }
 
   /** The shortest image of displacement d and the lattice translation that gives it. */
-  nearest(d: Vec3): Image {
+  nearest(d: Vec3): PeriodicImage {
     const phi = PeriodicCell.coords(d, this.toReduced);
     const r = this.reduced;
     const lo = phi.map((p, j) => Math.ceil(p - this.bound[j] - 1e-9));
