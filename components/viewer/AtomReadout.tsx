@@ -1,15 +1,18 @@
 'use client';
-/** What is known about the picked atoms, and the distance and angle between them. */
+/** What is known about the picked atoms, and the distances and angle between them. */
 import type { Structure } from '@/lib/structure/types';
 import { toFractional } from '@/lib/math/frac';
 import { symbolOf } from '@/lib/structure';
-import { angleAt, distanceBetween } from '@/lib/view/pick';
+import { formatIndices } from '@/lib/view/axes';
+import type { Measurement } from '@/lib/view/measure';
 import type { ViewStore } from './store';
 
 const f3 = (x: number) => x.toFixed(3);
 
-export function AtomReadout({ structure, store }: { structure: Structure; store: ViewStore }) {
-  const picks = store((s) => s.picks).filter((i) => i < structure.species.length);
+export function AtomReadout({ structure, store, measurement }: { structure: Structure; store: ViewStore; measurement: Measurement }) {
+  const nearestImage = store((s) => s.nearestImage);
+  const setNearestImage = store((s) => s.setNearestImage);
+  const picks = measurement.atoms;
   const p = structure.positions;
   if (picks.length === 0) {
     return (
@@ -19,9 +22,12 @@ export function AtomReadout({ structure, store }: { structure: Structure; store:
     );
   }
   const last = picks.length - 1;
+  const moved = (k: number) => measurement.shifts[k].some((x) => x !== 0);
   return (
-    <div className="rounded-lg border border-rule bg-card px-3 py-2 text-sm" data-testid="atom-readout" aria-live="polite">
-      <table className="w-full font-mono text-xs">
+    // Capped and scrolling, so three picks never squeeze the view above; the table scrolls sideways rather
+    // than wrapping its numbers in a narrow window.
+    <div className="max-h-36 overflow-auto rounded-lg border border-rule bg-card px-3 py-2 text-sm" data-testid="atom-readout" aria-live="polite">
+      <table className="w-full whitespace-nowrap font-mono text-xs [&_td]:pr-3 [&_th]:pr-3">
         <thead className="text-left text-ink-soft">
           <tr>
             <th className="font-medium">atom</th>
@@ -56,14 +62,28 @@ export function AtomReadout({ structure, store }: { structure: Structure; store:
         </tbody>
       </table>
       {picks.length >= 2 && (
-        <p className="mt-1 text-xs" data-testid="measure">
-          distance #{picks[last - 1]}–#{picks[last]}: <b className="font-mono">{distanceBetween(p, picks[last - 1], picks[last]).toFixed(3)} Å</b>
-          {picks.length >= 3 && (
-            <>
-              {' · '}angle #{picks[0]}–#{picks[1]}–#{picks[2]}: <b className="font-mono">{angleAt(p, picks[0], picks[1], picks[2]).toFixed(2)}°</b>
-            </>
+        <div className="mt-1 flex flex-wrap items-center gap-x-3 gap-y-1 text-xs">
+          <p data-testid="measure">
+            {measurement.lengths.map((len, k) => (
+              <span key={k}>
+                {k > 0 ? ' · ' : ''}
+                distance #{picks[k]}–#{picks[k + 1]}
+                {moved(k + 1) ? ` (image ${formatIndices(measurement.shifts[k + 1])})` : ''}: <b className="font-mono">{len.toFixed(3)} Å</b>
+              </span>
+            ))}
+            {measurement.angle !== null && (
+              <>
+                {' · '}angle #{picks[0]}–#{picks[1]}–#{picks[2]}: <b className="font-mono">{measurement.angle.toFixed(2)}°</b>
+              </>
+            )}
+          </p>
+          {structure.cell && (
+            <label className="flex items-center gap-1.5" title="Measure to the periodic image of each atom that is nearest the atom before it (the minimum image), not to the copy inside the drawn cell">
+              <input type="checkbox" checked={nearestImage} onChange={(e) => setNearestImage(e.target.checked)} />
+              nearest image
+            </label>
           )}
-        </p>
+        </div>
       )}
     </div>
   );

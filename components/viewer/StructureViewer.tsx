@@ -12,7 +12,11 @@ import { directionVector } from '@/lib/view/axes';
 import { projectionRange, slabAround, type Ball, type Slab } from '@/lib/view/slab';
 import type { Vec3 } from '@/lib/math/vec3';
 import { applyClip, createClipUniforms } from './impostorMaterial';
+import { measurePicks } from '@/lib/view/measure';
+import { PeriodicCell } from '@/lib/view/minimum-image';
 import { Bonds, CellEdges, ImpostorAtoms, NaiveAtoms, PickMarks } from './layers';
+import { MeasureMarks } from './MeasureMarks';
+import { AxisGizmo } from './AxisGizmo';
 import { Rig, type ViewerHandle } from './rig';
 import { atomRadii, sceneData } from './sceneData';
 import { useViewStore, type ViewStore } from './store';
@@ -36,6 +40,8 @@ export interface StructureViewerProps {
   showPanel?: boolean;
   /** Show the picked-atom readout under the view (default true). */
   showReadout?: boolean;
+  /** Offer the full-window button (default true). */
+  allowFullWindow?: boolean;
   /** Classes for the outer box; give it a height (default h-[640px]). */
   className?: string;
   /** Also put the handle on window.__tauforgeViewer (lab pages, benchmark, browser tests). */
@@ -77,6 +83,7 @@ export function StructureViewer({
   drawMode = 'impostor',
   showPanel = true,
   showReadout = true,
+  allowFullWindow = true,
   className = 'h-[640px]',
   exposeTestHook = false,
   ref,
@@ -85,11 +92,15 @@ export function StructureViewer({
   const picks = store((s) => s.picks);
   const bonds = store((s) => s.bonds);
   const showCell = store((s) => s.showCell);
+  const nearestImage = store((s) => s.nearestImage);
+  const fullWindow = store((s) => s.fullWindow) && allowFullWindow;
+  const controlsOpen = store((s) => s.controlsOpen);
   const handleRef = useRef<ViewerHandle | null>(null);
   useImperativeHandle(ref, () => ({
     snapshot: () => handleRef.current?.snapshot() ?? '',
     renderFrames: (k) => handleRef.current?.renderFrames(k) ?? { msPerFrame: NaN, triangles: 0, calls: 0 },
     atomScreen: (i) => handleRef.current?.atomScreen(i) ?? null,
+    pointScreen: (p) => handleRef.current?.pointScreen(p) ?? null,
     frames: () => handleRef.current?.frames() ?? 0,
     store,
   }));
@@ -102,6 +113,33 @@ export function StructureViewer({
   const [invalidate, setInvalidate] = useState<(() => void) | null>(null);
   const [bondCount, setBondCount] = useState<{ n: number; truncated: boolean } | null>(null);
   const onBondCount = useCallback((n: number, truncated: boolean) => setBondCount({ n, truncated }), []);
+  const lattice = useMemo(() => (structure.cell ? new PeriodicCell(structure.cell) : null), [structure]);
+  const measurement = useMemo(
+    () => measurePicks(structure.positions, picks.filter((i) => i < structure.species.length), nearestImage ? lattice : null),
+    [structure, picks, nearestImage, lattice],
+  );
+
+  // Full window: Esc leaves (before the canvas's own Esc, which clears picks), the page behind stops
+  // scrolling, and leaving the viewer (another tab, another cut) never strands the page in it.
+  const setFullWindow = store((s) => s.setFullWindow);
+  useEffect(() => {
+    if (!fullWindow) return;
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key !== 'Escape') return;
+      e.stopPropagation();
+      e.preventDefault();
+      setFullWindow(false);
+    };
+    window.addEventListener('keydown', onKey, true);
+    const html = document.documentElement;
+    const overflow = html.style.overflow;
+    html.style.overflow = 'hidden';
+    return () => {
+      window.removeEventListener('keydown', onKey, true);
+      html.style.overflow = overflow;
+    };
+  }, [fullWindow, setFullWindow]);
+  useEffect(() => () => setFullWindow(false), [setFullWindow]);
 
   // Atom indices refer to this structure only: forget picks when it changes.
   useEffect(() => {
@@ -116,12 +154,17 @@ export function StructureViewer({
 
   useEffect(() => {
     invalidate?.();
-  }, [invalidate, radiusScale, picks, bonds, showCell, drawMode]);
+  }, [invalidate, radiusScale, picks, bonds, showCell, drawMode, measurement]);
 
+  const panelShown = showPanel && controlsOpen;
   return (
-    <div className={`grid min-h-0 gap-3 ${showPanel ? 'grid-cols-[minmax(0,1fr)_17rem]' : 'grid-cols-1'} ${className}`}>
+    <div
+      className={`grid min-h-0 gap-3 ${panelShown ? 'grid-cols-[minmax(0,1fr)_17rem]' : 'grid-cols-1'} ${fullWindow ? 'fixed inset-0 z-50 bg-paper p-3' : className}`}
+      data-testid="structure-viewer"
+      data-full-window={fullWindow ? 'true' : undefined}
+    >
       <div className="flex min-h-0 flex-col gap-2">
-        <div className="relative min-h-0 flex-1 overflow-hidden rounded-lg border border-rule bg-card" data-testid="viewer-canvas">
+        <div className="relative isolate min-h-0 flex-1 overflow-hidden rounded-lg border border-rule bg-card" data-testid="viewer-canvas">
           <Canvas
             frameloop="demand"
             dpr={1}
@@ -135,6 +178,7 @@ export function StructureViewer({
               store={store}
               centre={data.centre}
               radius={data.radius * Math.max(1, radiusScale)}
+              pad={data.largestAtom * radiusScale}
               positions={structure.positions}
               radii={radii}
               cell={structure.cell}
@@ -149,15 +193,18 @@ export function StructureViewer({
               <ImpostorAtoms batches={data.batches} clip={clip} radiusScale={radiusScale} instanced={drawMode === 'instanced'} />
             )}
             <PickMarks positions={structure.positions} picks={picks} radii={radii} clip={clip} />
+            <MeasureMarks measurement={measurement} radii={radii} clip={clip} />
             {bonds.on && (
               <Bonds positions={structure.positions} cutoff={bonds.cutoff} clip={clip} onCount={onBondCount} />
             )}
             {structure.cell && showCell && <CellEdges cell={structure.cell} />}
+            <AxisGizmo />
           </Canvas>
+          <ViewToolbar store={store} showPanel={showPanel} allowFullWindow={allowFullWindow} />
         </div>
-        {showReadout && <AtomReadout structure={structure} store={store} />}
+        {showReadout && <AtomReadout structure={structure} store={store} measurement={measurement} />}
       </div>
-      {showPanel && (
+      {panelShown && (
         <ViewerPanel
           structure={structure}
           store={store}
@@ -165,6 +212,36 @@ export function StructureViewer({
           slab={slab}
           note={bonds.on && bondCount ? `${bondCount.n.toLocaleString('en')} bonds${bondCount.truncated ? ' (limit reached)' : ''}` : undefined}
         />
+      )}
+    </div>
+  );
+}
+
+const toolButton = 'rounded-md border border-rule bg-card/90 px-2 py-0.5 text-xs font-medium text-ink shadow-sm hover:border-tide hover:text-tide';
+
+/** Over the view's top-right corner: show or hide the controls beside it, and full window on or off. */
+function ViewToolbar({ store, showPanel, allowFullWindow }: { store: ViewStore; showPanel: boolean; allowFullWindow: boolean }) {
+  const fullWindow = store((s) => s.fullWindow);
+  const controlsOpen = store((s) => s.controlsOpen);
+  const setFullWindow = store((s) => s.setFullWindow);
+  const setControlsOpen = store((s) => s.setControlsOpen);
+  return (
+    <div className="absolute right-2 top-2 z-40 flex gap-1.5">
+      {showPanel && (
+        <button type="button" className={toolButton} aria-expanded={controlsOpen} onClick={() => setControlsOpen(!controlsOpen)}>
+          {controlsOpen ? 'Hide view controls' : 'View controls'}
+        </button>
+      )}
+      {allowFullWindow && (
+        <button
+          type="button"
+          className={toolButton}
+          aria-pressed={fullWindow}
+          title={fullWindow ? 'Back to the page (Esc)' : 'Let the view fill the browser window'}
+          onClick={() => setFullWindow(!fullWindow)}
+        >
+          {fullWindow ? 'Leave full window (Esc)' : 'Full window'}
+        </button>
       )}
     </div>
   );

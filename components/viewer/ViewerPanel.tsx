@@ -3,7 +3,7 @@
 import { useEffect, useState } from 'react';
 import { saveAs } from 'file-saver';
 import type { Structure } from '@/lib/structure/types';
-import { axesOfFold, directionLabel, directionVector, type Direction, type Fold } from '@/lib/view/axes';
+import { axesOfFold, cellDirections, directionLabel, directionVector, formatIndices, icosahedralAxisLabel, type Direction, type Fold } from '@/lib/view/axes';
 import { projectionRange, type Slab } from '@/lib/view/slab';
 import type { Vec3 } from '@/lib/math/vec3';
 import type { ViewerHandle } from './rig';
@@ -42,6 +42,58 @@ function TripleInput({ label, value, onChange }: { label: string; value: Vec3; o
       ))}
     </div>
   );
+}
+
+interface AxisItem {
+  direction: Direction;
+  /** What the button shows: the indices. */
+  label: string;
+  /** What it is called to a screen reader: "Look down <name>". */
+  name: string;
+}
+
+const axisButton = 'rounded border px-1.5 py-0.5 font-mono text-[11px] leading-4';
+
+function sameDirection(a: Direction | null, b: Direction): boolean {
+  if (!a || a.kind !== b.kind) return false;
+  if (a.kind === 'fold' && b.kind === 'fold') return a.fold === b.fold && a.index === b.index;
+  if (a.kind === 'uvw' && b.kind === 'uvw') return a.uvw.every((x, k) => x === b.uvw[k]);
+  return false;
+}
+
+/** One family of axes: a heading and a button per axis, labelled with its indices. */
+function AxisButtons({ title, items, current, onLook }: { title: string; items: AxisItem[]; current: Direction | null; onLook: (d: Direction) => void }) {
+  return (
+    <div role="group" aria-label={title} className="space-y-0.5">
+      <p className="text-[11px] font-medium text-ink">{title}</p>
+      <div className="flex flex-wrap gap-1">
+        {items.map((it) => {
+          const on = sameDirection(current, it.direction);
+          return (
+            <button
+              key={it.name}
+              type="button"
+              aria-pressed={on}
+              aria-label={`Look down ${it.name}`}
+              className={`${axisButton} ${on ? 'border-tide bg-tide text-white' : 'border-tide/50 text-tide hover:bg-tide-pale'}`}
+              onClick={() => onLook(it.direction)}
+            >
+              {it.label}
+            </button>
+          );
+        })}
+      </div>
+    </div>
+  );
+}
+
+/** The axes of one fold, those along cube axes or diagonals ([1 0 0], [1 1 1]) first. */
+function foldButtons(fold: Fold): AxisItem[] {
+  const items = axesOfFold(fold).map((_, index) => {
+    const label = icosahedralAxisLabel(fold, index);
+    return { direction: { kind: 'fold', fold, index } as Direction, label, name: `${fold}-fold axis ${label}` };
+  });
+  return [...items.filter((i) => !i.label.includes('τ')), ...items.filter((i) => i.label.includes('τ'))];
 }
 
 type SlabKind = 'fold5' | 'fold3' | 'fold2' | 'uvw' | 'hkl';
@@ -85,8 +137,6 @@ export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPane
   useEffect(() => {
     if (!ico && slabIsFold) setSlab({ direction: { kind: 'uvw', uvw: [0, 0, 1] }, offset: 0 });
   }, [ico, slabIsFold, setSlab]);
-  const [fold3, setFold3] = useState(0);
-  const [fold2, setFold2] = useState(0);
   const [uvw, setUvw] = useState<Vec3>([0, 0, 1]);
   const basis = cell ? 'in cell axes' : 'Cartesian';
 
@@ -116,43 +166,47 @@ export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPane
       </Section>
 
       <Section title="Look down">
-        {ico ? (
-        <>
-        <div className="flex flex-wrap gap-1" role="group" aria-label="Five-fold axes">
-          {axesOfFold(5).map((_, i) => (
-            <button key={i} type="button" className={button} onClick={() => s.snapTo({ kind: 'fold', fold: 5, index: i })} aria-label={`Look down five-fold axis ${i + 1}`}>
-              5f·{i + 1}
-            </button>
-          ))}
-        </div>
-        <div className="grid grid-cols-[1fr_auto] gap-1">
-          <select className={input} aria-label="Three-fold axis" value={fold3} onChange={(e) => setFold3(Number(e.target.value))}>
-            {axesOfFold(3).map((_, i) => (
-              <option key={i} value={i}>
-                3-fold axis {i + 1}
-              </option>
+        {ico && (
+          <>
+            <p className="text-[11px] text-ink-soft">Symmetry axes, indices in the cubic setting</p>
+            {([5, 3, 2] as const).map((fold) => (
+              <AxisButtons
+                key={fold}
+                title={`${fold}-fold`}
+                items={foldButtons(fold)}
+                current={s.axis}
+                onLook={(d) => s.snapTo(d)}
+              />
             ))}
-          </select>
-          <button type="button" className={button} onClick={() => s.snapTo({ kind: 'fold', fold: 3, index: fold3 })}>
-            Look
-          </button>
-          <select className={input} aria-label="Two-fold axis" value={fold2} onChange={(e) => setFold2(Number(e.target.value))}>
-            {axesOfFold(2).map((_, i) => (
-              <option key={i} value={i}>
-                2-fold axis {i + 1}
-              </option>
-            ))}
-          </select>
-          <button type="button" className={button} onClick={() => s.snapTo({ kind: 'fold', fold: 2, index: fold2 })}>
-            Look
-          </button>
-        </div>
-        </>
-        ) : (
-          <button type="button" className={button} onClick={() => s.snapTo({ kind: 'uvw', uvw: [0, 0, 1] })}>
-            Look down z (stacking or tenfold axis)
-          </button>
+          </>
         )}
+        {cell ? (
+          <>
+            <p className="text-[11px] text-ink-soft">Cell rows [uvw]</p>
+            {(['edge', 'face', 'body'] as const).map((kind) => (
+              <AxisButtons
+                key={kind}
+                title={kind === 'edge' ? 'edges' : kind === 'face' ? 'face diagonals' : 'body diagonals'}
+                items={cellDirections()
+                  .filter((d) => d.kind === kind)
+                  .map((d) => ({ direction: { kind: 'uvw', uvw: d.uvw } as Direction, label: formatIndices(d.uvw), name: `cell row ${formatIndices(d.uvw)}` }))}
+                current={s.axis}
+                onLook={(d) => s.snapTo(d)}
+              />
+            ))}
+          </>
+        ) : !ico ? (
+          <AxisButtons
+            title="Cartesian"
+            items={[
+              { direction: { kind: 'uvw', uvw: [0, 0, 1] }, label: 'z · tenfold', name: 'z, the stacking or tenfold axis' },
+              { direction: { kind: 'uvw', uvw: [1, 0, 0] }, label: 'x', name: 'x' },
+              { direction: { kind: 'uvw', uvw: [0, 1, 0] }, label: 'y', name: 'y' },
+            ]}
+            current={s.axis}
+            onLook={(d) => s.snapTo(d)}
+          />
+        ) : null}
         <div className="grid grid-cols-[1fr_auto] items-center gap-1">
           <TripleInput label={`Direction [uvw] ${basis}`} value={uvw} onChange={setUvw} />
           <button type="button" className={button} disabled={uvw.every((x) => x === 0)} onClick={() => s.snapTo({ kind: 'uvw', uvw })}>
@@ -160,7 +214,7 @@ export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPane
           </button>
         </div>
         <p className="text-[11px] text-ink-soft">
-          [uvw] {basis}. Now: {s.axis ? directionLabel(s.axis) : 'free'}
+          [uvw] {basis}. Now: <span data-testid="view-axis">{s.axis ? directionLabel(s.axis) : 'free'}</span>
         </p>
       </Section>
 
@@ -185,7 +239,7 @@ export function ViewerPanel({ structure, store, handle, slab, note }: ViewerPane
             <select className={input} aria-label="Which axis" value={slabDir.index} onChange={(e) => s.setSlab({ direction: { ...slabDir, index: Number(e.target.value) } })}>
               {axesOfFold(slabDir.fold).map((_, i) => (
                 <option key={i} value={i}>
-                  axis {i + 1}
+                  {icosahedralAxisLabel(slabDir.fold, i)}
                 </option>
               ))}
             </select>

@@ -1,6 +1,7 @@
 /**
  * View state shared by the viewer and whatever panels sit beside it (the workspace mounts both).
- * Only what a person chose lives here — camera mode, axis, slab, cluster, picks, bonds, radii — never
+ * Only what a person chose lives here — camera mode, axis, slab, cluster, picks, bonds, radii, how the
+ * measurement reads a periodic cell, how much of the window the viewer takes — never
  * three.js objects, so any component can read and set it without touching the scene.
  */
 import { create, type StoreApi, type UseBoundStore } from 'zustand';
@@ -50,6 +51,12 @@ export interface ViewState {
   bonds: BondState;
   radiusScale: number;
   showCell: boolean;
+  /** In a periodic cell, measure to the nearest image of each next pick (the minimum image). */
+  nearestImage: boolean;
+  /** The viewer covers the whole browser window (Esc leaves). */
+  fullWindow: boolean;
+  /** The control panel beside the view is open. */
+  controlsOpen: boolean;
 
   setCameraMode(mode: CameraMode): void;
   snapTo(direction: Direction): void;
@@ -62,6 +69,9 @@ export interface ViewState {
   setBonds(patch: Partial<BondState>): void;
   setRadiusScale(s: number): void;
   setShowCell(on: boolean): void;
+  setNearestImage(on: boolean): void;
+  setFullWindow(on: boolean): void;
+  setControlsOpen(on: boolean): void;
 }
 
 /** Three picks give a distance pair and an angle. */
@@ -78,6 +88,9 @@ export const initialViewState = {
   bonds: { on: false, cutoff: 3 },
   radiusScale: DEFAULT_RADIUS_SCALE,
   showCell: true,
+  nearestImage: true,
+  fullWindow: false,
+  controlsOpen: true,
 } satisfies Partial<ViewState>;
 
 export type ViewStore = UseBoundStore<StoreApi<ViewState>>;
@@ -97,6 +110,9 @@ export function createViewStore(): ViewStore {
     setBonds: (patch) => set((s) => ({ bonds: { ...s.bonds, ...patch } })),
     setRadiusScale: (radiusScale) => set({ radiusScale: Math.max(0.05, Math.min(2, radiusScale)) }),
     setShowCell: (showCell) => set({ showCell }),
+    setNearestImage: (nearestImage) => set({ nearestImage }),
+    setFullWindow: (fullWindow) => set({ fullWindow }),
+    setControlsOpen: (controlsOpen) => set({ controlsOpen }),
   }));
 }
 

@@ -1,28 +1,34 @@
 /**
- * The viewer's camera pair and how a person moves it: free rotation about the screen axes (no pole,
- * so any axis can be looked down with any up), zoom, pan, framing, snapping down an axis, and the
- * perspective ⇄ orthographic switch that keeps the apparent size at the target. No React here; the
- * Rig component calls these methods and then asks for a frame.
+ * The viewer's two cameras and what the controls library does not know about them: the orthographic
+ * frustum in CSS pixels (so zoom reads as pixels per ångström), near and far planes that hug the
+ * structure (the impostors write their own depth, so depth precision matters), and carrying a view from
+ * one projection to the other at the same apparent size. Turning, sliding and zooming are drei's
+ * CameraControls (./rig). No React here.
  */
 import * as THREE from 'three';
-import { viewPose } from '@/lib/view/axes';
 import type { Vec3 } from '@/lib/math/vec3';
 import type { CameraMode } from './store';
 
 /** Vertical field of view of the perspective camera, degrees. */
 export const FOV = 35;
-export const ROTATE_PER_PIXEL = 0.008;
 const HALF_FOV = (FOV * Math.PI) / 360;
 
-export class ViewCamera {
+/** Where a camera is: enough to put the other camera at the same view. */
+export interface Pose {
+  position: THREE.Vector3;
+  target: THREE.Vector3;
+  up: THREE.Vector3;
+  /** Orthographic zoom (pixels per Å); 1 for the perspective camera. */
+  zoom: number;
+}
+
+export class CameraPair {
   readonly perspective = new THREE.PerspectiveCamera(FOV, 1, 0.1, 1000);
   readonly orthographic = new THREE.OrthographicCamera(-1, 1, 1, -1, 0.1, 1000);
-  readonly target = new THREE.Vector3();
-  camera: THREE.PerspectiveCamera | THREE.OrthographicCamera = this.perspective;
   private centre = new THREE.Vector3();
   private radius = 10;
-  private width = 1;
-  private height = 1;
+  width = 1;
+  height = 1;
 
   constructor() {
     // r3f leaves "manual" cameras alone on resize; setSize fits both frusta.
@@ -32,7 +38,11 @@ export class ViewCamera {
     this.orthographic.position.set(0, 0, 30);
   }
 
-  /** The structure's bounding sphere: near and far planes hug it, framing fits it. */
+  of(mode: CameraMode): THREE.PerspectiveCamera | THREE.OrthographicCamera {
+    return mode === 'orthographic' ? this.orthographic : this.perspective;
+  }
+
+  /** The structure's bounding sphere: near and far planes hug it. */
   setExtent(centre: Vec3, radius: number): void {
     this.centre.set(...centre);
     this.radius = Math.max(radius, 1e-3);
@@ -47,116 +57,34 @@ export class ViewCamera {
     this.orthographic.updateProjectionMatrix();
   }
 
-  distance(): number {
-    return this.camera.position.distanceTo(this.target);
-  }
-
-  /** Re-aim at the target and fit near/far around the structure, for the best depth precision. */
-  update(): void {
-    const cam = this.camera;
-    cam.lookAt(this.target);
-    cam.updateMatrixWorld();
+  /** Fit near and far around the structure for the camera's current position. */
+  fitDepth(cam: THREE.PerspectiveCamera | THREE.OrthographicCamera): void {
     const dc = cam.position.distanceTo(this.centre);
     const far = dc + this.radius * 1.2 + 1;
-    cam.near = cam instanceof THREE.PerspectiveCamera ? Math.max(dc - this.radius * 1.2, far / 5000, 0.01) : dc - this.radius * 1.2 - 1;
-    cam.far = far;
-    cam.updateProjectionMatrix();
-  }
-
-  /** Frame the whole structure, keeping the view direction. */
-  frameAll(): void {
-    const cam = this.camera;
-    const dir = cam.position.clone().sub(this.target);
-    if (dir.lengthSq() < 1e-12) dir.set(0, 0, 1);
-    dir.normalize();
-    this.target.copy(this.centre);
-    const fit = Math.min(HALF_FOV, Math.atan(Math.tan(HALF_FOV) * (this.width / this.height)));
-    cam.position.copy(this.target).addScaledVector(dir, (this.radius * 1.05) / Math.sin(fit));
-    if (cam instanceof THREE.OrthographicCamera) cam.zoom = Math.min(this.width, this.height) / (2 * this.radius * 1.05);
-    this.update();
-  }
-
-  setMode(mode: CameraMode): void {
-    const from = this.camera;
-    const to = mode === 'orthographic' ? this.orthographic : this.perspective;
-    if (from === to) return;
-    to.position.copy(from.position);
-    to.up.copy(from.up);
-    if (to instanceof THREE.OrthographicCamera) {
-      to.zoom = this.height / (2 * this.distance() * Math.tan(HALF_FOV));
-    } else if (from instanceof THREE.OrthographicCamera) {
-      const d = this.height / (2 * from.zoom * Math.tan(HALF_FOV));
-      const dir = from.position.clone().sub(this.target).normalize();
-      to.position.copy(this.target).addScaledVector(dir, d);
+    const near = cam instanceof THREE.PerspectiveCamera ? Math.max(dc - this.radius * 1.2, far / 5000, 0.01) : dc - this.radius * 1.2 - 1;
+    if (near !== cam.near || far !== cam.far) {
+      cam.near = near;
+      cam.far = far;
+      cam.updateProjectionMatrix();
     }
-    this.camera = to;
-    this.update();
   }
 
-  /** Look down a unit axis through the structure's centre, keeping the picture as upright as possible. */
-  lookDown(axis: Vec3): void {
-    const cam = this.camera;
-    this.target.copy(this.centre);
-    const c: Vec3 = [this.centre.x, this.centre.y, this.centre.z];
-    const pose = viewPose(c, axis, Math.max(this.distance(), 1), [cam.up.x, cam.up.y, cam.up.z]);
-    cam.position.set(...pose.position);
-    cam.up.set(...pose.up);
-    this.update();
+  /** World length of one CSS pixel at the target, for sliding by pixels. */
+  worldPerPixel(pose: Pose, mode: CameraMode): number {
+    return mode === 'orthographic' ? 1 / pose.zoom : (2 * pose.position.distanceTo(pose.target) * Math.tan(HALF_FOV)) / this.height;
   }
 
-  /** Turn the scene by a pointer drag of (dx, dy) pixels. */
-  rotate(dx: number, dy: number): void {
-    const angle = Math.hypot(dx, dy) * ROTATE_PER_PIXEL;
-    if (angle === 0) return;
-    const cam = this.camera;
-    const right = new THREE.Vector3().setFromMatrixColumn(cam.matrixWorld, 0);
-    const up = new THREE.Vector3().setFromMatrixColumn(cam.matrixWorld, 1);
-    // The scene turns by +angle about (dy·right + dx·up), so the camera turns by −angle about it.
-    const axis = right.multiplyScalar(dy).add(up.multiplyScalar(dx)).normalize();
-    const q = new THREE.Quaternion().setFromAxisAngle(axis, -angle);
-    const offset = cam.position.clone().sub(this.target).applyQuaternion(q);
-    cam.position.copy(this.target).add(offset);
-    cam.up.applyQuaternion(q);
-    this.update();
-  }
-
-  /** Slide the view by (dx, dy) pixels. */
-  pan(dx: number, dy: number): void {
-    const cam = this.camera;
-    const perPixel = cam instanceof THREE.OrthographicCamera ? 1 / cam.zoom : (2 * this.distance() * Math.tan(HALF_FOV)) / this.height;
-    const right = new THREE.Vector3().setFromMatrixColumn(cam.matrixWorld, 0);
-    const up = new THREE.Vector3().setFromMatrixColumn(cam.matrixWorld, 1);
-    const delta = right.multiplyScalar(-dx * perPixel).add(up.multiplyScalar(dy * perPixel));
-    this.target.add(delta);
-    cam.position.add(delta);
-    this.update();
-  }
-
-  /** factor < 1 comes closer. */
-  zoom(factor: number): void {
-    const cam = this.camera;
-    if (cam instanceof THREE.OrthographicCamera) {
-      cam.zoom = Math.min(1e5, Math.max(1e-3, cam.zoom / factor));
-    } else {
-      const d = Math.min(this.radius * 50, Math.max(0.5, this.distance() * factor));
-      const dir = cam.position.clone().sub(this.target).normalize();
-      cam.position.copy(this.target).addScaledVector(dir, d);
-    }
-    this.update();
-  }
-
-  /** The picking ray through a point given in normalised device coordinates. */
-  ray(ndcX: number, ndcY: number): { origin: Vec3; direction: Vec3 } {
-    const r = new THREE.Raycaster();
-    r.setFromCamera(new THREE.Vector2(ndcX, ndcY), this.camera);
-    const o = r.ray.origin;
-    const d = r.ray.direction;
-    return { origin: [o.x, o.y, o.z], direction: [d.x, d.y, d.z] };
-  }
-
-  /** Normalised device coordinates of a world point. */
-  project(p: Vec3): Vec3 {
-    const v = new THREE.Vector3(...p).project(this.camera);
-    return [v.x, v.y, v.z];
+  /**
+   * The same view in the other projection: perspective → orthographic keeps the position and sets the zoom
+   * that shows the target plane at the same size; orthographic → perspective moves to the distance at which
+   * the perspective camera shows that size.
+   */
+  carry(pose: Pose, from: CameraMode, to: CameraMode): Pose {
+    if (from === to) return pose;
+    const d = pose.position.distanceTo(pose.target);
+    if (to === 'orthographic') return { ...pose, zoom: this.height / (2 * Math.max(d, 1e-6) * Math.tan(HALF_FOV)) };
+    const dist = this.height / (2 * pose.zoom * Math.tan(HALF_FOV));
+    const dir = pose.position.clone().sub(pose.target).normalize();
+    return { ...pose, position: pose.target.clone().addScaledVector(dir, dist), zoom: 1 };
   }
 }

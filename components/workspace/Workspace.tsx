@@ -42,6 +42,8 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
   const [saved, setSaved] = useState<Params>(initialParams);
   const [head, setHead] = useState<RevisionRef | null>(initialHead);
   const [view, setView] = useState<View>('3d');
+  // The model panel folds away to a narrow strip so the view can take the width.
+  const [modelOpen, setModelOpen] = useState(true);
   const [saveOpen, setSaveOpen] = useState(false);
   const [saveBusy, setSaveBusy] = useState(false);
   const [saveError, setSaveError] = useState<string | null>(null);
@@ -154,7 +156,9 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
   const formatBlock = structure ? formatUnavailable(structure, format) : 'generate a cut first';
 
   return (
-    <div className="flex h-[calc(100vh-9.5rem)] min-h-[600px] flex-col gap-3">
+    // The workspace is a tool, not a page of text: it takes the window’s width (about 20 px from each edge) rather
+    // than the site's reading column, centred on that column so it lines up however wide the window is.
+    <div className="ml-[calc(50%-50vw+1.25rem)] flex h-[calc(100vh-9.5rem)] min-h-[600px] w-[calc(100vw-2.5rem)] flex-col gap-3">
       {/* Top bar: where we are, save, fork, download. */}
       <div className="flex flex-wrap items-center gap-3 rounded-lg border border-rule bg-card px-3 py-2">
         <div className="min-w-0">
@@ -225,12 +229,39 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
         ) : null}
       </div>
 
-      <div className="grid min-h-0 flex-1 gap-3 lg:grid-cols-[320px_1fr]">
-        {/* Model panel */}
-        <section aria-labelledby="model-title" className="flex min-h-0 flex-col rounded-lg border border-rule bg-card">
-          <h2 id="model-title" className="border-b border-rule px-3 py-2 text-sm font-semibold">
-            Model
-          </h2>
+      <div className={`grid min-h-0 flex-1 gap-3 ${modelOpen ? 'lg:grid-cols-[320px_minmax(0,1fr)]' : 'grid-cols-[2.25rem_minmax(0,1fr)]'}`}>
+        {!modelOpen ? (
+          <button
+            type="button"
+            aria-expanded={false}
+            aria-controls="model-panel"
+            onClick={() => setModelOpen(true)}
+            aria-label="Show the model panel"
+            title="Show the model panel"
+            className="flex min-h-0 flex-col items-center gap-2 rounded-lg border border-rule bg-card py-2 text-sm font-semibold text-ink hover:border-tide hover:text-tide"
+          >
+            <span aria-hidden="true">»</span>
+            <span className="[writing-mode:vertical-rl]">Model</span>
+          </button>
+        ) : null}
+        {/* Model panel: folded, it stays mounted (hidden) so nothing typed in it is lost. */}
+        <section id="model-panel" aria-labelledby="model-title" hidden={!modelOpen} className="flex min-h-0 flex-col rounded-lg border border-rule bg-card">
+          <div className="flex items-center justify-between border-b border-rule px-3 py-2">
+            <h2 id="model-title" className="text-sm font-semibold">
+              Model
+            </h2>
+            <button
+              type="button"
+              aria-expanded={true}
+              aria-controls="model-panel"
+              onClick={() => setModelOpen(false)}
+              aria-label="Hide the model panel"
+              title="Fold the model panel away to give the view more room"
+              className="rounded-md border border-rule px-2 py-0.5 text-xs text-ink-soft hover:border-tide hover:text-tide"
+            >
+              <span aria-hidden="true">«</span> Hide
+            </button>
+          </div>
           <div className="min-h-0 flex-1 overflow-y-auto px-3 py-2">
             <ModelPanel params={params} onChange={setParams} engineErrors={cut.error?.field && !cut.running ? new Map([[cut.error.field, cut.error.message.replace(/^[^:]+: /, '')]]) : undefined} />
           </div>

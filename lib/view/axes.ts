@@ -11,6 +11,11 @@
  * [uvw] and (hkl). With a cell (rows a, b, c), [uvw] is the real-space vector u·a + v·b + w·c and the
  * normal of the plane (hkl) is the reciprocal vector h·a* + k·b* + l·c*, a* = (b × c)/V and cyclic
  * (so a_i·a_j* = δ_ij, no 2π). Without a cell both read the three integers as Cartesian x y z.
+ *
+ * Labels. An icosahedral axis is named by its direction in the standard cubic setting, where the
+ * icosahedron's vertices are the cyclic permutations of (0, ±1, ±τ): every component of every axis is
+ * then 0 or ±τ^k, so the label reads like [0 1 τ], [0 τ 1/τ] or [1 1/τ τ]. A lattice direction keeps its
+ * integers, [1 −1 0]. Negative indices get a minus sign (U+2212) rather than a bar, which survives copying.
  */
 import { icosahedralDirections } from '../models/icosahedral/hyperlattice';
 import { TAU } from '../math/golden';
@@ -117,6 +122,26 @@ export function viewPose(target: Vec3, axis: Vec3, distance: number, upHint: Vec
 }
 
 /**
+ * An up direction for looking down `axis`: of the candidates (the cell rows c, b, a, or z, y, x without a
+ * cell), the one most nearly perpendicular to the axis, the earlier one on a tie. Snapping then gives the
+ * same picture every time, square to the cell: down [1 0 0] the cube stays a square with c up, and down a
+ * five-fold axis such as [0 1 τ] the perpendicular two-fold axis [1 0 0] points up.
+ */
+export function uprightFor(axis: Vec3, candidates: readonly Vec3[]): Vec3 {
+  const d = normalize(axis);
+  let best = candidates[0];
+  let bestDot = Infinity;
+  for (const c of candidates) {
+    const x = Math.abs(dot(normalize(c), d));
+    if (x < bestDot - 1e-9) {
+      bestDot = x;
+      best = c;
+    }
+  }
+  return normalize(best);
+}
+
+/**
  * A direction as a person chooses it: an icosahedral symmetry axis (fold and which one), a lattice
  * direction [uvw] or a plane normal (hkl).
  */
@@ -139,14 +164,106 @@ export function directionVector(direction: Direction, cell?: Cell): Vec3 {
   }
 }
 
-/** Short label for a Direction, e.g. "5-fold axis 2", "[1 1 0]", "(1 0 0)". */
+/** Short label for a Direction, e.g. "5-fold [0 1 τ]", "[1 1 0]", "(1 0 0)". */
 export function directionLabel(direction: Direction): string {
   switch (direction.kind) {
     case 'fold':
-      return `${direction.fold}-fold axis ${direction.index + 1}`;
+      return `${direction.fold}-fold ${icosahedralAxisLabel(direction.fold, direction.index)}`;
     case 'uvw':
-      return `[${direction.uvw.join(' ')}]`;
+      return formatIndices(direction.uvw, '[', ']');
     case 'hkl':
-      return `(${direction.hkl.join(' ')})`;
+      return formatIndices(direction.hkl, '(', ')');
   }
+}
+
+/** Integers in brackets with a true minus sign: [1 −1 0]. */
+export function formatIndices(v: ArrayLike<number>, open = '[', close = ']'): string {
+  return `${open}${Array.from(v, (x) => (x < 0 ? `−${-x}` : `${x}`)).join(' ')}${close}`;
+}
+
+/**
+ * One component of an axis in the cubic setting: 0 (sign 0) or sign·τ^power. Powers of τ are the only
+ * numbers that occur: (0, 1, τ) for five-fold, (1, 1, 1) and (0, τ, 1/τ) for three-fold, (1, 0, 0) and
+ * (1, 1/τ, τ) for two-fold axes, up to sign and order.
+ */
+export interface TauIndex {
+  sign: -1 | 0 | 1;
+  power: number;
+}
+
+const TAU_TOL = 1e-9;
+
+/** Write x as ±τ^k (|k| ≤ 3) or 0, or return null. */
+function asTauPower(x: number): TauIndex | null {
+  if (Math.abs(x) < TAU_TOL) return { sign: 0, power: 0 };
+  const k = Math.round(Math.log(Math.abs(x)) / Math.log(TAU));
+  if (Math.abs(k) > 3 || Math.abs(Math.abs(x) - TAU ** k) > TAU_TOL * Math.max(1, Math.abs(x))) return null;
+  return { sign: x < 0 ? -1 : 1, power: k };
+}
+
+/**
+ * The components of a direction as 0 or ±τ^k, scaled so that the powers are as small as they can be
+ * (the largest |k| first, then no needless negative powers): (0, 1/√(2+τ), τ/√(2+τ)) gives 0, 1, τ.
+ * Null when the direction is not of that kind (a general [uvw] in an oblique cell).
+ */
+export function tauIndices(v: Vec3): [TauIndex, TauIndex, TauIndex] | null {
+  let best: [TauIndex, TauIndex, TauIndex] | null = null;
+  let bestCost = Infinity;
+  for (const c of v) {
+    if (Math.abs(c) < TAU_TOL) continue;
+    // Any admissible scaling makes this component a power of τ; try the few that keep powers small.
+    for (let k = -3; k <= 3; k++) {
+      const s = TAU ** k / Math.abs(c);
+      const idx = v.map((x) => asTauPower(x * s));
+      if (idx.some((t) => t === null)) continue;
+      const t = idx as [TauIndex, TauIndex, TauIndex];
+      const powers = t.filter((x) => x.sign !== 0).map((x) => x.power);
+      const cost = 100 * Math.max(...powers.map(Math.abs)) - Math.min(...powers);
+      if (cost < bestCost) {
+        bestCost = cost;
+        best = t;
+      }
+    }
+  }
+  return best;
+}
+
+/** τ^k as text: 1, τ, τ², 1/τ, 1/τ². */
+function tauPowerText(k: number): string {
+  const sup = ['', '', '²', '³'];
+  if (k === 0) return '1';
+  return k > 0 ? `τ${sup[k]}` : `1/τ${sup[-k]}`;
+}
+
+/** [0 1 τ]-style label of a direction, or null when its components are not 0 or ±τ^k. */
+export function tauLabel(v: Vec3): string | null {
+  const t = tauIndices(v);
+  if (!t) return null;
+  return `[${t.map((x) => (x.sign === 0 ? '0' : `${x.sign < 0 ? '−' : ''}${tauPowerText(x.power)}`)).join(' ')}]`;
+}
+
+/** The label of an icosahedral axis of one fold, by its index in axesOfFold(fold). */
+export function icosahedralAxisLabel(fold: Fold, index: number): string {
+  const list = axesOfFold(fold);
+  const v = list[((index % list.length) + list.length) % list.length];
+  return tauLabel(v) ?? `axis ${index + 1}`;
+}
+
+export interface CellDirection {
+  uvw: Vec3;
+  /** Cell edge, face diagonal or body diagonal. */
+  kind: 'edge' | 'face' | 'body';
+}
+
+/**
+ * The thirteen short lattice rows of a cell, one of each ± pair: the three edges [100], the six face
+ * diagonals [110] and the four body diagonals [111]. In a cubic lattice these are the 4-, 2- and 3-fold
+ * axes of its point symmetry m3̄m; in any cell they are the rows a person reaches for first.
+ */
+export function cellDirections(): CellDirection[] {
+  const out: CellDirection[] = [];
+  for (const uvw of [[1, 0, 0], [0, 1, 0], [0, 0, 1]] as Vec3[]) out.push({ uvw, kind: 'edge' });
+  for (const uvw of [[1, 1, 0], [1, -1, 0], [0, 1, 1], [0, 1, -1], [1, 0, 1], [-1, 0, 1]] as Vec3[]) out.push({ uvw, kind: 'face' });
+  for (const uvw of [[1, 1, 1], [-1, 1, 1], [1, -1, 1], [1, 1, -1]] as Vec3[]) out.push({ uvw, kind: 'body' });
+  return out;
 }

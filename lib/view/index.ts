@@ -6,3 +6,6 @@ export * from './palette';
 export * from './impostor';
 export * from './lattice2';
 export * from './unwrap-tile';
+export * from './minimum-image';
+export * from './measure';
+export * from './frame';

@@ -45,8 +45,9 @@ describe('structure viewer (lab page)', () => {
     await page.mouse.up();
     await expect.poll(() => frames(page)).toBeGreaterThan(idle);
 
-    await page.getByRole('button', { name: 'Look down five-fold axis 1' }).click();
-    await expect.poll(() => page.getByText('Now: 5-fold axis 1').count()).toBe(1);
+    // The first five-fold axis of the setting, u1 ∝ (1, τ, 0) (lib/models/icosahedral/hyperlattice.ts).
+    await page.getByRole('button', { name: 'Look down 5-fold axis [1 τ 0]' }).click();
+    await expect.poll(() => page.getByTestId('view-axis').innerText()).toBe('5-fold [1 τ 0]');
 
     await page.getByLabel('Show one slab only').check();
     await expect.poll(() => page.getByText(/keeps .* ≤ n·r ≤/).count()).toBe(1);

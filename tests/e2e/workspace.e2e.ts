@@ -82,7 +82,7 @@ describe('workspace', () => {
     await screenshot(page, 'workspace-3d');
 
     // Look down a five-fold axis and keep one slab normal to it.
-    await page.getByRole('button', { name: 'Look down five-fold axis 1' }).click();
+    await page.getByRole('button', { name: 'Look down 5-fold axis [1 τ 0]' }).click();
     await page.getByLabel('Show one slab only').check();
     await page.waitForTimeout(1500);
     await screenshot(page, 'workspace-slab');

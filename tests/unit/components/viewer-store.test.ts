@@ -28,6 +28,15 @@ describe('view store', () => {
     expect(s.getState().radiusScale).toBe(2);
   });
 
+  it('starts measuring to the nearest image, in the page (not full window), with the controls open', () => {
+    const s = createViewStore();
+    expect(s.getState()).toMatchObject({ nearestImage: true, fullWindow: false, controlsOpen: true });
+    s.getState().setFullWindow(true);
+    s.getState().setControlsOpen(false);
+    s.getState().setNearestImage(false);
+    expect(s.getState()).toMatchObject({ nearestImage: false, fullWindow: true, controlsOpen: false });
+  });
+
   it('separate stores do not share state', () => {
     const a = createViewStore();
     const b = createViewStore();

@@ -1,7 +1,21 @@
 import { describe, expect, it } from 'vitest';
 import * as THREE from 'three';
-import { axesOfFold, directionVector, icosahedralAxes, latticeDirection, planeNormal, planeSpacing, viewPose } from '@/lib/view/axes';
-import { angleDeg, cross, dot, norm, type Vec3 } from '@/lib/math/vec3';
+import {
+  axesOfFold,
+  cellDirections,
+  directionLabel,
+  directionVector,
+  formatIndices,
+  icosahedralAxes,
+  icosahedralAxisLabel,
+  latticeDirection,
+  planeNormal,
+  planeSpacing,
+  tauLabel,
+  viewPose,
+} from '@/lib/view/axes';
+import { TAU } from '@/lib/math/golden';
+import { angleDeg, cross, dot, norm, normalize, type Vec3 } from '@/lib/math/vec3';
 
 /** sin of the angle between u and v (0 when parallel), exact enough near 0 unlike acos. */
 const sinBetween = (u: Vec3, v: Vec3) => norm(cross(u, v)) / (norm(u) * norm(v));
@@ -74,6 +88,73 @@ describe('icosahedral axes', () => {
   it('directionVector reads fold axes by index, wrapping', () => {
     expect(directionVector({ kind: 'fold', fold: 5, index: 2 })).toEqual(axesOfFold(5)[2]);
     expect(directionVector({ kind: 'fold', fold: 2, index: 15 })).toEqual(axesOfFold(2)[0]);
+  });
+});
+
+/** Read a label such as "[0 1/τ −τ²]" back into numbers. */
+function parseLabel(label: string): Vec3 {
+  const inner = label.replace(/^\[|\]$/g, '').split(' ');
+  return inner.map((t) => {
+    const sign = t.startsWith('−') ? -1 : 1;
+    const body = t.replace(/^−/, '');
+    const m = /^(1\/)?τ([²³]?)$/.exec(body);
+    if (!m) return sign * Number(body);
+    const k = m[2] === '²' ? 2 : m[2] === '³' ? 3 : 1;
+    return sign * TAU ** (m[1] ? -k : k);
+  }) as Vec3;
+}
+
+describe('axis labels in the standard cubic setting', () => {
+  // From memory (the standard setting, e.g. Coxeter, Regular Polytopes, and its dual): with the icosahedron's
+  // vertices at the cyclic permutations of (0, ±1, ±τ), the five-fold axes are those vertices; the
+  // three-fold axes are the face centres, i.e. the dual dodecahedron's vertices (±1, ±1, ±1) and the cyclic
+  // permutations of (0, ±τ, ±1/τ); the two-fold axes are the edge midpoints, the cube axes and the cyclic
+  // permutations of (±1, ±1/τ, ±τ). One of each ± pair, first non-zero index positive.
+  const expected: Record<2 | 3 | 5, string[]> = {
+    5: ['[0 1 τ]', '[0 1 −τ]', '[τ 0 1]', '[τ 0 −1]', '[1 τ 0]', '[1 −τ 0]'],
+    3: ['[1 1 1]', '[1 1 −1]', '[1 −1 1]', '[1 −1 −1]', '[0 τ 1/τ]', '[0 τ −1/τ]', '[1/τ 0 τ]', '[1/τ 0 −τ]', '[τ 1/τ 0]', '[τ −1/τ 0]'],
+    2: [
+      '[1 0 0]', '[0 1 0]', '[0 0 1]',
+      '[1 1/τ τ]', '[1 1/τ −τ]', '[1 −1/τ τ]', '[1 −1/τ −τ]',
+      '[τ 1 1/τ]', '[τ 1 −1/τ]', '[τ −1 1/τ]', '[τ −1 −1/τ]',
+      '[1/τ τ 1]', '[1/τ τ −1]', '[1/τ −τ 1]', '[1/τ −τ −1]',
+    ],
+  };
+
+  for (const fold of [5, 3, 2] as const) {
+    it(`labels the ${fold}-fold axes by their indices, and each label points along its axis`, () => {
+      const axes = axesOfFold(fold);
+      const labels = axes.map((_, i) => icosahedralAxisLabel(fold, i));
+      expect([...labels].sort()).toEqual([...expected[fold]].sort());
+      labels.forEach((l, i) => expect(sinBetween(parseLabel(l), axes[i])).toBeLessThan(1e-12));
+    });
+  }
+
+  it('names a snapped direction by family and indices', () => {
+    const i = axesOfFold(5).findIndex((_, k) => icosahedralAxisLabel(5, k) === '[0 1 τ]');
+    expect(directionLabel({ kind: 'fold', fold: 5, index: i })).toBe('5-fold [0 1 τ]');
+    expect(directionLabel({ kind: 'uvw', uvw: [1, -1, 0] })).toBe('[1 −1 0]');
+    expect(directionLabel({ kind: 'hkl', hkl: [0, 0, 2] })).toBe('(0 0 2)');
+  });
+
+  it('finds no τ label for a direction that has none', () => {
+    expect(tauLabel(normalize([1, 2, 3]))).toBeNull();
+    expect(tauLabel(normalize([2, 0, 1]))).toBeNull();
+    expect(tauLabel(normalize([0, -2, -2 * TAU]))).toBe('[0 −1 −τ]');
+  });
+
+  it('lists the 3 edges, 6 face diagonals and 4 body diagonals of a cell, one per ± pair', () => {
+    // A cube has 3 four-fold, 6 two-fold and 4 three-fold axes (from memory); [111] is arccos(1/√3) =
+    // 54.7356° from [001] and [110] is 45° from [100] (textbook angles in a cubic cell).
+    const dirs = cellDirections();
+    expect(dirs.filter((d) => d.kind === 'edge').length).toBe(3);
+    expect(dirs.filter((d) => d.kind === 'face').length).toBe(6);
+    expect(dirs.filter((d) => d.kind === 'body').length).toBe(4);
+    for (let i = 0; i < dirs.length; i++) for (let j = i + 1; j < dirs.length; j++) expect(axisAngle(dirs[i].uvw, dirs[j].uvw)).toBeGreaterThan(1);
+    const cube: Cell = [[5, 0, 0], [0, 5, 0], [0, 0, 5]];
+    expect(angleDeg(latticeDirection([1, 1, 1], cube), [0, 0, 1])).toBeCloseTo(54.7356, 4);
+    expect(angleDeg(latticeDirection([1, 1, 0], cube), [1, 0, 0])).toBeCloseTo(45, 9);
+    expect(dirs.map((d) => formatIndices(d.uvw))).toContain('[−1 0 1]');
   });
 });
 
