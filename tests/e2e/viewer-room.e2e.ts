@@ -114,8 +114,17 @@ describe('the 3D view takes the room it needs', () => {
     await expect.poll(() => page.getByTestId('view-axis').innerText()).toBe('5-fold [0 1 τ]');
     const TAU = (1 + Math.sqrt(5)) / 2;
     const n = Math.hypot(1, TAU);
-    const [p, q] = (await page.evaluate(`[${HOOK}.pointScreen([3, 2, 1]), ${HOOK}.pointScreen([3, 2 + 10 / ${n}, 1 + 10 * ${TAU} / ${n}])]`)) as Pt[];
-    expect(Math.hypot(p.x - q.x, p.y - q.y)).toBeLessThan(0.5);
+    // The camera glides to the new direction; wait for it to arrive (slow under software WebGL) before measuring.
+    await settle(page);
+    await expect
+      .poll(
+        async () => {
+          const [p, q] = (await page.evaluate(`[${HOOK}.pointScreen([3, 2, 1]), ${HOOK}.pointScreen([3, 2 + 10 / ${n}, 1 + 10 * ${TAU} / ${n}])]`)) as Pt[];
+          return Math.hypot(p.x - q.x, p.y - q.y);
+        },
+        { timeout: 30_000 },
+      )
+      .toBeLessThan(0.5);
     await settle(page);
     await screenshot(page, 'viewer-room-1440-five-fold');
 
