@@ -19,3 +19,8 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   await page.screenshot({ path: file, fullPage: true });
   return file;
 }
+
+/** Frames the 3D viewer has drawn so far (0 before it mounts); it renders on demand, so a count that stops means idle. */
+export function viewerFrames(page: Page): Promise<number> {
+  return page.evaluate('window.__tauforgeViewer ? window.__tauforgeViewer.frames() : 0') as Promise<number>;
+}

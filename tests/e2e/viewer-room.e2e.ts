@@ -12,7 +12,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { baseUrl, launch, screenshot } from './browser';
+import { baseUrl, launch, screenshot, viewerFrames } from './browser';
 
 type Pt = { x: number; y: number };
 const HOOK = 'window.__tauforgeViewer';
@@ -38,7 +38,7 @@ async function signInAndOpenWorkspace(page: Page): Promise<void> {
 }
 
 const canvasBox = async (page: Page) => (await page.getByTestId('viewer-canvas').boundingBox())!;
-const frames = (page: Page) => page.evaluate(`${HOOK} ? ${HOOK}.frames() : 0`) as Promise<number>;
+const frames = viewerFrames;
 
 /** Wait until the view has drawn again and stopped drawing (render on demand settles). */
 async function settle(page: Page): Promise<void> {

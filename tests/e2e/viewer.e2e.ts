@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { existsSync } from 'node:fs';
-import { baseUrl, launch, screenshot } from './browser';
+import { baseUrl, launch, screenshot, viewerFrames } from './browser';
 
 interface Hook {
   frames(): number;
@@ -9,7 +9,7 @@ interface Hook {
   renderFrames(k: number): { msPerFrame: number; triangles: number; calls: number };
 }
 const hook = `window.__tauforgeViewer`;
-const frames = (page: Page) => page.evaluate(`${hook}.frames()`) as Promise<number>;
+const frames = viewerFrames;
 
 let browser: Browser;
 beforeAll(async () => {

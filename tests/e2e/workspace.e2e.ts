@@ -11,9 +11,9 @@
  * engine's integer count Σ|det| (lib/models/icosahedral/approximant.ts), which the downloaded file must match.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { readFileSync } from 'node:fs';
-import { baseUrl, launch, screenshot } from './browser';
+import { baseUrl, launch, screenshot, viewerFrames } from './browser';
 import { icosahedralBasis, hyperlatticeCellVolume } from '../../lib/models/icosahedral/hyperlattice';
 import { TAU } from '../../lib/math/golden';
 import { windowVolume, zonotopeWindow } from '../../lib/models/icosahedral/window';
@@ -27,9 +27,7 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function frames(page: Page): Promise<number> {
-  return (await page.evaluate('window.__tauforgeViewer ? window.__tauforgeViewer.frames() : 0')) as number;
-}
+const frames = viewerFrames;
 
 describe('workspace', () => {
   it('cuts, turns, slices, diffracts and downloads the 2/1 approximant', async () => {
