@@ -72,8 +72,8 @@ async function main() {
   ensureDebian(['fonts-dejavu-core'], () => existsSync('/usr/share/fonts/truetype/dejavu'), 'the browser tests');
   // Reference libraries that tests compare our results with (each test names the one it uses).
   ensureDebian(
-    ['python3', 'python3-numpy', 'python3-gemmi', 'python3-ase', 'python3-spglib', 'python3-xraylib'],
-    () => capture('/usr/bin/python3', ['-c', 'import numpy, gemmi, ase, spglib, xraylib']).status === 0,
+    ['python3', 'python3-numpy', 'python3-scipy', 'python3-gemmi', 'python3-ase', 'python3-spglib', 'python3-xraylib', 'python3-pymatgen'],
+    () => capture('/usr/bin/python3', ['-c', 'import numpy, scipy, gemmi, ase, spglib, xraylib, pymatgen.core']).status === 0,
     'the reference checks in the tests',
   );
   const s = settings();
@@ -104,20 +104,32 @@ async function main() {
   const mail = await startMailFake(env, smtpPort);
   cleanups.push(() => mail.stop());
 
-  const lintOk = runPhase('lint (eslint)', join(root, 'node_modules', '.bin', 'eslint'), ['.'], env);
-  const typesOk = runPhase('typecheck (tsc)', join(root, 'node_modules', '.bin', 'tsc'), ['--noEmit', '-p', 'tsconfig.json'], env);
-  if (!lintOk) tally.failed += 1;
-  if (!typesOk) tally.failed += 1;
+  // A developer may run a subset while working (TAUFORGE_TEST_PHASES=integration,e2e); CI runs them all.
+  const phases = new Set((process.env.TAUFORGE_TEST_PHASES ?? 'lint,types,unit,integration,e2e').split(',').map((p) => p.trim()));
+  const extra = process.env.TAUFORGE_TEST_FILES ? process.env.TAUFORGE_TEST_FILES.split(',') : [];
+  if (phases.has('lint')) {
+    const lintOk = runPhase('lint (eslint)', join(root, 'node_modules', '.bin', 'eslint'), ['.'], env);
+    if (!lintOk) tally.failed += 1;
+  }
+  if (phases.has('types')) {
+    const typesOk = runPhase('typecheck (tsc)', join(root, 'node_modules', '.bin', 'tsc'), ['--noEmit', '-p', 'tsconfig.json'], env);
+    if (!typesOk) tally.failed += 1;
+  }
 
   // Unit tests are pure and run two files at a time; integration tests share one database and run in turn.
-  vitestPhase('unit tests (vitest)', ['tests/unit', '--fileParallelism'], { ...env, NODE_ENV: 'test' }, 'vitest-unit.json');
-  vitestPhase('integration tests against MariaDB (vitest)', ['tests/integration'], { ...env, NODE_ENV: 'test' }, 'vitest-integration.json');
+  if (phases.has('unit')) {
+    vitestPhase('unit tests (vitest)', [...(extra.length ? extra.filter((f) => f.startsWith('tests/unit')) : ['tests/unit']), '--fileParallelism'], { ...env, NODE_ENV: 'test' }, 'vitest-unit.json');
+  }
+  if (phases.has('integration')) {
+    vitestPhase('integration tests against MariaDB (vitest)', extra.length ? extra.filter((f) => f.startsWith('tests/integration')) : ['tests/integration'], { ...env, NODE_ENV: 'test' }, 'vitest-integration.json');
+  }
+  if (!phases.has('e2e')) return;
 
   const built = runPhase('production build for the browser tests (next build)', process.execPath, [join(root, 'node_modules', 'next', 'dist', 'bin', 'next'), 'build'], { ...env, NEXT_TELEMETRY_DISABLED: '1' });
   if (built) {
     const server = await serve(env, appPort);
     cleanups.push(() => server.stop());
-    vitestPhase('browser tests (playwright-core + Chromium)', ['--config', 'tests/e2e/vitest.config.mts'], {
+    vitestPhase('browser tests (playwright-core + Chromium)', ['--config', 'tests/e2e/vitest.config.mts', ...extra.filter((f) => f.startsWith('tests/e2e'))], {
       ...env,
       NODE_ENV: 'test',
       TAUFORGE_BASE_URL: `http://127.0.0.1:${appPort}`,
