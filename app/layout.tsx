@@ -1,6 +1,7 @@
 import type { Metadata } from 'next';
 import localFont from 'next/font/local';
 import Link from 'next/link';
+import { connection } from 'next/server';
 import { Mark } from '@/components/ui/Mark';
 import { UserMenu } from '@/components/auth/UserMenu';
 import './globals.css';
@@ -29,7 +30,9 @@ export const metadata: Metadata = {
   description: 'Build, check, diffract and share quasicrystal models and their periodic approximants.',
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Rendered per request, never prerendered: proxy.ts gives each page a fresh CSP nonce for its scripts.
+  await connection();
   return (
     <html lang="en" className={`${plexSans.variable} ${plexMono.variable}`}>
       <body className="min-h-screen font-sans antialiased">

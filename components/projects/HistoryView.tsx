@@ -4,7 +4,7 @@ import useSWR from 'swr';
 import { useRouter } from 'next/navigation';
 import type { ColumnDef } from '@tanstack/react-table';
 import { ServerTable } from '@/components/ui/ServerTable';
-import { fetcher, send } from '@/components/ui/api';
+import { ApiClientError, fetcher, send } from '@/components/ui/api';
 import { quietButtonClass } from '@/components/ui/buttons';
 import { Notice } from '@/components/ui/messages';
 import type { RevisionInfo } from '@/lib/server/revisions';
@@ -14,6 +14,8 @@ export function HistoryView({ projectId, canEdit, headId }: { projectId: number;
   const router = useRouter();
   const [from, setFrom] = useState<number | null>(null);
   const [to, setTo] = useState<number | null>(headId);
+  // The head this page last saw: a restore goes on top of it, and answers 409 when someone saved since.
+  const [head, setHead] = useState<number | null>(headId);
   const [key, setKey] = useState(0);
   const [msg, setMsg] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const diff = useSWR<{ from: RevisionInfo; to: RevisionInfo; changes: DiffEntry[] }>(from && to && from !== to ? `/api/projects/${projectId}/diff?from=${from}&to=${to}` : null, fetcher);
@@ -32,13 +34,24 @@ export function HistoryView({ projectId, canEdit, headId }: { projectId: number;
       ? [{ id: 'restore', header: '', cell: ({ row }: { row: { original: RevisionInfo } }) => (
           <button type="button" className={quietButtonClass} onClick={async () => {
             try {
-              const r = await send<RevisionInfo>('POST', `/api/projects/${projectId}/revisions/${row.original.id}/restore`, {});
-              setMsg({ tone: 'ok', text: `Restored as revision ${r.number}.` });
+              const r = await send<RevisionInfo>('POST', `/api/projects/${projectId}/revisions/${row.original.id}/restore`, { baseRevision: head });
+              setMsg({ tone: 'ok', text: `Restored revision ${row.original.number} as revision ${r.number}.` });
+              setHead(r.id);
               setTo(r.id);
               setKey((k) => k + 1);
               router.refresh();
             } catch (e) {
-              setMsg({ tone: 'error', text: (e as Error).message });
+              const newer = e instanceof ApiClientError && e.status === 409 ? (e.details as { head?: RevisionInfo | null } | null)?.head : null;
+              if (newer) {
+                // Show what changed; the next click restores on top of the newer head, on purpose.
+                setHead(newer.id);
+                setTo(newer.id);
+                setKey((k) => k + 1);
+                router.refresh();
+                setMsg({ tone: 'error', text: `Nothing was restored: ${newer.authorName ?? 'someone'} saved revision ${newer.number} (“${newer.message}”) in the meantime. Look at it, then restore again if you still want revision ${row.original.number}.` });
+              } else {
+                setMsg({ tone: 'error', text: (e as Error).message });
+              }
             }
           }}>Restore</button>
         ) }]

@@ -10,7 +10,9 @@ import { ApiError } from './errors';
 import { access, type Actor, type ProjectRole } from './authz';
 import { audit } from './audit';
 import { sha256Hex, signPayload, verifySigned } from './crypto';
-import { sendMail, siteUrl } from './mail';
+import { siteUrl } from './mail';
+import { queueMail } from './outbox';
+import { queryId } from './http';
 import { iso } from './paging';
 
 export const INVITE_DAYS = 7;
@@ -25,8 +27,8 @@ export const changeRoleSchema = z.strictObject({
   role: z.enum(ROLES, { message: 'role is owner, editor or viewer' }),
 });
 export const removeMemberQuery = z.object({
-  userId: z.coerce.number().int().positive().optional(),
-  invitation: z.coerce.number().int().positive().optional(),
+  userId: queryId('userId').optional(),
+  invitation: queryId('invitation').optional(),
 }).refine((v) => (v.userId === undefined) !== (v.invitation === undefined), 'send userId (a member) or invitation (a pending invitation)');
 export const acceptSchema = z.strictObject({ token: z.string().min(10).max(2000) });
 
@@ -77,7 +79,7 @@ export async function invite(actor: Actor | null, projectId: number, input: z.in
     return { id: Number(id), token };
   });
   const link = siteUrl(`/invite?token=${encodeURIComponent(token)}`);
-  await sendMail(
+  await queueMail(
     input.email,
     `${actor!.name || actor!.email} invited you to a Tauforge project`,
     `${actor!.name || actor!.email} invited you to join the project “${projectName}” on Tauforge as ${input.role}.\n\nOpen this link within ${Math.round((expires.getTime() - Date.now()) / 86400_000) || 1} days to accept (you can create an account on the way):\n${link}\n\nIf you do not know this person, ignore this message.`,

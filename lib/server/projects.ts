@@ -58,6 +58,7 @@ export interface ProjectSummary {
   role: ProjectRole | null;
   headRevision: number | null;
   headNumber: number | null;
+  /** The parent project's id, only when this reader may open the parent (null for an original, or a hidden parent). */
   forkedFrom: number | null;
   /** For a fork: the revision it was made at. Its revisions 1…forkedAtNumber are the parent's, as they were. */
   forkedAtNumber: number | null;
@@ -73,10 +74,20 @@ export interface ProjectLink {
   revisionNumber: number | null;
 }
 
+/** A parent the reader may not open: neither its id nor the revision forked from is shown. */
+export interface HiddenProjectLink {
+  id: null;
+  name: string;
+  ownerName: '';
+  revision: null;
+  revisionNumber: null;
+  visible: false;
+}
+
 export interface ProjectDetail extends ProjectSummary {
   head: RevisionInfo | null;
   revisionCount: number;
-  parent: (ProjectLink & { visible: boolean }) | null;
+  parent: (ProjectLink & { visible: true }) | HiddenProjectLink | null;
   forks: ProjectLink[];
   /** Forks this actor cannot open (private ones of other people): counted, not named. */
   hiddenForks: number;
@@ -100,13 +111,19 @@ function summaryQuery(k: Knex | Knex.Transaction, actor: Actor | null) {
   const q = k('projects as p')
     .join('users as o', 'o.id', 'p.owner_id')
     .leftJoin('revisions as h', 'h.id', 'p.head_revision')
+    .leftJoin('projects as pp', 'pp.id', 'p.forked_from_project')
     .select('p.id', 'p.name', 'p.description', 'p.tags', 'p.visibility', 'p.head_revision', 'p.forked_from_project', 'p.forked_at_number', 'p.created_at', 'p.updated_at', 'o.name as owner_name', 'h.number as head_number');
+  // Lineage shows a parent's id only to readers who may open the parent (the rule of authz.canRead).
+  const admin = actor?.siteRole === 'admin' ? 1 : 0;
   if (actor) {
     q.leftJoin('project_members as me', function () {
       this.on('me.project_id', '=', 'p.id').andOn('me.user_id', '=', k.raw('?', [actor.id]));
     }).select('me.role as my_role');
+    q.leftJoin('project_members as pm', function () {
+      this.on('pm.project_id', '=', 'pp.id').andOn('pm.user_id', '=', k.raw('?', [actor.id]));
+    }).select(k.raw("(pp.visibility <> 'private' OR pm.role IS NOT NULL OR ? = 1) AS parent_visible", [admin]));
   } else {
-    q.select(k.raw('NULL as my_role'));
+    q.select(k.raw('NULL as my_role'), k.raw("(pp.visibility <> 'private') AS parent_visible"));
   }
   return q;
 }
@@ -123,7 +140,7 @@ function summary(r: any): ProjectSummary {
     role: r.my_role ?? null,
     headRevision: r.head_revision ? Number(r.head_revision) : null,
     headNumber: r.head_number ? Number(r.head_number) : null,
-    forkedFrom: r.forked_from_project ? Number(r.forked_from_project) : null,
+    forkedFrom: r.forked_from_project && Number(r.parent_visible) === 1 ? Number(r.forked_from_project) : null,
     forkedAtNumber: r.forked_at_number ? Number(r.forked_at_number) : null,
     createdAt: iso(r.created_at)!,
     updatedAt: iso(r.updated_at)!,
@@ -198,14 +215,16 @@ export async function getProject(actor: Actor | null, id: number): Promise<Proje
   let parent: ProjectDetail['parent'] = null;
   if (parentRow) {
     const visible = canRead(actor, { id: Number(parentRow.id), visibility: parentRow.visibility, role: parentRow.my_role ?? null });
-    parent = {
-      id: Number(parentRow.id),
-      name: visible ? parentRow.name : 'a private project',
-      ownerName: visible ? parentRow.owner_name : '',
-      revision: parentRow.forked_from_revision ? Number(parentRow.forked_from_revision) : null,
-      revisionNumber: parentRow.revision_number ? Number(parentRow.revision_number) : null,
-      visible,
-    };
+    parent = visible
+      ? {
+          id: Number(parentRow.id),
+          name: parentRow.name,
+          ownerName: parentRow.owner_name,
+          revision: parentRow.forked_from_revision ? Number(parentRow.forked_from_revision) : null,
+          revisionNumber: parentRow.revision_number ? Number(parentRow.revision_number) : null,
+          visible: true,
+        }
+      : { id: null, name: 'a private project', ownerName: '', revision: null, revisionNumber: null, visible: false };
   }
   const canSee = (r: { visibility: string; my_role: string | null }) => r.visibility !== 'private' || r.my_role || actor?.siteRole === 'admin';
   const hiddenForks = forkRows.filter((r) => !canSee(r)).length;

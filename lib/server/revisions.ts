@@ -11,7 +11,7 @@ import { ApiError } from './errors';
 import { access, type Actor } from './authz';
 import { audit } from './audit';
 import { iso, listQuery, type Page, contains } from './paging';
-import { fieldErrors } from './http';
+import { fieldErrors, queryId } from './http';
 import { jsonDiff, type DiffEntry } from './json-diff';
 
 export const saveRevisionSchema = z.strictObject({
@@ -20,15 +20,16 @@ export const saveRevisionSchema = z.strictObject({
   baseRevision: z.number({ message: 'send the id of the revision you edited' }).int().positive().nullable(),
 });
 
+/** A restore names the head it was asked on top of, like a save: a stale base answers 409 with the newer head. */
 export const restoreSchema = z.strictObject({
   message: z.string().trim().max(500).optional(),
-  baseRevision: z.number().int().positive().nullable().optional(),
+  baseRevision: z.number({ message: 'send the id of the head revision you restore on top of' }).int().positive().nullable(),
 });
 
 export const revisionListQuery = listQuery(['number', 'created_at'] as const, 'number');
 export const diffQuery = z.object({
-  from: z.coerce.number({ message: 'from must be a revision id' }).int().positive(),
-  to: z.coerce.number({ message: 'to must be a revision id' }).int().positive(),
+  from: queryId('from (a revision id)'),
+  to: queryId('to (a revision id)'),
 });
 
 export interface RevisionInfo {
@@ -83,21 +84,29 @@ export async function getRevision(actor: Actor | null, projectId: number, revisi
   return revisionInfo(r);
 }
 
+/**
+ * Insert a revision on top of `baseRevision`. Order matters under concurrency (InnoDB, REPEATABLE READ):
+ * the project row is locked by the transaction's very first statement, so every later read in it — the
+ * access check, the head, the next number — sees the state after the previous writer committed. (Reading
+ * anything before the lock fixes the transaction's snapshot early, and the next number read from that
+ * stale snapshot collided: "Duplicate entry" 500s, and 409s whose newer head was invisible.) The head
+ * and the number are read with locking reads as well, which always see the newest committed rows.
+ */
 async function insertRevision(actor: Actor | null, projectId: number, params: unknown, message: string, baseRevision: number | null | undefined, action: string, details: Record<string, unknown> = {}): Promise<RevisionInfo> {
   const valid = validateParams(params);
   const id = await db().transaction(async (trx) => {
+    const locked = await trx('projects').where({ id: projectId }).forUpdate().first('head_revision');
     await access(actor, projectId, 'edit', trx);
-    // Lock the project row: concurrent saves serialise here, and the loser sees the new head.
-    const p = await trx('projects').where({ id: projectId }).forUpdate().first('head_revision');
-    const head = p.head_revision ? Number(p.head_revision) : null;
+    if (!locked) throw new ApiError('not_found', 'No such project, or you cannot see it.');
+    const head = locked.head_revision ? Number(locked.head_revision) : null;
     if (baseRevision !== undefined && baseRevision !== head) {
-      const newer = head ? await trx('revisions as r').leftJoin('users as u', 'u.id', 'r.author_id').where('r.id', head).first('r.*', 'u.name as author_name') : null;
+      const newer = head ? await trx('revisions as r').leftJoin('users as u', 'u.id', 'r.author_id').where('r.id', head).forShare().first('r.*', 'u.name as author_name') : null;
       throw new ApiError('conflict', 'Someone saved a newer revision while you were editing. Your changes were not saved; review the newer revision and save again on top of it.', {
         baseRevision,
         head: newer ? revisionInfo(newer) : null,
       });
     }
-    const last = await trx('revisions').where({ project_id: projectId }).max<{ n: number | null }>({ n: 'number' }).first();
+    const last = await trx('revisions').where({ project_id: projectId }).forUpdate().max<{ n: number | null }>({ n: 'number' }).first();
     const number = Number(last?.n ?? 0) + 1;
     const [rid] = await trx('revisions').insert({ project_id: projectId, number, params: JSON.stringify(valid), message, author_id: actor!.id });
     await trx('projects').where({ id: projectId }).update({ head_revision: rid, updated_at: trx.fn.now(3) });

@@ -10,9 +10,11 @@ import { db } from './db';
 import { contains } from './paging';
 import { ApiError } from './errors';
 import { randomToken, sha256Hex } from './crypto';
-import { sendMail, siteUrl } from './mail';
+import { siteUrl } from './mail';
 import { audit } from './audit';
-import { clearAccount, consumeAttempt } from './ratelimit';
+import { consumeAttempt, mailBudget, signInFailed, signInSucceeded } from './ratelimit';
+import { defineTask, enqueue, queueMail } from './outbox';
+import { forgetUser } from './actor';
 import type { Actor, SiteRole } from './authz';
 import { acceptInvitationInTrx, checkInvitation } from './members';
 
@@ -63,47 +65,78 @@ export async function signUp(input: z.infer<typeof signUpSchema>, ip: string): P
   await consumeAttempt('signup', input.email, ip);
   const invite = input.invite ? await checkInvitation(input.invite) : null;
   if (input.invite && !invite) throw new ApiError('unprocessable', 'This invitation link is not valid any more (expired, used or withdrawn).');
-  const invitedHere = invite && invite.email === input.email;
+  const invitedHere = Boolean(invite && invite.email === input.email);
+  // The hash costs the same for every address; everything that depends on whether the address already
+  // has an account happens off the request path (lib/server/outbox.ts), so the answer cannot tell.
   const hash = await bcrypt.hash(input.password, BCRYPT_COST);
-  let mail: { subject: string; text: string } | null = null;
+  if (!invitedHere) {
+    await enqueue('account.signup', { email: input.email, name: input.name, hash, ip });
+    return { message: SIGNUP_ANSWER, verified: false };
+  }
+  // An invitation to this very address proves the mailbox, so the account is ready at once.
   const verified = await db().transaction(async (trx) => {
     const existing = await trx('users').where({ email: input.email }).forUpdate().first('id', 'verified_at');
-    if (existing?.verified_at) {
-      mail = {
-        subject: 'Someone tried to sign up to Tauforge with your address',
-        text: `Someone (perhaps you) tried to create a Tauforge account for this address, which already has one.\n\nIf you forgot your password, reset it here:\n${siteUrl('/reset')}\n\nIf it was not you, you can ignore this message.`,
-      };
-      return false;
-    }
+    if (existing?.verified_at) return false;
     let userId: number;
     if (existing) {
       userId = Number(existing.id);
-      await trx('users').where({ id: userId }).update({ name: input.name, password_hash: hash, updated_at: trx.fn.now(3) });
+      await trx('users').where({ id: userId }).update({ name: input.name, password_hash: hash, verified_at: trx.fn.now(3), updated_at: trx.fn.now(3) });
     } else {
-      [userId] = await trx('users').insert({ email: input.email, name: input.name, password_hash: hash, site_role: 'member' });
+      [userId] = await trx('users').insert({ email: input.email, name: input.name, password_hash: hash, site_role: 'member', verified_at: trx.fn.now(3) });
     }
-    await audit({ actorId: userId, action: 'user.signup', targetType: 'user', targetId: userId, ip, details: { invited: Boolean(invitedHere) } }, trx);
-    if (invitedHere && invite) {
-      // Opening the invitation mail proves the address, so no second link is needed.
-      await trx('users').where({ id: userId }).update({ verified_at: trx.fn.now(3) });
-      await acceptInvitationInTrx(trx, invite.id, userId);
-      return true;
-    }
-    const token = await issueLink(trx, userId, 'verify', VERIFY_HOURS * 3600_000);
-    mail = {
-      subject: 'Confirm your Tauforge address',
-      text: `Welcome to Tauforge, ${input.name}.\n\nOpen this link within ${VERIFY_HOURS} hours to confirm your address and finish signing up:\n${siteUrl(`/verify?token=${token}`)}\n\nIf you did not sign up, ignore this message; the account stays unusable.`,
-    };
-    return false;
+    await audit({ actorId: userId, action: 'user.signup', targetType: 'user', targetId: userId, ip, details: { invited: true } }, trx);
+    await acceptInvitationInTrx(trx, invite!.id, userId);
+    return true;
   });
-  if (mail) {
-    const m = mail as { subject: string; text: string };
-    await sendMail(input.email, m.subject, m.text);
+  if (!verified) {
+    await enqueue('account.signup', { email: input.email, name: input.name, hash, ip });
+    return { message: SIGNUP_ANSWER, verified: false };
   }
-  return verified
-    ? { message: 'Your account is ready and you have joined the project. Sign in to continue.', verified: true }
-    : { message: SIGNUP_ANSWER, verified: false };
+  return { message: 'Your account is ready and you have joined the project. Sign in to continue.', verified: true };
 }
+
+/**
+ * The part of a sign-up that depends on the address, run from the outbox:
+ * - a confirmed account: its owner is told someone tried, nothing changes;
+ * - an account waiting for confirmation: nothing changes either (not the name, never the password —
+ *   otherwise a second sign-up would take over the first one's pending account); the owner gets a
+ *   fresh confirmation link, and a reset link in case they did not start the first sign-up themselves;
+ * - a new address: the account is created unconfirmed and the confirmation link goes out.
+ * Each address receives at most MAIL_PER_ACCOUNT_PER_HOUR such messages an hour.
+ */
+defineTask('account.signup', async (p) => {
+  const email = String(p.email);
+  const name = String(p.name);
+  const ip = String(p.ip);
+  const mail = await db().transaction(async (trx): Promise<{ subject: string; text: string } | null> => {
+    const existing = await trx('users').where({ email }).forUpdate().first('id', 'name', 'verified_at', 'disabled_at', 'created_at');
+    if (existing?.verified_at) {
+      return {
+        subject: 'Someone tried to sign up to Tauforge with your address',
+        text: `Someone (perhaps you) tried to create a Tauforge account for this address, which already has one.\n\nIf you forgot your password, reset it here:\n${siteUrl('/reset')}\n\nIf it was not you, you can ignore this message.`,
+      };
+    }
+    if (existing) {
+      const userId = Number(existing.id);
+      if (existing.disabled_at) return null;
+      await audit({ actorId: null, action: 'user.signup_repeat', targetType: 'user', targetId: userId, ip }, trx);
+      const verify = await issueLink(trx, userId, 'verify', VERIFY_HOURS * 3600_000);
+      const reset = await issueLink(trx, userId, 'reset', RESET_MINUTES * 60_000);
+      return {
+        subject: 'Confirm your Tauforge address',
+        text: `Someone asked again to sign up to Tauforge with this address. An account for it has been waiting for confirmation since ${new Date(existing.created_at).toISOString().slice(0, 16).replace('T', ' ')} UTC; signing up again does not change its name or password.\n\nIf you started that sign-up, open this link within ${VERIFY_HOURS} hours to confirm it (the password is the one you chose then):\n${siteUrl(`/verify?token=${verify}`)}\n\nIf you did not, or you no longer know that password, choose a new password here within ${RESET_MINUTES} minutes instead; this also confirms the address:\n${siteUrl(`/reset?token=${reset}`)}\n\nIf you do not want an account, ignore this message.`,
+      };
+    }
+    const [userId] = await trx('users').insert({ email, name, password_hash: String(p.hash), site_role: 'member' });
+    await audit({ actorId: userId, action: 'user.signup', targetType: 'user', targetId: userId, ip, details: { invited: false } }, trx);
+    const token = await issueLink(trx, userId, 'verify', VERIFY_HOURS * 3600_000);
+    return {
+      subject: 'Confirm your Tauforge address',
+      text: `Welcome to Tauforge, ${name}.\n\nOpen this link within ${VERIFY_HOURS} hours to confirm your address and finish signing up:\n${siteUrl(`/verify?token=${token}`)}\n\nIf you did not sign up, ignore this message; the account stays unusable.`,
+    };
+  });
+  if (mail && (await mailBudget('signup', email))) await queueMail(email, mail.subject, mail.text);
+});
 
 async function takeLink(trx: Knex.Transaction, token: string, purpose: 'verify' | 'reset'): Promise<number> {
   const row = await trx('auth_links').where({ token_hash: sha256Hex(token), purpose }).forUpdate().first();
@@ -126,52 +159,85 @@ export async function verifyEmail(input: z.infer<typeof verifySchema>, ip: strin
 
 export async function requestReset(input: z.infer<typeof resetRequestSchema>, ip: string): Promise<string> {
   await consumeAttempt('reset', input.email, ip);
-  const user = await db()('users').where({ email: input.email }).whereNull('disabled_at').first('id', 'name');
-  if (user) {
-    const token = await db().transaction((trx) => issueLink(trx, Number(user.id), 'reset', RESET_MINUTES * 60_000));
-    await sendMail(
-      input.email,
-      'Reset your Tauforge password',
-      `Someone asked to reset the password of the Tauforge account for this address.\n\nOpen this link within ${RESET_MINUTES} minutes to choose a new password:\n${siteUrl(`/reset?token=${token}`)}\n\nIf it was not you, ignore this message; your password stays as it is.`,
-    );
-  }
+  // Whether the address has an account is decided off the request path, so both answers take as long.
+  await enqueue('account.reset', { email: input.email, ip });
   return RESET_ANSWER;
 }
+
+defineTask('account.reset', async (p) => {
+  const email = String(p.email);
+  const user = await db()('users').where({ email }).whereNull('disabled_at').first('id', 'name');
+  if (!user || !(await mailBudget('reset', email))) return;
+  const token = await db().transaction((trx) => issueLink(trx, Number(user.id), 'reset', RESET_MINUTES * 60_000));
+  await queueMail(
+    email,
+    'Reset your Tauforge password',
+    `Someone asked to reset the password of the Tauforge account for this address.\n\nOpen this link within ${RESET_MINUTES} minutes to choose a new password:\n${siteUrl(`/reset?token=${token}`)}\n\nIf it was not you, ignore this message; your password stays as it is.`,
+  );
+});
 
 export async function resetPassword(input: z.infer<typeof resetSchema>, ip: string): Promise<void> {
   const hash = await bcrypt.hash(input.password, BCRYPT_COST);
   await db().transaction(async (trx) => {
     const userId = await takeLink(trx, input.token, 'reset');
     // A reset link reaches the mailbox, so it also confirms the address.
-    await trx('users').where({ id: userId }).update({ password_hash: hash, verified_at: trx.raw('COALESCE(verified_at, CURRENT_TIMESTAMP(3))'), updated_at: trx.fn.now(3) });
-    await trx('auth_links').where({ user_id: userId, purpose: 'reset' }).whereNull('used_at').update({ used_at: trx.fn.now(3) });
+    // A new password ends every session signed in with the old one (session_version, lib/server/actor.ts).
+    await trx('users').where({ id: userId }).update({
+      password_hash: hash,
+      verified_at: trx.raw('COALESCE(verified_at, CURRENT_TIMESTAMP(3))'),
+      session_version: trx.raw('session_version + 1'),
+      updated_at: trx.fn.now(3),
+    });
+    await trx('auth_links').where({ user_id: userId }).whereNull('used_at').update({ used_at: trx.fn.now(3) });
     await audit({ actorId: userId, action: 'user.reset_password', targetType: 'user', targetId: userId, ip }, trx);
-  });
+    return userId;
+  }).then((userId) => forgetUser(userId));
 }
 
 export type SignInOutcome =
-  | { ok: true; user: { id: number; email: string; name: string; siteRole: SiteRole } }
+  | { ok: true; user: { id: number; email: string; name: string; siteRole: SiteRole; sessionVersion: number } }
   | { ok: false; reason: 'invalid' | 'unverified' | 'disabled' };
 
 // A fixed hash to compare against when the address is unknown, so both paths cost one bcrypt.
 const DUMMY_HASH = '$2b$10$6ohHKBhq3/ms2hBcN1PwaOOuBwJpthKgv01CV6GEtOIhxSkCTG.02';
 
-/** Check e-mail + password; rate-limited per address and per client. Throws RateLimitedError. */
+/**
+ * Check e-mail + password. Limited per client address and, for failures, per account + address with
+ * growing delays (lib/server/ratelimit.ts), so a stranger's failures never delay the owner; the owner is
+ * told by mail when the account collects many failures. Throws RateLimitedError.
+ */
 export async function checkCredentials(emailRaw: string, password: string, ip: string): Promise<SignInOutcome> {
   const email = emailRaw.trim().toLowerCase();
   await consumeAttempt('signin', email, ip);
-  const u = await db()('users').where({ email }).first('id', 'email', 'name', 'site_role', 'password_hash', 'verified_at', 'disabled_at');
+  const u = await db()('users').where({ email }).first('id', 'email', 'name', 'site_role', 'password_hash', 'verified_at', 'disabled_at', 'session_version');
   const ok = await bcrypt.compare(password, u?.password_hash ?? DUMMY_HASH);
   if (!u || !u.password_hash || !ok) {
-    await audit({ actorId: u ? Number(u.id) : null, action: 'auth.signin_failed', targetType: 'user', targetId: u ? Number(u.id) : null, ip });
+    const { warnOwner, failuresOnAccount } = signInFailed(email, ip);
+    await audit({ actorId: null, action: 'auth.signin_failed', targetType: 'user', targetId: u ? Number(u.id) : null, ip });
+    if (u && warnOwner && u.verified_at && (await mailBudget('warning', email))) {
+      await queueMail(
+        email,
+        'Failed sign-ins to your Tauforge account',
+        `Someone has tried to sign in to your Tauforge account and failed ${failuresOnAccount} times within the last hour (the latest from ${ip}).\n\nYou can still sign in as usual: these attempts slow down only the addresses they come from.\nIf it was not you, nothing is needed; if your password is weak or used elsewhere, change it:\n${siteUrl('/reset')}`,
+      );
+    }
     return { ok: false, reason: 'invalid' };
   }
   // Only someone who knows the password learns that the account is unverified or disabled.
   if (u.disabled_at) return { ok: false, reason: 'disabled' };
   if (!u.verified_at) return { ok: false, reason: 'unverified' };
-  await clearAccount('signin', email);
+  signInSucceeded(email, ip);
   await audit({ actorId: Number(u.id), action: 'auth.signin', targetType: 'user', targetId: Number(u.id), ip });
-  return { ok: true, user: { id: Number(u.id), email: u.email, name: u.name, siteRole: u.site_role } };
+  return { ok: true, user: { id: Number(u.id), email: u.email, name: u.name, siteRole: u.site_role, sessionVersion: Number(u.session_version ?? 0) } };
+}
+
+/** End every session of this account (this one too): the session version moves on. */
+export async function signOutEverywhere(actor: Actor, ip: string): Promise<void> {
+  await db().transaction(async (trx) => {
+    await trx('users').where({ id: actor.id }).update({ session_version: trx.raw('session_version + 1'), updated_at: trx.fn.now(3) });
+    await audit({ actorId: actor.id, action: 'user.signout_all', targetType: 'user', targetId: actor.id, ip }, trx);
+  });
+  forgetUser(actor.id);
 }
 
 // ---- admin ---------------------------------------------------------------------------------
@@ -235,6 +301,8 @@ export async function updateUser(actor: Actor | null, id: number, input: z.infer
     const patch: Record<string, unknown> = { updated_at: trx.fn.now(3) };
     if (input.siteRole) patch.site_role = input.siteRole;
     if (input.disabled !== undefined) patch.disabled_at = input.disabled ? trx.fn.now(3) : null;
+    // Disabling ends every session for good: enabling again does not bring the old cookies back.
+    if (disabling) patch.session_version = trx.raw('session_version + 1');
     await trx('users').where({ id }).update(patch);
     if (input.siteRole && input.siteRole !== u.site_role) {
       await audit({ actorId: admin.id, action: 'user.role_change', targetType: 'user', targetId: id, ip, details: { from: u.site_role, to: input.siteRole } }, trx);
@@ -243,6 +311,7 @@ export async function updateUser(actor: Actor | null, id: number, input: z.infer
       await audit({ actorId: admin.id, action: input.disabled ? 'user.disable' : 'user.enable', targetType: 'user', targetId: id, ip }, trx);
     }
   });
+  forgetUser(id);
 }
 
 export async function listMail(actor: Actor | null, q: { page: number; pageSize: number; to?: string }) {

@@ -47,7 +47,8 @@ export async function serve(env, port) {
   if (!(await portFree(port))) fail(`port ${port} on 127.0.0.1 is in use; stop what listens there or set PORT to a free port.`);
   step(`starting the app server on 127.0.0.1:${port}`);
   // Run next's own entry point so the PID is the server's (an npx wrapper would leave it listening).
-  const child = startChild(process.execPath, [nextBin, 'start', '-H', '127.0.0.1', '-p', String(port)], {
+  // peer-address.cjs hands the socket's address to the app (client addresses, rate limits, audit log).
+  const child = startChild(process.execPath, ['--require', join(root, 'scripts', 'peer-address.cjs'), nextBin, 'start', '-H', '127.0.0.1', '-p', String(port)], {
     cwd: root,
     env: { ...env, NEXT_TELEMETRY_DISABLED: '1' },
   });

@@ -31,7 +31,7 @@ export async function makeUser(label: string, opts: { siteRole?: 'admin' | 'memb
     site_role: opts.siteRole ?? 'member',
     verified_at: opts.verified === false ? null : new Date(),
   });
-  const token = await encode({ token: { uid: Number(id), email }, secret: process.env.NEXTAUTH_SECRET! });
+  const token = await encode({ token: { uid: Number(id), email, sv: 0 }, secret: process.env.NEXTAUTH_SECRET! });
   const actor: Actor = { id: Number(id), email, name: label, siteRole: opts.siteRole ?? 'member', via: 'session' };
   return { id: Number(id), email, actor, cookie: `next-auth.session-token=${token}` };
 }
@@ -93,6 +93,8 @@ export async function call(
 ): Promise<Response> {
   const headers: Record<string, string> = { ...opts.headers };
   if (opts.cookie) headers.cookie = opts.cookie;
+  // Our own pages send their origin; a cookie-authenticated change without it is refused (lib/server/http.ts).
+  if (opts.cookie && method !== 'GET' && !('origin' in headers)) headers.origin = 'http://127.0.0.1';
   if (opts.bearer) headers.authorization = `Bearer ${opts.bearer}`;
   let body: BodyInit | undefined;
   if (opts.form) body = opts.form;

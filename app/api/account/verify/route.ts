@@ -1,7 +1,7 @@
-import { clientIp, json, readJson, route } from '@/lib/server/http';
+import { clientAddress, json, readJson, route } from '@/lib/server/http';
 import { verifyEmail, verifySchema } from '@/lib/server/users';
 
 export const POST = route(async (req) => {
-  await verifyEmail(await readJson(req, verifySchema), clientIp(req));
+  await verifyEmail(await readJson(req, verifySchema), clientAddress(req));
   return json({ message: 'Your address is confirmed. You can sign in now.' });
 });

@@ -1,15 +1,14 @@
-import { route, routeId } from '@/lib/server/http';
+import { attachmentHeaders, route, routeId } from '@/lib/server/http';
 import { downloadExport } from '@/lib/server/exports';
 
 type P = { id: string };
 
 export const GET = route<P>(async (_req, actor, p) => {
-  const { info, bytes, mediaType } = await downloadExport(actor, routeId(p.id, 'export'));
+  const { info, bytes } = await downloadExport(actor, routeId(p.id, 'export'));
   return new Response(new Uint8Array(bytes), {
     status: 200,
     headers: {
-      'content-type': `${mediaType}; charset=utf-8`,
-      'content-disposition': `attachment; filename="${info.filename}"`,
+      ...attachmentHeaders(info.filename),
       'content-length': String(bytes.length),
       etag: `"${info.sha256}"`,
       'x-tauforge-sha256': info.sha256,
