@@ -7,6 +7,7 @@ import { buttonClass } from '@/components/ui/buttons';
 import { Field, inputClass } from '@/components/ui/fields';
 import { Notice } from '@/components/ui/messages';
 import { signinMessage } from './messages';
+import { safeCallbackPath } from '@/lib/auth/callback';
 
 export function SignInForm(props: { callbackUrl?: string; error?: string; notice?: string }) {
   const router = useRouter();
@@ -14,7 +15,6 @@ export function SignInForm(props: { callbackUrl?: string; error?: string; notice
   const [password, setPassword] = useState('');
   const [error, setError] = useState<string | null>(signinMessage(props.error));
   const [busy, setBusy] = useState(false);
-  const target = props.callbackUrl && props.callbackUrl.startsWith('/') && !props.callbackUrl.startsWith('//') ? props.callbackUrl : '/projects';
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
@@ -26,7 +26,8 @@ export function SignInForm(props: { callbackUrl?: string; error?: string; notice
       setError(signinMessage(r?.error ?? 'CredentialsSignin'));
       return;
     }
-    router.push(target);
+    // Parsed against our own origin: only a path on this site is followed (lib/auth/callback.ts).
+    router.push(safeCallbackPath(props.callbackUrl, window.location.origin));
     router.refresh();
   }
 

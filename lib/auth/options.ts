@@ -9,6 +9,7 @@ import CredentialsProvider from 'next-auth/providers/credentials';
 import { checkCredentials } from '../server/users';
 import { RateLimitedError } from '../server/ratelimit';
 import { clientAddressOf } from '../server/client-address';
+import { safeCallbackPath } from './callback';
 
 export const SESSION_MAX_AGE = 12 * 60 * 60;
 
@@ -52,6 +53,10 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
+    // next-auth's own redirects (sign-out, its error page) follow the same rule as the sign-in form.
+    async redirect({ url, baseUrl }) {
+      return new URL(safeCallbackPath(url, baseUrl, '/'), baseUrl).toString();
+    },
     async jwt({ token, user }) {
       if (user) {
         token.uid = Number(user.id);

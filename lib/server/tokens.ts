@@ -35,6 +35,8 @@ export interface ApiTokenInfo {
   lastUsedAt: string | null;
   revokedAt: string | null;
   expiresAt: string | null;
+  /** True once expiresAt has passed (when the list was read). */
+  expired: boolean;
   scope: TokenScope;
 }
 
@@ -52,7 +54,7 @@ interface TokenRow {
 const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
 
 function info(r: TokenRow): ApiTokenInfo {
-  return { id: Number(r.id), name: r.name, prefix: r.prefix, createdAt: iso(r.created_at)!, lastUsedAt: iso(r.last_used_at), revokedAt: iso(r.revoked_at), expiresAt: iso(r.expires_at), scope: r.scope ?? 'write' };
+  return { id: Number(r.id), name: r.name, prefix: r.prefix, createdAt: iso(r.created_at)!, lastUsedAt: iso(r.last_used_at), revokedAt: iso(r.revoked_at), expiresAt: iso(r.expires_at), expired: r.expires_at !== null && new Date(r.expires_at).getTime() <= Date.now(), scope: r.scope ?? 'write' };
 }
 
 export async function listTokens(actor: Actor): Promise<ApiTokenInfo[]> {
