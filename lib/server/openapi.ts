@@ -52,6 +52,7 @@ const PATHS: Record<string, Record<string, Op>> = {
   '/api/account/verify': { post: { summary: 'Confirm an address with the token from the mail', body: verifySchema, ok: 200, auth: false } },
   '/api/account/reset': { post: { summary: 'Ask for a password reset link', body: resetRequestSchema, ok: 202, auth: false } },
   '/api/account/reset/confirm': { post: { summary: 'Set a new password with the reset token', body: resetSchema, ok: 200, auth: false } },
+  '/api/account/sessions': { delete: { summary: 'Sign out everywhere: end every session of your account (browser sessions only)', ok: 204 } },
   '/api/me': { get: { summary: 'Who the request is signed in as', ok: 200 } },
   '/api/starters': { get: { summary: 'Starting models for new projects', ok: 200, auth: false } },
   '/api/projects': {

@@ -79,6 +79,8 @@ export async function signUp(input: z.infer<typeof signUpSchema>, ip: string): P
     if (existing?.verified_at) return false;
     let userId: number;
     if (existing) {
+      // A pending account, and the invitation proves this caller holds the mailbox: the mailbox owner's
+      // password wins over whatever the unconfirmed sign-up chose (which anyone could have typed).
       userId = Number(existing.id);
       await trx('users').where({ id: userId }).update({ name: input.name, password_hash: hash, verified_at: trx.fn.now(3), updated_at: trx.fn.now(3) });
     } else {
