@@ -306,6 +306,8 @@ describe('7. account discovery by timing', () => {
       'import json,sys\nfrom scipy.stats import mannwhitneyu\nd=json.load(sys.stdin)\nprint(json.dumps({"p": float(mannwhitneyu(d["a"], d["b"], alternative="two-sided").pvalue)}))',
       JSON.stringify({ a: known, b: unknown }),
     );
+    const median = (a: number[]) => [...a].sort((x, y) => x - y)[a.length >> 1];
+    console.info(`reset timing: known median ${median(known).toFixed(2)} ms, unknown median ${median(unknown).toFixed(2)} ms, Mann-Whitney p = ${p.toFixed(3)}`);
     expect(p, `known ${JSON.stringify(known.map(Math.round))} unknown ${JSON.stringify(unknown.map(Math.round))}`).toBeGreaterThan(1e-4);
   });
 });
