@@ -197,7 +197,7 @@ describe('journey', () => {
     await page.waitForSelector('[data-testid=atom-count]', { timeout: 60_000 });
     const count = Number((await page.textContent('[data-testid=atom-count]'))!.replace(/,/g, ''));
     // The viewer loads lazily; let it draw before the picture is taken.
-    await page.waitForFunction('window.__tauforgeViewer && window.__tauforgeViewer.frames() > 0', null, { timeout: 60_000 });
+    await page.waitForFunction(() => ((window as unknown as { __tauforgeViewer?: { frames(): number } }).__tauforgeViewer?.frames() ?? 0) > 0, null, { timeout: 60_000 });
     await screenshot(page, 'journey-decagonal');
 
     await page.getByLabel('File format').selectOption('cif');

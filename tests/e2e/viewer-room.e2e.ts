@@ -71,7 +71,7 @@ describe('the 3D view takes the room it needs', () => {
     if ((await order.inputValue()) !== '2/1') await order.fill('2/1');
     await page.getByRole('button', { name: /^(Generate|Cut again)$/ }).click();
     await page.waitForSelector('[data-testid=atom-count]', { timeout: 90_000 });
-    await page.waitForFunction(`${HOOK} && ${HOOK}.frames() > 0`, null, { timeout: 60_000 });
+    await page.waitForFunction(() => ((window as unknown as { __tauforgeViewer?: { frames(): number } }).__tauforgeViewer?.frames() ?? 0) > 0, null, { timeout: 60_000 });
     await settle(page);
     const open = await canvasBox(page);
     await screenshot(page, 'viewer-room-1440-panels-open');
@@ -88,7 +88,7 @@ describe('the 3D view takes the room it needs', () => {
     // The other tabs still work with the panel folded, and the view comes back.
     await page.getByRole('tab', { name: 'Perpendicular space' }).click();
     await page.getByRole('tab', { name: '3D model' }).click();
-    await page.waitForFunction(`${HOOK} && ${HOOK}.frames() > 0`, null, { timeout: 60_000 });
+    await page.waitForFunction(() => ((window as unknown as { __tauforgeViewer?: { frames(): number } }).__tauforgeViewer?.frames() ?? 0) > 0, null, { timeout: 60_000 });
 
     // Full window: the view covers the browser window; Esc brings the page back.
     await page.getByRole('button', { name: 'Full window' }).click();

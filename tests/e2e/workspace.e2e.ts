@@ -68,7 +68,7 @@ describe('workspace', () => {
     expect(Math.abs(count - rho * a ** 3) / count).toBeLessThan(0.01);
 
     // Turn it: a drag on the canvas draws new frames.
-    await page.waitForFunction('window.__tauforgeViewer && window.__tauforgeViewer.frames() > 0', null, { timeout: 60_000 });
+    await page.waitForFunction(() => ((window as unknown as { __tauforgeViewer?: { frames(): number } }).__tauforgeViewer?.frames() ?? 0) > 0, null, { timeout: 60_000 });
     const canvas = page.locator('canvas').first();
     const box = (await canvas.boundingBox())!;
     const before = await frames(page);
