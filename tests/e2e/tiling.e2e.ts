@@ -86,7 +86,8 @@ async function longestDrawnSide(page: Page): Promise<number> {
 
 /** A project with these params, made through the REST API as the signed-in user; returns its workspace URL. */
 async function projectWith(page: Page, name: string, params: Record<string, unknown>): Promise<string> {
-  const r = await page.request.post(`${baseUrl}/api/projects`, { data: { name: `${name} ${Date.now()}`, params } });
+  // Cookie-authenticated changes must say they come from our own origin, as the pages' fetch() does.
+  const r = await page.request.post(`${baseUrl}/api/projects`, { headers: { origin: baseUrl }, data: { name: `${name} ${Date.now()}`, params } });
   expect(r.status(), await r.text()).toBe(201);
   const { id } = (await r.json()) as { id: number };
   return `${baseUrl}/projects/${id}/workspace`;
