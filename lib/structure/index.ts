@@ -1,5 +1,6 @@
 export * from './types';
 export * from './elements';
+export * from './radii';
 export * from './validate';
 export * from './checks';
 export * from './merge';
