@@ -4,3 +4,5 @@ export * from './radii';
 export * from './validate';
 export * from './checks';
 export * from './merge';
+export * from './wrap';
+export * from './supercell';
