@@ -1,5 +1,6 @@
 /**
- * LAMMPS data file, atom style `atomic` (LAMMPS manual, read_data command): a comment line, the counts, the box,
+ * LAMMPS data file, atom style `atomic` (LAMMPS manual, read_data command): a title line (the check's warnings on a
+ * '#' line below it), the counts, the box,
  * `Masses` (one line per atom type, the element in a comment), and `Atoms # atomic` with `id type x y z`.
  *
  * LAMMPS boxes are "restricted triclinic": a = (lx, 0, 0), b = (xy, ly, 0), c = (xz, yz, lz) with lx, ly, lz > 0
@@ -73,7 +74,16 @@ export function writeLammpsData(s: Structure, opts: SimulationWriteOptions = {})
   const types = [...new Set(s.species)].sort((a, b) => a - b);
   const typeOf = new Map(types.map((z, t) => [z, t + 1]));
   const [[lx], [xy, ly], [xz, yz, lz]] = box;
-  const out: string[] = [simulationComment(s, opts.comment), ''];
+  // The first line is LAMMPS's title line. Readers other than LAMMPS (ase.io.read 3.22) also scan it for header
+  // keywords ("atoms", "xlo xhi"), so the check's words go on a '#' comment line below it (LAMMPS ignores text
+  // after '#') and the title only says how many problems there are.
+  const out: string[] = [];
+  if (opts.comment) {
+    const severe = (opts.comment.match(/\bSEVERE\b/g) ?? []).length;
+    const warnings = (opts.comment.match(/\bWARNING\b/g) ?? []).length;
+    out.push(simulationComment(s, `check: ${severe} severe, ${warnings} warning${warnings === 1 ? '' : 's'} - see the comment below`), `# ${opts.comment}`);
+  } else out.push(simulationComment(s));
+  out.push('');
   out.push(`${s.species.length} atoms`, `${types.length} atom types`, '');
   out.push(`0.0 ${fixed(lx, 10)} xlo xhi`, `0.0 ${fixed(ly, 10)} ylo yhi`, `0.0 ${fixed(lz, 10)} zlo zhi`);
   if (xy !== 0 || xz !== 0 || yz !== 0) out.push(`${fixed(xy, 10)} ${fixed(xz, 10)} ${fixed(yz, 10)} xy xz yz`);

@@ -1,6 +1,7 @@
 import type { Structure } from '../structure/types';
 import { supercell, type SupercellSize } from '../structure/supercell';
 import { wrapIntoCell } from '../structure/wrap';
+import { checkComment, checkStructure, type CheckReport, type SpaceGroupProvider } from '../structure/checks/report';
 import { writeCif } from './cif';
 import { writeExtxyz } from './extxyz';
 import { writeJson } from './json';
@@ -75,4 +76,21 @@ export function writeExport(s: Structure, format: WriteFormat, opts: ExportOptio
     throw new Error(`${name} needs a periodic cell: cut an approximant (this structure is a finite patch or a tiling without a cell)`);
   }
   return writeStructure(exportStructure(s, opts), format, { comment: opts.comment });
+}
+
+export interface ExportFileOptions {
+  supercell?: SupercellSize;
+  /** A symmetry finder for the check (see lib/structure/checks/report.ts). */
+  spaceGroup?: SpaceGroupProvider;
+}
+
+/**
+ * The one export pipeline (CLI, API, download menu): check the cut, then write it — supercell and wrapping as
+ * exportStructure does — with the check's warnings in the file's comment line. Returns the report too, so a
+ * caller can show the warnings or ask before handing the file over.
+ */
+export function exportFile(s: Structure, format: WriteFormat, opts: ExportFileOptions = {}): { text: string; report: CheckReport } {
+  const report = checkStructure(s, { spaceGroup: opts.spaceGroup });
+  const text = writeExport(s, format, { supercell: opts.supercell, comment: checkComment(report) });
+  return { text, report };
 }

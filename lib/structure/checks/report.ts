@@ -247,8 +247,14 @@ export function checkStructure(s: Structure, opts: CheckOptions = {}): CheckRepo
 export function checkComment(r: CheckReport, maxLength = 400): string | undefined {
   const shown = r.warnings.filter((w) => w.severity !== 'info');
   if (shown.length === 0) return undefined;
-  const text = `check: ${shown.map((w) => `${w.severity.toUpperCase()} ${w.message}`).join(' ')}`.replace(/\s+/g, ' ');
-  return text.length > maxLength ? `${text.slice(0, maxLength - 1)}…` : text;
+  const text = ascii(`check: ${shown.map((w) => `${w.severity.toUpperCase()} ${w.message}`).join(' ')}`).replace(/\s+/g, ' ');
+  return text.length > maxLength ? `${text.slice(0, maxLength - 3)}...` : text;
+}
+
+/** Plain ASCII for comment lines that Fortran readers (VASP) and old tools see: Å → A, ³ → ^3, subscripts → digits. */
+function ascii(text: string): string {
+  const map: Record<string, string> = { 'Å': 'A', '³': '^3', '²': '^2', '₁': '1', '₂': '2', '·': '*', '–': '-', '—': '-', '…': '...', '≤': '<=', '≥': '>=', '×': 'x' };
+  return text.replace(/[^\x20-\x7e]/g, (c) => map[c] ?? '?');
 }
 
 /** The report as plain text (the CLI's --format text). */
