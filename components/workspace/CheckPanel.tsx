@@ -34,7 +34,8 @@ function verdict(r: CheckReport): { text: string; tone: Severity | 'ok' } {
   const warn = r.warnings.filter((w) => w.severity === 'warning').length;
   if (severe) return { text: `${severe} severe${warn ? `, ${warn} warning${warn === 1 ? '' : 's'}` : ''}`, tone: 'severe' };
   if (warn) return { text: `${warn} warning${warn === 1 ? '' : 's'}`, tone: 'warning' };
-  return { text: 'no problems found', tone: 'ok' };
+  const notes = r.warnings.length;
+  return { text: `no problems found${notes ? ` · ${notes} note${notes === 1 ? '' : 's'} in the full report` : ''}`, tone: 'ok' };
 }
 
 function densityText(r: CheckReport): string | null {
