@@ -1,6 +1,7 @@
 import type { Structure } from '../structure/types';
 import { supercell, type SupercellSize } from '../structure/supercell';
 import { wrapIntoCell } from '../structure/wrap';
+import { DEFAULT_MAX_POINTS } from '../models/point-cap';
 import { checkComment, checkStructure, type CheckReport, type SpaceGroupProvider } from '../structure/checks/report';
 import { writeCif } from './cif';
 import { writeExtxyz } from './extxyz';
@@ -63,6 +64,12 @@ export function exportStructure(s: Structure, opts: Pick<ExportOptions, 'superce
   const n = opts.supercell;
   if (n && (n[0] !== 1 || n[1] !== 1 || n[2] !== 1)) {
     if (!s.cell) throw new Error(`a supercell (${n.join('×')}) needs a periodic cell: cut an approximant`);
+    // The supercell counts against the same point cap as the cut (the cut's own maxPoints, else the default).
+    const cap = (s.model as { maxPoints?: number } | undefined)?.maxPoints ?? DEFAULT_MAX_POINTS;
+    const total = s.species.length * n[0] * n[1] * n[2];
+    if (total > cap) {
+      throw new RangeError(`supercell: ${n.join('×')} of ${s.species.length.toLocaleString('en-US')} atoms is ${total.toLocaleString('en-US')} atoms, more than the point cap of ${cap.toLocaleString('en-US')}`);
+    }
     out = supercell(out, n);
   }
   if (out.cell) out = wrapIntoCell(out);

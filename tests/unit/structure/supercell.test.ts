@@ -53,5 +53,8 @@ describe('supercell n₁×n₂×n₃ (against ase.Atoms.repeat)', () => {
     void _c;
     expect(() => supercell(finite, [2, 1, 1])).toThrow(/no cell/);
     expect(() => writeExport(finite, 'xyz', { supercell: [2, 1, 1] })).toThrow(/needs a periodic cell/);
+    // The point cap of the cut applies to the supercell too.
+    const capped = { ...approximant21(), model: { maxPoints: 1000 } } as unknown as Structure;
+    expect(() => writeExport(capped, 'poscar', { supercell: [2, 2, 2] })).toThrow(/1,088 atoms, more than the point cap of 1,000/);
   });
 });
