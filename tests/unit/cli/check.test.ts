@@ -86,8 +86,8 @@ print(json.dumps({"same": bool(np.allclose(a.cell, b.cell) and a.get_chemical_sy
       r.out,
     );
     expect(ref.n).toBe(32);
-    // 1/1 cubic approximant: a = 2·aR·(τ + 2)/√(τ + 2)... taken from our own CIF would compare us with ourselves;
-    // the cell edge printed in the POSCAR of the same run is the check instead.
+    // The LAMMPS box edge as ASE reads it equals the POSCAR lattice vector of the same cut (two writers agree;
+    // the lattice itself is checked against ASE in tests/unit/formats/lammps.test.ts).
     const poscar = await cli([...base, '--format', 'poscar']);
     expect(ref.a).toBeCloseTo(Number(poscar.out.split('\n')[2].trim().split(/\s+/)[0]), 8);
   });
