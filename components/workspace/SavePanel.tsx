@@ -2,8 +2,10 @@
 /**
  * Save a new revision (with a message, against the revision the edits started from). Forking is components/projects/fork.ts.
  * On 409 the newer revision is shown and the user's edits stay in the form.
+ * The Check step's warnings for the cut on screen are shown before saving; a severe one must be acknowledged.
  */
 import { useState } from 'react';
+import { useExportState } from './downloads';
 
 export interface RevisionRef {
   id: string;
@@ -73,7 +75,11 @@ export function SaveDialog({
   onTakeTheirs: () => void;
 }) {
   const [message, setMessage] = useState('');
+  const [acknowledged, setAcknowledged] = useState(false);
+  const report = useExportState((s) => s.report);
   if (!open) return null;
+  const problems = report?.warnings.filter((w) => w.severity !== 'info') ?? [];
+  const mustAcknowledge = !!report?.severe && !acknowledged;
   const msgErr = message.trim().length === 0 ? 'message: say in a few words what changed' : message.length > 500 ? 'message: at most 500 characters' : null;
   return (
     <div role="dialog" aria-modal="false" aria-labelledby="save-title" className="absolute right-0 top-full z-20 mt-1 w-96 rounded-lg border border-rule bg-card p-3 shadow-lg">
@@ -83,7 +89,7 @@ export function SaveDialog({
       <form
         onSubmit={(e) => {
           e.preventDefault();
-          if (!msgErr) onSave(message.trim());
+          if (!msgErr && !mustAcknowledge) onSave(message.trim());
         }}
         className="mt-2 space-y-2"
       >
@@ -92,6 +98,25 @@ export function SaveDialog({
         </label>
         <textarea id="save-message" autoFocus rows={2} className="w-full rounded-md border border-rule bg-paper px-2 py-1 text-sm" value={message} onChange={(e) => setMessage(e.target.value)} aria-invalid={!!msgErr && message.length > 0} />
         {msgErr && message.length > 0 ? <p className="text-xs text-clay">{msgErr}</p> : null}
+        {problems.length ? (
+          <div className={`rounded-md border p-2 text-xs ${report?.severe ? 'border-clay bg-clay-pale' : 'border-brass bg-brass-pale'}`} data-testid="save-check">
+            <p className="font-medium">The check of the last cut found:</p>
+            <ul className="mt-1 list-disc space-y-0.5 pl-4">
+              {problems.map((w, k) => (
+                <li key={k} className={w.severity === 'severe' ? 'text-clay' : undefined}>
+                  {w.severity === 'severe' ? 'Severe: ' : ''}
+                  {w.message}
+                </li>
+              ))}
+            </ul>
+            {report?.severe ? (
+              <label className="mt-2 flex items-start gap-1.5">
+                <input type="checkbox" checked={acknowledged} onChange={(e) => setAcknowledged(e.target.checked)} />
+                <span>Save anyway: I know this model has severe problems.</span>
+              </label>
+            ) : null}
+          </div>
+        ) : null}
         {conflict ? (
           <div className="rounded-md border border-brass bg-brass-pale p-2 text-xs">
             <p className="font-medium">Someone saved a newer revision while you were editing.</p>
@@ -102,7 +127,7 @@ export function SaveDialog({
             </p>
             <p className="mt-1">Your edits are still in the form. Save them on top of the newer revision, or load the newer one instead.</p>
             <div className="mt-2 flex gap-2">
-              <button type="button" disabled={!!msgErr || busy} className="rounded bg-tide px-2 py-1 text-white disabled:opacity-50" onClick={() => onSave(message.trim(), conflict.id)}>
+              <button type="button" disabled={!!msgErr || busy || mustAcknowledge} className="rounded bg-tide px-2 py-1 text-white disabled:opacity-50" onClick={() => onSave(message.trim(), conflict.id)}>
                 Save mine on top
               </button>
               <button type="button" className="rounded border border-rule px-2 py-1" onClick={onTakeTheirs}>
@@ -116,7 +141,7 @@ export function SaveDialog({
           <button type="button" className="rounded-md border border-rule px-3 py-1 text-sm" onClick={onClose}>
             Close
           </button>
-          <button type="submit" disabled={!!msgErr || busy || !!conflict} className="rounded-md bg-tide px-3 py-1 text-sm font-medium text-white hover:bg-tide-deep disabled:opacity-50">
+          <button type="submit" disabled={!!msgErr || busy || !!conflict || mustAcknowledge} title={mustAcknowledge ? 'Tick the box above to save a model with severe problems' : undefined} className="rounded-md bg-tide px-3 py-1 text-sm font-medium text-white hover:bg-tide-deep disabled:opacity-50">
             {busy ? 'Saving…' : 'Save revision'}
           </button>
         </div>

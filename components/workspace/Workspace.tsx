@@ -19,6 +19,7 @@ import { useJob } from './useJob';
 import { engineMessage, overCapReason } from './cut-limits';
 import { FORMAT_NAMES, formatUnavailable, saveStructure, slug, type StructureFormat } from './downloads';
 import { SaveDialog, postRevision, type RevisionRef } from './SavePanel';
+import { CheckPanel } from './CheckPanel';
 import { forkProject as postFork } from '@/components/projects/fork';
 
 export interface WorkspaceProps {
@@ -303,6 +304,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
             </div>
             <CutFacts summary={summary} stale={stale} ms={cut.ms} />
           </div>
+          <CheckPanel structure={structure} />
           <div className="min-h-0 flex-1 rounded-lg border border-rule bg-card p-2">
             <ViewBoundary name={VIEW_NAMES[shownView]} resetKeys={[shownView, structure, seriesJob.result]}>
             {shownView === 'series' ? (

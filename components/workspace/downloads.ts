@@ -1,41 +1,100 @@
-/** Files from the current cut, written in the browser by lib/formats and handed to file-saver. */
+/**
+ * Files from the current cut, written in the browser by lib/formats and handed to file-saver. Every structure file
+ * goes through the export pipeline (lib/formats/write.ts exportFile): the cut is checked, repeated into the chosen
+ * supercell, wrapped into its cell, and the check's warnings travel in the file's comment line. A cut with a severe
+ * problem is downloaded only after the user confirms.
+ */
 import { saveAs } from 'file-saver';
+import { create } from 'zustand';
 import type { Structure } from '@/lib/structure/types';
-import { writeStructure } from '@/lib/formats/write';
-import type { StructureFormat } from '@/lib/formats/read';
+import type { CheckReport } from '@/lib/structure/checks/report';
+import type { SupercellSize } from '@/lib/structure/supercell';
+import { exportFile, type WriteFormat } from '@/lib/formats/write';
 
-export type { StructureFormat };
+/** Every format the download menu offers (the formats we read, plus POSCAR and LAMMPS data). */
+export type StructureFormat = WriteFormat;
 
 export const FORMAT_NAMES: Record<StructureFormat, string> = {
   xyz: 'XYZ',
   extxyz: 'Extended XYZ',
   cif: 'CIF',
   json: 'JSON (Tauforge)',
+  poscar: 'VASP POSCAR',
+  lammps: 'LAMMPS data',
 };
+
+/**
+ * What the Check panel shares with the download menu and the save dialog: the latest report of the cut on screen
+ * and the supercell chosen for downloads.
+ */
+interface ExportState {
+  report: CheckReport | null;
+  supercell: SupercellSize;
+  setReport: (r: CheckReport | null) => void;
+  setSupercell: (n: SupercellSize) => void;
+}
+
+export const useExportState = create<ExportState>((set) => ({
+  report: null,
+  supercell: [1, 1, 1],
+  setReport: (report) => set({ report }),
+  setSupercell: (supercell) => set({ supercell }),
+}));
 
 export function formatUnavailable(s: Structure, f: StructureFormat): string | null {
   if (f === 'cif' && !s.cell) return 'CIF needs a periodic cell; cut an approximant';
+  if (f === 'poscar' && !s.cell) return 'POSCAR needs a periodic cell; cut an approximant';
+  if (f === 'lammps' && !s.cell) return 'LAMMPS data needs a periodic cell; cut an approximant';
   return null;
 }
 
+/** The supercell applies to periodic cuts only; a finite patch is written as it is. */
+function supercellFor(s: Structure): SupercellSize | undefined {
+  const n = useExportState.getState().supercell;
+  return s.cell && (n[0] !== 1 || n[1] !== 1 || n[2] !== 1) ? n : undefined;
+}
+
 export function structureText(s: Structure, f: StructureFormat): string {
-  return writeStructure(s, f);
+  return exportFile(s, f, { supercell: supercellFor(s) }).text;
 }
 
 export function slug(text: string): string {
   return text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'model';
 }
 
-export function fileName(base: string, f: StructureFormat): string {
-  return `${slug(base)}.${f === 'extxyz' ? 'extxyz' : f}`;
+const EXTENSION: Record<StructureFormat, string> = { xyz: 'xyz', extxyz: 'extxyz', cif: 'cif', json: 'json', poscar: 'vasp', lammps: 'lmp' };
+
+export function fileName(base: string, f: StructureFormat, supercell?: SupercellSize): string {
+  return `${slug(base)}${supercell ? `-${supercell.join('x')}` : ''}.${EXTENSION[f]}`;
 }
 
 export function saveText(text: string, name: string, mime = 'text/plain'): void {
   saveAs(new Blob([text], { type: `${mime};charset=utf-8` }), name);
 }
 
+/** The question asked before a cut with severe problems leaves the browser (null when there is none). */
+export function severeQuestion(r: CheckReport | null, action: string): string | null {
+  if (!r?.severe) return null;
+  const lines = r.warnings.filter((w) => w.severity === 'severe').map((w) => `• ${w.message}`);
+  return `The check found ${lines.length === 1 ? 'a severe problem' : `${lines.length} severe problems`} in this cut:\n\n${lines.join('\n')}\n\n${action} anyway? The warnings go into the file's comment line.`;
+}
+
+/**
+ * Check, ask when something is severe, write and save. Errors (a mixed site in a POSCAR, a patch without a cell)
+ * are shown to the user, never swallowed.
+ */
 export function saveStructure(s: Structure, f: StructureFormat, base: string): void {
-  saveText(structureText(s, f), fileName(base, f), f === 'json' ? 'application/json' : f === 'cif' ? 'chemical/x-cif' : 'chemical/x-xyz');
+  const supercell = supercellFor(s);
+  let out: { text: string; report: CheckReport };
+  try {
+    out = exportFile(s, f, { supercell });
+  } catch (e) {
+    window.alert(`${FORMAT_NAMES[f]} cannot be written: ${(e as Error).message}`);
+    return;
+  }
+  const q = severeQuestion(out.report, `Download the ${FORMAT_NAMES[f]} file`);
+  if (q && !window.confirm(q)) return;
+  saveText(out.text, fileName(base, f, supercell), f === 'json' ? 'application/json' : f === 'cif' ? 'chemical/x-cif' : f === 'xyz' || f === 'extxyz' ? 'chemical/x-xyz' : 'text/plain');
 }
 
 export function saveCanvasPng(canvas: HTMLCanvasElement, name: string): void {

@@ -5,6 +5,7 @@ import { perpDimension, validateStructure } from '../structure/validate';
 import { FormatError, splitLines } from './errors';
 import { canonicalJson } from './canonical-json';
 import { fixed, parseNumber } from './number';
+import { atomContributions } from '../structure/checks/weights';
 import { parseSpeciesToken } from './xyz';
 
 const F = 'extended XYZ';
@@ -14,32 +15,56 @@ function quote(v: string): string {
   return `"${v.replace(/\\/g, '\\\\').replace(/"/g, '\\"')}"`;
 }
 
+/** Rows of the file: one per atom, or one per element of a mixed site (same position, its fraction as occupancy). */
+interface Row {
+  atom: number;
+  z: number;
+  occupancy: number;
+}
+
+function rows(s: Structure): { rows: Row[]; partial: boolean } {
+  const out: Row[] = [];
+  let partial = !!s.occupancy;
+  for (let i = 0; i < s.species.length; i++) {
+    const c = s.siteClasses && s.site ? atomContributions(s, i) : [[s.species[i], s.occupancy ? s.occupancy[i] : 1] as [number, number]];
+    for (const [z, w] of c) {
+      out.push({ atom: i, z, occupancy: w });
+      if (Math.abs(w - 1) > 1e-12) partial = true;
+    }
+  }
+  return { rows: out, partial };
+}
+
 /**
  * Extended XYZ (the key=value comment-line convention read by ase.io.extxyz):
  * `Lattice="ax ay az bx by bz cx cy cz" Properties=species:S:1:pos:R:3[:site:I:1][:occupancy:R:1][:perp:R:d]
- *  pbc="T T T" engine="…" params="<json>"`. Lattice and pbc="T T T" only for periodic structures
+ *  pbc="T T T" engine="…" [check="…"] params="<json>"`. Lattice and pbc="T T T" only for periodic structures
  * (pbc="F F F" otherwise). Columns follow Properties in order; 8 decimals for lengths.
+ * Partial and mixed sites: an occupancy column, and a mixed site written as one row per element at the same
+ * position with that element's fraction (times the site occupancy) — the way a CIF lists a mixed site
+ * (IUCr CIF core, _atom_site_occupancy), so the file says what the site holds instead of its majority element.
  */
-export function writeExtxyz(s: Structure): string {
+export function writeExtxyz(s: Structure, opts: { check?: string } = {}): string {
   validateStructure(s);
-  const n = s.species.length;
   const d = perpDimension(s);
+  const { rows: table, partial } = rows(s);
   let props = 'species:S:1:pos:R:3';
   if (s.site) props += ':site:I:1';
-  if (s.occupancy) props += ':occupancy:R:1';
+  if (partial) props += ':occupancy:R:1';
   if (s.perp && d > 0) props += `:perp:R:${d}`;
   const head: string[] = [];
   if (s.cell) head.push(`Lattice="${s.cell.flatMap((v) => v.map((x) => fixed(x))).join(' ')}"`);
   head.push(`Properties=${props}`);
   head.push(s.cell ? 'pbc="T T T"' : 'pbc="F F F"');
   head.push(`engine=${quote(s.provenance.engine || ENGINE_VERSION)}`);
+  if (opts.check) head.push(`check=${quote(opts.check.replace(/[\r\n]+/g, ' '))}`);
   head.push(`params=${quote(canonicalJson(s.provenance.params ?? null))}`);
-  const out: string[] = [String(n), head.join(' ')];
+  const out: string[] = [String(table.length), head.join(' ')];
   const p = s.positions;
-  for (let i = 0; i < n; i++) {
-    let line = `${symbolOf(s.species[i]).padEnd(2)} ${fixed(p[3 * i])} ${fixed(p[3 * i + 1])} ${fixed(p[3 * i + 2])}`;
+  for (const { atom: i, z, occupancy } of table) {
+    let line = `${symbolOf(z).padEnd(2)} ${fixed(p[3 * i])} ${fixed(p[3 * i + 1])} ${fixed(p[3 * i + 2])}`;
     if (s.site) line += ` ${s.site[i]}`;
-    if (s.occupancy) line += ` ${fixed(s.occupancy[i], 6)}`;
+    if (partial) line += ` ${fixed(occupancy, 6)}`;
     if (s.perp && d > 0) for (let k = 0; k < d; k++) line += ` ${fixed(s.perp[d * i + k])}`;
     out.push(line);
   }

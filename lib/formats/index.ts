@@ -9,3 +9,6 @@ export * from './cif';
 export * from './read';
 export * from './write';
 export * from './measured';
+export * from './ordered';
+export * from './poscar';
+export * from './lammps';

@@ -14,10 +14,10 @@ const COMMENT_PREFIX = 'Tauforge';
  * `Tauforge <engine> params=<json>` so a file records how it was made. Unassigned vertices
  * (species 0) are written as element X, the common practice for dummy atoms.
  */
-export function writeXyz(s: Structure): string {
+export function writeXyz(s: Structure, opts: { check?: string } = {}): string {
   validateStructure(s);
   const n = s.species.length;
-  const out: string[] = [String(n), xyzComment(s)];
+  const out: string[] = [String(n), xyzComment(s, opts.check)];
   const p = s.positions;
   for (let i = 0; i < n; i++) {
     out.push(`${symbolOf(s.species[i]).padEnd(2)} ${fixed(p[3 * i])} ${fixed(p[3 * i + 1])} ${fixed(p[3 * i + 2])}`);
@@ -25,8 +25,13 @@ export function writeXyz(s: Structure): string {
   return out.join('\n') + '\n';
 }
 
-function xyzComment(s: Structure): string {
-  return `${COMMENT_PREFIX} ${s.provenance.engine || ENGINE_VERSION} params=${canonicalJson(s.provenance.params ?? null)}`;
+/**
+ * `Tauforge <engine> [check="<warnings>"] params=<json>`: the check's warnings, when given, travel in the comment
+ * line as a quoted value (backslash and double quote escaped) before params, so the params stay last and readable.
+ */
+function xyzComment(s: Structure, check?: string): string {
+  const c = check ? ` check="${check.replace(/[\r\n]+/g, ' ').replace(/\\/g, '\\\\').replace(/"/g, '\\"')}"` : '';
+  return `${COMMENT_PREFIX} ${s.provenance.engine || ENGINE_VERSION}${c} params=${canonicalJson(s.provenance.params ?? null)}`;
 }
 
 /** Parse the species column: an element symbol (case-insensitive) or an atomic number. */
@@ -87,7 +92,7 @@ export function readXyz(text: string): Structure {
 
 /** Recover params from our own comment line, or describe the file. */
 export function provenanceFromComment(comment: string, format: string): Structure['provenance'] {
-  const m = /^Tauforge (\S+) params=(.*)$/.exec(comment.trim());
+  const m = /^Tauforge (\S+)(?: check="(?:[^"\\]|\\.)*")? params=(.*)$/.exec(comment.trim());
   if (m) {
     try {
       return { engine: m[1], params: JSON.parse(m[2]) };

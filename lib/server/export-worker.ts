@@ -6,8 +6,9 @@
  * `next start` and the tests. Exit code 0 = bytes on stdout; 2 = bad params (message on stderr).
  */
 import type { Structure } from '../structure/types';
-import { writeStructure } from '../formats/write';
-import type { StructureFormat } from '../formats/read';
+import { exportFile, type WriteFormat } from '../formats/write';
+import { parseSupercell } from '../structure/supercell';
+import { checkStructure } from '../structure/checks/report';
 import { generate } from '../models';
 import { braggPowder } from '../diffraction/powder';
 import { peakTableCsv } from '../diffraction/peak-table';
@@ -16,8 +17,14 @@ import { XRAY_LINES } from '../diffraction/wavelengths';
 /** The exported peak list: a laboratory Cu Kα1 X-ray pattern, the most common first comparison. */
 const PEAKS = { radiation: 'xray' as const, wavelength: XRAY_LINES.Cu.ka1, twoThetaMin: 5, twoThetaMax: 120 };
 
-function render(s: Structure, format: string): string {
-  if (format !== 'peaks-csv') return writeStructure(s, format as StructureFormat);
+/**
+ * A format may carry a supercell after '@' ("poscar@2x2x1", lib/server/exports.ts); 'check' is the Check step's
+ * report as JSON (lib/server/check.ts).
+ */
+function render(s: Structure, job: string): string {
+  const [format, size] = job.split('@');
+  if (format === 'check') return JSON.stringify(checkStructure(s));
+  if (format !== 'peaks-csv') return exportFile(s, format as WriteFormat, { supercell: size ? parseSupercell(size) : undefined }).text;
   if (!s.cell) throw new RangeError('the peak list needs a periodic cell: cut an approximant (finite patches give a Debye profile, not reflections)');
   return peakTableCsv(braggPowder(s, PEAKS).peaks, PEAKS);
 }

@@ -7,6 +7,7 @@ import { createProjectSchema, forkSchema, updateProjectSchema } from './projects
 import { restoreSchema, saveRevisionSchema } from './revisions';
 import { changeRoleSchema, inviteSchema, acceptSchema } from './members';
 import { createExportSchema } from './exports';
+import { checkRequestSchema } from './check';
 import { createTokenSchema } from './tokens';
 import { resetRequestSchema, resetSchema, signUpSchema, updateUserSchema, verifySchema } from './users';
 
@@ -83,6 +84,7 @@ const PATHS: Record<string, Record<string, Op>> = {
     post: { summary: 'Export a revision (201 new, 200 when the stored one is reused)', body: createExportSchema, ok: 201 },
   },
   '/api/exports/{id}/download': { get: { summary: 'The export’s bytes', ok: 200 } },
+  '/api/projects/{id}/check': { post: { summary: 'The Check step’s report (distances, density, composition, warnings) for a revision or a structure file’s text', body: checkRequestSchema, ok: 200 } },
   '/api/projects/{id}/datasets': {
     get: { summary: 'Uploaded datasets', query: list, ok: 200 },
     post: { summary: 'Upload a measured pattern or structure file (≤ 20 MB)', multipart: true, ok: 201 },

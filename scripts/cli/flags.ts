@@ -9,7 +9,8 @@ import { CliError, zodMessage } from './errors';
 import { plainError } from '../../lib/zod-text';
 import type { Structure } from '../../lib/structure/types';
 import { readStructure, type StructureFormat } from '../../lib/formats/read';
-import { writeStructure } from '../../lib/formats/write';
+import { exportFile, type WriteFormat } from '../../lib/formats/write';
+import { parseSupercell, type SupercellSize } from '../../lib/structure/supercell';
 import { generate } from '../../lib/models';
 import { radiationSchema } from '../../lib/diffraction/params';
 import type { Radiation } from '../../lib/diffraction/form-factors';
@@ -136,9 +137,24 @@ export function emit(cmd: Command, text: string): void {
   write(text);
 }
 
-/** Params → Structure through the registry (the only way in), written to stdout in one coordinate format. */
-export function generateAndEmit(cmd: Command, params: Record<string, unknown>, format: StructureFormat): void {
+/** commander parser: "2x2x1" → [2, 2, 1]. */
+export function supercellSize(v: string): SupercellSize {
+  try {
+    return parseSupercell(v);
+  } catch (e) {
+    throw new InvalidArgumentError((e as Error).message.replace(/^supercell: /, ''));
+  }
+}
+
+/**
+ * Params → Structure through the registry (the only way in), written to stdout in one format through the export
+ * pipeline (lib/formats/write.ts exportFile): checked, optionally repeated into a supercell, wrapped into the cell
+ * when periodic, the check's warnings in the comment line and on standard error.
+ */
+export function generateAndEmit(cmd: Command, params: Record<string, unknown>, format: WriteFormat | StructureFormat, supercell?: SupercellSize): void {
   const s = compute(() => generate(params));
-  const text = compute(() => writeStructure(s, format));
+  const { text, report } = compute(() => exportFile(s, format, { supercell }));
+  const errOut = cmd.configureOutput().writeErr;
+  for (const w of report.warnings) if (w.severity !== 'info' && errOut) errOut(`check ${w.severity}: ${w.message}\n`);
   emit(cmd, text.endsWith('\n') ? text : text + '\n');
 }

@@ -11,6 +11,7 @@ import { registerTiling } from './commands/tiling';
 import { registerPatch } from './commands/patch';
 import { registerApproximant } from './commands/approximant';
 import { registerDiffract } from './commands/diffract';
+import { registerCheck } from './commands/check';
 import { CliError } from './errors';
 
 /** Where a run's standard output and standard error go. */
@@ -41,6 +42,7 @@ export function buildProgram(output: CliOutput = processOutput): Command {
   registerPatch(program);
   registerApproximant(program);
   registerDiffract(program);
+  registerCheck(program);
   return program;
 }
 

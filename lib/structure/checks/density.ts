@@ -15,7 +15,7 @@ export interface DensityOptions {
 }
 
 export interface DensityRegion {
-  method: 'cell' | 'volume' | 'inner-ball';
+  method: 'cell' | 'volume' | 'inner-ball' | 'patch-sphere';
   /** Volume counted, Å³. */
   volume: number;
   /** Indices of the atoms counted (all atoms for cell/volume). */
@@ -27,7 +27,8 @@ export interface DensityRegion {
 
 /**
  * Which atoms and which volume a density refers to. Periodic: the cell. Given volume: all atoms.
- * Finite patch: the atoms inside a ball about the centroid — no convex hull, and the ball stays away
+ * Icosahedral patch (s.model says so): the patch's own ball. 1D/2D: refused (see modelDensity).
+ * Other finite sets: the atoms inside a ball about the centroid — no convex hull, and the ball stays away
  * from the ragged surface, where a cut-and-project patch is under-filled. Default radius: half the
  * distance from the centroid to the nearest face of the bounding box. Edge effects scale as
  * (surface/volume), so prefer large patches or give innerRadius.
@@ -39,9 +40,23 @@ export function densityRegion(s: Structure, opts: DensityOptions = {}): DensityR
     if (!(opts.volume > 0)) throw new RangeError(`volume must be positive, got ${opts.volume}`);
     return { method: 'volume', volume: opts.volume, atoms: null };
   }
+  // A 1D or 2D model's cell has an invented thickness: no per-Å³ density (modelDensity gives per Å or per Å²).
+  if ((s.dim ?? 3) !== 3) throw new Error('density: a number density per Å³ needs a 3D structure (this one is 1D/2D; see modelDensity)');
   if (s.cell) return { method: 'cell', volume: Math.abs(cellVolume(s.cell)), atoms: null };
   if (n === 0) throw new Error('density: the structure is empty and has no cell; give a volume');
-  if ((s.dim ?? 3) !== 3) throw new Error('density: a number density per Å³ needs a 3D structure (this one is 1D/2D)');
+  const m = s.model as { family?: string; mode?: string; radius?: number; centre?: number[] } | undefined;
+  if (opts.innerRadius === undefined && m?.family === 'icosahedral' && m.mode === 'patch' && m.radius && m.radius > 0) {
+    // An icosahedral patch keeps every point of the cut within R of its centre: its own ball is the region.
+    const R = m.radius;
+    const c: [number, number, number] = [m.centre?.[0] ?? 0, m.centre?.[1] ?? 0, m.centre?.[2] ?? 0];
+    const r2 = (R * (1 + 1e-9)) ** 2;
+    const idx: number[] = [];
+    for (let i = 0; i < n; i++) {
+      const d2 = (s.positions[3 * i] - c[0]) ** 2 + (s.positions[3 * i + 1] - c[1]) ** 2 + (s.positions[3 * i + 2] - c[2]) ** 2;
+      if (d2 <= r2) idx.push(i);
+    }
+    return { method: 'patch-sphere', volume: (4 / 3) * Math.PI * R ** 3, atoms: Uint32Array.from(idx), centre: c, radius: R };
+  }
   const c: [number, number, number] = [0, 0, 0];
   const lo = [Infinity, Infinity, Infinity];
   const hi = [-Infinity, -Infinity, -Infinity];

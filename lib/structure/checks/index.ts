@@ -4,3 +4,6 @@ export * from './density';
 export * from './shells';
 export * from './point-group';
 export * from './weights';
+export * from './model-density';
+export * from './contacts';
+export * from './report';

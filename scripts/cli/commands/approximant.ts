@@ -1,8 +1,8 @@
 import { Option, type Command } from 'commander';
 import { CliError } from '../errors';
-import { generateAndEmit, number, ratio, readJsonFile, vector3 } from '../flags';
-import { STRUCTURE_FORMATS } from '../../../lib/formats/write';
-import type { StructureFormat } from '../../../lib/formats/read';
+import { generateAndEmit, number, ratio, readJsonFile, supercellSize, vector3 } from '../flags';
+import { WRITE_FORMATS, type WriteFormat } from '../../../lib/formats/write';
+import type { SupercellSize } from '../../../lib/structure/supercell';
 
 interface Flags {
   family: 'icosahedral' | 'decagonal';
@@ -13,7 +13,8 @@ interface Flags {
   species?: string;
   decoration?: string;
   maxPoints?: number;
-  format: StructureFormat;
+  format: WriteFormat;
+  supercell?: SupercellSize;
 }
 
 /** approximant: one periodic cell of a cubic (icosahedral) or decagonal approximant. */
@@ -29,13 +30,14 @@ export function registerApproximant(program: Command): void {
     .option('--species <El>', 'element for the vertices (default X)')
     .option('--decoration <file>', 'JSON file with site classes {"classes": […]} (icosahedral)')
     .option('--max-points <n>', 'refuse to build more points than this (default 2000000)', number)
-    .addOption(new Option('--format <fmt>', STRUCTURE_FORMATS.join(', ')).choices(STRUCTURE_FORMATS).default('xyz'))
+    .addOption(new Option('--format <fmt>', `${WRITE_FORMATS.join(', ')} (poscar: VASP; lammps: LAMMPS data, atom style atomic)`).choices(WRITE_FORMATS).default('xyz'))
+    .option('--supercell <n1xn2xn3>', 'repeat the cell, e.g. 2x2x1 (default 1x1x1)', supercellSize)
     .action((o: Flags, cmd: Command) => {
       if (o.family === 'decagonal') {
         // Penrose layers stacked along c (lib/models/decagonal); --aR is the rhombus edge.
         if (o.lattice !== undefined || o.offset !== undefined || o.decoration !== undefined)
           throw new CliError('--family: decagonal approximants take --order, --aR, --species, --max-points only');
-        generateAndEmit(cmd, { family: 'decagonal', approximant: o.order, edge: o.aR, species: o.species, maxPoints: o.maxPoints }, o.format);
+        generateAndEmit(cmd, { family: 'decagonal', approximant: o.order, edge: o.aR, species: o.species, maxPoints: o.maxPoints }, o.format, o.supercell);
         return;
       }
       generateAndEmit(
@@ -52,6 +54,7 @@ export function registerApproximant(program: Command): void {
           maxPoints: o.maxPoints,
         },
         o.format,
+        o.supercell,
       );
     });
 }

@@ -92,4 +92,33 @@ f = io.StringIO(); write(f, a, format="extxyz"); print(json.dumps(f.getvalue()))
     expect(r.cell![0][0]).toBeCloseTo(3.6, 9);
     expect(r.positions[3 * 1 + 1]).toBeCloseTo(1.8, 9);
   });
+
+  it('writes a mixed site as one row per element with its fraction, which ase.io.read keeps (IUCr CIF core convention)', () => {
+    const s: Structure = {
+      positions: new Float64Array([0, 0, 0, 1, 1, 1, 2, 2, 2]),
+      species: new Uint16Array([13, 30, 13]),
+      site: new Uint16Array([0, 1, 2]),
+      siteClasses: [{ name: 'frame', species: 13 }, { name: 'mixed', species: 30, mix: { 30: 0.6, 12: 0.4 } }, { name: 'half', species: 13, occupancy: 0.5 }],
+      cell: [[5, 0, 0], [0, 5, 0], [0, 0, 5]],
+      provenance: { engine: 'tauforge-engine/0.1.0', params: null },
+    };
+    const text = writeExtxyz(s, { check: 'severe: 1 pair "too" close' });
+    const lines = text.split('\n');
+    expect(lines[0]).toBe('4');
+    expect(lines[1]).toContain('Properties=species:S:1:pos:R:3:site:I:1:occupancy:R:1 ');
+    expect(lines[1]).toContain('check="severe: 1 pair \\"too\\" close"');
+    expect(lines.slice(2, 6)).toEqual([
+      'Al 0.00000000 0.00000000 0.00000000 0 1.000000',
+      'Mg 1.00000000 1.00000000 1.00000000 1 0.400000',
+      'Zn 1.00000000 1.00000000 1.00000000 1 0.600000',
+      'Al 2.00000000 2.00000000 2.00000000 2 0.500000',
+    ]);
+    const ref = runPython<{ symbols: string[]; occ: number[]; check: string }>(
+      'import sys, io, json\nfrom ase.io import read\na = read(io.StringIO(sys.stdin.read()), format="extxyz")\nprint(json.dumps({"symbols": a.get_chemical_symbols(), "occ": a.arrays["occupancy"].tolist(), "check": a.info["check"]}))',
+      text,
+    );
+    expect(ref.symbols).toEqual(['Al', 'Mg', 'Zn', 'Al']);
+    expect(ref.occ).toEqual([1, 0.4, 0.6, 0.5]);
+    expect(ref.check).toBe('severe: 1 pair "too" close');
+  });
 });

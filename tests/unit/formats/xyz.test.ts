@@ -98,4 +98,14 @@ describe('JSON writer and reader', () => {
     expect(() => readJson('{"positions":[[0,0,0]],"species":["Qx"]}')).toThrow(/species\[0\] = "Qx"/);
     expect(() => readJson('{"positions":[],"species":[],"cell":[[1,0,0]]}')).toThrow(/"cell" must be null or three vectors/);
   });
+
+  it('carries the check warnings in the comment line and still reads its params back (ase.io.read keeps the comment)', () => {
+    const text = writeXyz(sample(), { check: 'SEVERE: 3 pairs closer than 0.8(r1+r2), "shortest" 0.1 A' });
+    const line = text.split('\n')[1];
+    expect(line).toMatch(/^Tauforge \S+ check="SEVERE: 3 pairs closer than 0\.8\(r1\+r2\), \\"shortest\\" 0\.1 A" params=/);
+    expect(readXyz(text).provenance.params).toEqual(sample().provenance.params);
+    const n = runPython<number>('import sys, io, json\nfrom ase.io import read\nprint(json.dumps(len(read(io.StringIO(sys.stdin.read()), format="xyz"))))', text);
+    expect(n).toBe(sample().species.length);
+  });
 });
+

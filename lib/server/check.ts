@@ -1,0 +1,47 @@
+/**
+ * The Check step over the API: the report for a saved revision (generated off the request thread in the export
+ * worker process, within the revision's own point cap, like an export) or for a structure file sent in the body
+ * (parsed by lib/formats, at most DEFAULT_MAX_POINTS atoms and 20 MB of text). Nothing is stored.
+ */
+import { z } from 'zod';
+import { db } from './db';
+import { ApiError } from './errors';
+import { access, type Actor } from './authz';
+import { runExportJob } from './jobs';
+import { MAX_DATASET_BYTES } from './datasets';
+import { readStructure } from '../formats/read';
+import { checkStructure, type CheckReport } from '../structure/checks/report';
+import { DEFAULT_MAX_POINTS } from '../models/point-cap';
+
+export const checkRequestSchema = z.union(
+  [
+    z.strictObject({ revision: z.number().int().positive() }),
+    z.strictObject({
+      structure: z.string().min(1, 'structure: send the file text').max(MAX_DATASET_BYTES, 'structure: at most 20 MB of text'),
+      filename: z.string().max(200).optional(),
+    }),
+  ],
+  { message: 'send {revision} for a saved revision, or {structure, filename?} with the text of an XYZ, extended XYZ, CIF or Tauforge JSON file' },
+);
+
+export async function checkForProject(actor: Actor | null, projectId: number, input: z.infer<typeof checkRequestSchema>): Promise<{ revision?: number; report: CheckReport }> {
+  await access(actor, projectId, 'read');
+  if ('revision' in input) {
+    const rev = await db()('revisions').where({ id: input.revision, project_id: projectId }).first('id', 'params');
+    if (!rev) throw new ApiError('not_found', 'No such revision in this project.');
+    const params = typeof rev.params === 'string' ? JSON.parse(rev.params) : rev.params;
+    // The export worker's 'check' format: generate + check in a child process, bounded in time and size.
+    const bytes = await runExportJob(params, 'check');
+    return { revision: Number(rev.id), report: JSON.parse(bytes.toString('utf8')) as CheckReport };
+  }
+  let s;
+  try {
+    s = readStructure(input.structure, input.filename);
+  } catch (e) {
+    throw new ApiError('unprocessable', (e as Error).message);
+  }
+  if (s.species.length > DEFAULT_MAX_POINTS) {
+    throw new ApiError('unprocessable', `The structure has ${s.species.length.toLocaleString('en-US')} atoms; the check takes at most ${DEFAULT_MAX_POINTS.toLocaleString('en-US')}.`);
+  }
+  return { report: checkStructure(s) };
+}

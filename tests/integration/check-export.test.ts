@@ -1,0 +1,97 @@
+/**
+ * The Check step and the simulation exports over the API: the report for a revision and for a posted file, POSCAR
+ * and LAMMPS exports with a supercell read back by ASE (ase.io.read vasp / lammps-data), and clear errors that
+ * store nothing (RFC 9110 §15: 422 Unprocessable Content, 400 Bad Request).
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { closeDb, db } from '../../lib/server/db';
+import * as checkRoute from '../../app/api/projects/[id]/check/route';
+import * as exportsRoute from '../../app/api/projects/[id]/exports/route';
+import * as downloadRoute from '../../app/api/exports/[id]/download/route';
+import { call, makeProject, makeUser, type TestUser } from './api-fixtures';
+import { runPython } from '../helpers/python';
+
+let owner: TestUser;
+let project: number;
+let revision: number;
+let patchRevision: number;
+beforeAll(async () => {
+  owner = await makeUser('check-owner');
+  const p = await makeProject(owner, []);
+  project = p.id;
+  const params = { family: 'icosahedral', mode: 'approximant', order: '1/1', aR: 4.6, lattice: 'P', species: 'Al' };
+  [revision] = await db()('revisions').insert({ project_id: p.id, number: 3, params: JSON.stringify(params), message: 'ico', author_id: owner.id });
+  [patchRevision] = await db()('revisions').insert({ project_id: p.id, number: 4, params: JSON.stringify({ family: 'icosahedral', mode: 'patch', radius: 6, aR: 4.6, species: 'Al' }), message: 'patch', author_id: owner.id });
+});
+afterAll(closeDb);
+
+const post = (mod: Record<string, unknown>, path: string, body: unknown) => call(mod, 'POST', `/api/projects/${project}/${path}`, { params: { id: String(project) }, cookie: owner.cookie, body });
+
+describe('POST /api/projects/{id}/check', () => {
+  it('reports a revision: 32 Al atoms of the 1/1 cell, density flagged against the close-packed ideal', async () => {
+    const r = await post(checkRoute, 'check', { revision });
+    expect(r.status).toBe(200);
+    const body = await r.json();
+    expect(body.revision).toBe(Number(revision));
+    expect(body.report.atoms).toBe(32);
+    expect(body.report.severe).toBe(true);
+    expect(body.report.warnings[0].code).toBe('density-low');
+  });
+
+  it('reports a posted file: fcc Al written by ase.io.write (CIF), no warnings', async () => {
+    const cif = runPython<string>("import io, json\nfrom ase.build import bulk\nfrom ase.io import write\nb = io.BytesIO()\nwrite(b, bulk('Al', 'fcc', a=4.05, cubic=True), format='cif')\nprint(json.dumps(b.getvalue().decode()))");
+    const r = await post(checkRoute, 'check', { structure: cif, filename: 'al.cif' });
+    expect(r.status).toBe(200);
+    const { report } = await r.json();
+    expect(report.pairs[0].shortest).toBeCloseTo(4.05 / Math.SQRT2, 5);
+    expect(report.warnings).toEqual([]);
+  });
+
+  it('unreadable files and bad bodies get clear errors', async () => {
+    const bad = await post(checkRoute, 'check', { structure: 'hello', filename: 'x.xyz' });
+    expect(bad.status).toBe(422);
+    expect((await bad.json()).error.message).toMatch(/XYZ/);
+    const neither = await post(checkRoute, 'check', { nothing: 1 });
+    expect(neither.status).toBe(400);
+    const missing = await post(checkRoute, 'check', { revision: 999999999 });
+    expect(missing.status).toBe(404);
+  });
+});
+
+describe('POST /api/projects/{id}/exports: POSCAR and LAMMPS with a supercell', () => {
+  it('POSCAR 2x1x1 reads in ASE as 64 atoms in a doubled cell; asking again reuses it', async () => {
+    const r = await post(exportsRoute, 'exports', { revision, format: 'poscar', supercell: '2x1x1' });
+    expect(r.status).toBe(201);
+    const info = await r.json();
+    expect(info.format).toBe('poscar');
+    expect(info.supercell).toBe('2x1x1');
+    expect(info.filename).toMatch(/-r3-2x1x1\.vasp$/);
+    const again = await post(exportsRoute, 'exports', { revision, format: 'poscar', supercell: '2x1x1' });
+    expect(again.status).toBe(200);
+    const d = await call(downloadRoute, 'GET', info.downloadUrl, { params: { id: String(info.id) }, cookie: owner.cookie });
+    const text = await d.text();
+    const ase = runPython<{ n: number; a: number; b: number }>('import sys, io, json\nfrom ase.io import read\na = read(io.StringIO(sys.stdin.read()), format="vasp")\nl = a.cell.lengths()\nprint(json.dumps({"n": len(a), "a": l[0], "b": l[1]}))', text);
+    expect(ase.n).toBe(64);
+    expect(ase.a).toBeCloseTo(2 * ase.b, 8);
+  });
+
+  it('LAMMPS data reads in ASE (lammps-data, atomic) with 32 atoms', async () => {
+    const r = await post(exportsRoute, 'exports', { revision, format: 'lammps' });
+    expect(r.status).toBe(201);
+    const info = await r.json();
+    const d = await call(downloadRoute, 'GET', info.downloadUrl, { params: { id: String(info.id) }, cookie: owner.cookie });
+    const n = runPython<number>('import sys, io, json\nfrom ase.io import read\nprint(json.dumps(len(read(io.StringIO(sys.stdin.read()), format="lammps-data", style="atomic"))))', await d.text());
+    expect(n).toBe(32);
+  });
+
+  it('a finite patch cannot become a POSCAR: 422 naming the reason, nothing stored', async () => {
+    const before = Number((await db()('exports').where({ revision_id: patchRevision }).count<{ n: number }[]>({ n: '*' }))[0].n);
+    const r = await post(exportsRoute, 'exports', { revision: patchRevision, format: 'poscar' });
+    expect(r.status).toBe(422);
+    expect((await r.json()).error.message).toMatch(/POSCAR needs a periodic cell/);
+    const bad = await post(exportsRoute, 'exports', { revision, format: 'poscar', supercell: '0x1x1' });
+    expect(bad.status).toBe(400);
+    const after = Number((await db()('exports').where({ revision_id: patchRevision }).count<{ n: number }[]>({ n: '*' }))[0].n);
+    expect(after).toBe(before);
+  });
+});
