@@ -216,20 +216,37 @@ function nearInteger(x: number, tol = 1e-6): boolean {
  */
 export function inStandardOrigin(s: Structure, opts: SpaceGroupOptions = {}): { structure: Structure; spaceGroup: SpaceGroup } | null {
   const g = findSpaceGroup(s, opts);
-  const L = g.stdLinear;
-  if (![1, 0, 0, 0, 1, 0, 0, 0, 1].every((v, k) => Math.abs(L[k] - v) < 1e-9)) return null;
-  if (g.stdOriginShift.every((x) => nearInteger(x))) return { structure: s, spaceGroup: g };
+  const isId = (L: number[]) => [1, 0, 0, 0, 1, 0, 0, 0, 1].every((v, k) => Math.abs(L[k] - v) < 1e-9);
+  if (isId(g.stdLinear) && g.stdOriginShift.every((x) => nearInteger(x))) return { structure: s, spaceGroup: g };
   const cell = s.cell!;
-  for (const sign of [1, -1]) {
-    const frac = toFractional(cell, s.positions);
-    for (let i = 0; i < frac.length; i++) {
-      const x = frac[i] + sign * g.stdOriginShift[i % 3];
-      frac[i] = x - Math.floor(x);
-      if (frac[i] >= 1 - 1e-12) frac[i] = 0;
+  const L = g.stdLinear;
+  // The linear part may be a change of axes; allowed only when it maps the cell metric onto itself
+  // (G' = Lᵀ·G·L = G, e.g. a signed permutation of a cubic cell), so keeping the cell is an isometry.
+  if (!L.every((x) => nearInteger(x, 1e-9))) return null;
+  const G = [0, 1, 2].map((i) => [0, 1, 2].map((j) => cell[i][0] * cell[j][0] + cell[i][1] * cell[j][1] + cell[i][2] * cell[j][2]));
+  const scale = Math.max(G[0][0], G[1][1], G[2][2]);
+  for (let i = 0; i < 3; i++)
+    for (let j = 0; j < 3; j++) {
+      let v = 0;
+      for (let k = 0; k < 3; k++) for (let l = 0; l < 3; l++) v += L[3 * k + i] * G[k][l] * L[3 * l + j];
+      if (Math.abs(v - G[i][j]) > 1e-9 * scale) return null;
+    }
+  const frac0 = toFractional(cell, s.positions);
+  const o = g.stdOriginShift;
+  // moyo's convention for (L, o) is tried both ways round: x' = L·x ± o and x' = L·(x ± o).
+  for (const [sign, after] of [[1, true], [-1, true], [1, false], [-1, false]] as [number, boolean][]) {
+    const frac = new Float64Array(frac0.length);
+    for (let i = 0; i < frac0.length; i += 3) {
+      const x = after ? [frac0[i], frac0[i + 1], frac0[i + 2]] : [0, 1, 2].map((k) => frac0[i + k] + sign * o[k]);
+      for (let r = 0; r < 3; r++) {
+        let v = L[3 * r] * x[0] + L[3 * r + 1] * x[1] + L[3 * r + 2] * x[2] + (after ? sign * o[r] : 0);
+        v -= Math.floor(v);
+        frac[i + r] = v >= 1 - 1e-12 ? 0 : v;
+      }
     }
     const moved: Structure = { ...s, positions: toCartesian(cell, frac) };
     const g2 = findSpaceGroup(moved, opts);
-    if (g2.number === g.number && g2.stdOriginShift.every((x) => nearInteger(x))) return { structure: moved, spaceGroup: g2 };
+    if (g2.number === g.number && isId(g2.stdLinear) && g2.stdOriginShift.every((x) => nearInteger(x))) return { structure: moved, spaceGroup: g2 };
   }
   return null;
 }
