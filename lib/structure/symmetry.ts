@@ -6,7 +6,7 @@
  * that. Atoms are told apart by species, mixed-site composition and occupancy, so a symmetry found maps
  * like sites onto like sites.
  */
-import { analyze_cell, initSync, space_group_type } from '@spglib/moyo-wasm';
+import { analyze_cell, initSync, operations_from_number, space_group_type } from '@spglib/moyo-wasm';
 import type { Cell, Structure } from './types';
 import { toCartesian, toFractional } from '../math/frac';
 
@@ -216,8 +216,7 @@ function nearInteger(x: number, tol = 1e-6): boolean {
  */
 export function inStandardOrigin(s: Structure, opts: SpaceGroupOptions = {}): { structure: Structure; spaceGroup: SpaceGroup } | null {
   const g = findSpaceGroup(s, opts);
-  const isId = (L: number[]) => [1, 0, 0, 0, 1, 0, 0, 0, 1].every((v, k) => Math.abs(L[k] - v) < 1e-9);
-  if (isId(g.stdLinear) && g.stdOriginShift.every((x) => nearInteger(x))) return { structure: s, spaceGroup: g };
+  if (matchesTables(g)) return { structure: s, spaceGroup: g };
   const cell = s.cell!;
   const L = g.stdLinear;
   // The linear part may be a change of axes; allowed only when it maps the cell metric onto itself
@@ -246,7 +245,21 @@ export function inStandardOrigin(s: Structure, opts: SpaceGroupOptions = {}): { 
     }
     const moved: Structure = { ...s, positions: toCartesian(cell, frac) };
     const g2 = findSpaceGroup(moved, opts);
-    if (g2.number === g.number && isId(g2.stdLinear) && g2.stdOriginShift.every((x) => nearInteger(x))) return { structure: moved, spaceGroup: g2 };
+    if (g2.number === g.number && matchesTables(g2)) return { structure: moved, spaceGroup: g2 };
   }
   return null;
+}
+
+/** Are the operations exactly the tabulated ones of this Hall setting (translations modulo 1)? */
+export function matchesTables(g: SpaceGroup): boolean {
+  const table = operations_from_number(g.number, { type: 'HallNumber', value: g.hallNumber }, false);
+  if (table.length !== g.operations.length) return false;
+  const key = (rot: ArrayLike<number>, t: ArrayLike<number>) =>
+    `${Array.from(rot).join(',')}|${[0, 1, 2].map((k) => {
+      const x = t[k] - Math.floor(t[k] + 1e-6);
+      if (Math.abs(x - Math.round(x * 24) / 24) > 1e-5) return `?${x.toFixed(6)}`;
+      return Math.round(x * 24) % 24;
+    }).join(',')}`;
+  const want = new Set(table.map((o) => key(rowMajor(o.rotation), o.translation)));
+  return g.operations.every((o) => want.has(key(o.rotation, o.translation)));
 }
