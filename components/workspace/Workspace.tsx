@@ -20,6 +20,7 @@ import { engineMessage, overCapReason } from './cut-limits';
 import { FORMAT_NAMES, formatUnavailable, saveStructure, slug, type StructureFormat } from './downloads';
 import { SaveDialog, postRevision, type RevisionRef } from './SavePanel';
 import { forkProject as postFork } from '@/components/projects/fork';
+import { SpaceGroupFacts } from './SpaceGroupFacts';
 
 export interface WorkspaceProps {
   project?: { id: string; name: string; canEdit: boolean };
@@ -302,6 +303,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
               ))}
             </div>
             <CutFacts summary={summary} stale={stale} ms={cut.ms} />
+            <SpaceGroupFacts structure={stale ? null : structure} />
           </div>
           <div className="min-h-0 flex-1 rounded-lg border border-rule bg-card p-2">
             <ViewBoundary name={VIEW_NAMES[shownView]} resetKeys={[shownView, structure, seriesJob.result]}>

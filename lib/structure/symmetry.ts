@@ -6,7 +6,7 @@
  * that. Atoms are told apart by species, mixed-site composition and occupancy, so a symmetry found maps
  * like sites onto like sites.
  */
-import { analyze_cell, initSync, operations_from_number, space_group_type } from '@spglib/moyo-wasm';
+import initMoyo, { analyze_cell, initSync, operations_from_number, space_group_type } from '@spglib/moyo-wasm';
 import type { Cell, Structure } from './types';
 import { toCartesian, toFractional } from '../math/frac';
 
@@ -17,6 +17,21 @@ export function initSymmetry(wasm: BufferSource | WebAssembly.Module): void {
   if (ready) return;
   initSync({ module: wasm });
   ready = true;
+}
+
+let pending: Promise<void> | null = null;
+
+/**
+ * Browser (and worker) initialisation: without an argument moyo fetches its .wasm next to its JS module
+ * (`new URL('moyo_wasm_bg.wasm', import.meta.url)`, which bundlers emit as an asset); or pass a URL,
+ * Response or bytes. Idempotent; concurrent calls share one load.
+ */
+export function initSymmetryAsync(input?: RequestInfo | URL | Response | BufferSource | WebAssembly.Module): Promise<void> {
+  if (ready) return Promise.resolve();
+  pending ??= initMoyo(input === undefined ? undefined : { module_or_path: input }).then(() => {
+    ready = true;
+  });
+  return pending;
 }
 
 export function symmetryReady(): boolean {
