@@ -174,6 +174,17 @@ export function symmetrise(s: Structure, opts: SpaceGroupOptions = {}): { struct
   const acc = new Float64Array(3 * n);
   const out = new Float64Array(3 * n);
   const cellLen = [0, 1, 2].map((k) => Math.hypot(...cell[k]));
+  // Spatial hash on fractional coordinates (about one atom per bin): partners are searched in the 27
+  // neighbouring bins only, so the work is O(N·|G|).
+  const nb = Math.max(1, Math.min(64, Math.floor(Math.cbrt(n))));
+  const binOf = (x: number) => ((Math.floor((x - Math.floor(x)) * nb) % nb) + nb) % nb;
+  const bins = new Map<number, number[]>();
+  for (let j = 0; j < n; j++) {
+    const k = (binOf(frac[3 * j]) * nb + binOf(frac[3 * j + 1])) * nb + binOf(frac[3 * j + 2]);
+    const list = bins.get(k);
+    if (list) list.push(j);
+    else bins.set(k, [j]);
+  }
   for (const op of g.operations) {
     // Inverse op maps x_j back near x_i: accumulate R⁻¹(x_j − t) for the partner j of g·x_i.
     for (let i = 0; i < n; i++) {
@@ -181,17 +192,28 @@ export function symmetrise(s: Structure, opts: SpaceGroupOptions = {}): { struct
       let best = -1;
       let bestD = Infinity;
       let shift = [0, 0, 0];
-      for (let j = 0; j < n; j++) {
-        if (types[j] !== types[i]) continue;
-        const d = [u - frac[3 * j], v - frac[3 * j + 1], w - frac[3 * j + 2]];
-        const sh = d.map((x) => Math.round(x));
-        const dd = Math.hypot((d[0] - sh[0]) * cellLen[0], (d[1] - sh[1]) * cellLen[1], (d[2] - sh[2]) * cellLen[2]);
-        if (dd < bestD) {
-          bestD = dd;
-          best = j;
-          shift = sh;
-        }
-      }
+      const bu = binOf(u);
+      const bv = binOf(v);
+      const bw = binOf(w);
+      const seen = new Set<number>();
+      for (let du = -1; du <= 1; du++)
+        for (let dv = -1; dv <= 1; dv++)
+          for (let dw = -1; dw <= 1; dw++) {
+            const k = ((((bu + du) % nb) + nb) % nb * nb + ((((bv + dv) % nb) + nb) % nb)) * nb + ((((bw + dw) % nb) + nb) % nb);
+            if (seen.has(k)) continue;
+            seen.add(k);
+            for (const j of bins.get(k) ?? []) {
+              if (types[j] !== types[i]) continue;
+              const d = [u - frac[3 * j], v - frac[3 * j + 1], w - frac[3 * j + 2]];
+              const sh = d.map((x) => Math.round(x));
+              const dd = Math.hypot((d[0] - sh[0]) * cellLen[0], (d[1] - sh[1]) * cellLen[1], (d[2] - sh[2]) * cellLen[2]);
+              if (dd < bestD) {
+                bestD = dd;
+                best = j;
+                shift = sh;
+              }
+            }
+          }
       if (best < 0 || bestD > tol * 10 + 1e-6) throw new Error(`symmetrise: atom ${i + 1} has no partner under an operation of ${g.hmSymbol}; raise symprec`);
       // The partner's ideal image: x_j + shift, pulled back by the op onto atom i: R⁻¹(x_j + shift − t).
       const target = [frac[3 * best] + shift[0] - op.translation[0], frac[3 * best + 1] + shift[1] - op.translation[1], frac[3 * best + 2] + shift[2] - op.translation[2]];

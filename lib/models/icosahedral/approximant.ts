@@ -18,6 +18,12 @@
  * integers (or dyadics) u, v is decided reliably in floating point because |u + vτ| ≥ 1/(3|v|) unless
  * u = v = 0 (τ is badly approximable). Each node is stored reduced into [0, 1)³ (half-open: 0 kept, 1 not).
  *
+ * Window position and symmetry: the window centre is the symmetric reference δ₀ (symmetricCentre below,
+ * an m-3-fixed point modulo the perpendicular periods Λ⊥) plus the phason offset, reduced modulo 2Z³ ⊂ Λ⊥
+ * (which moves the cut by a lattice translation only). Nodes on the window boundary get the m-3-averaged
+ * weight of window.ts; they occur at δ₀ only when no m-3-fixed centre avoids the boundary (1/1 and 5/3 P,
+ * every F cell — found by enumeration, see the tests) and then carry fractional occupancy.
+ *
  * Centring: a translation t of the cubic cell (I: ½(1,1,1); F: ½(1,1,0) and permutations) corresponds to
  * T = Σ t_k N_k in 6D; it maps the cut onto itself exactly when, for each site class, T carries the class's
  * nodes onto nodes of a class with the same species and window — checked node by node on the hash sets.
@@ -42,7 +48,7 @@ export interface ApproximantSpec {
   q: number;
   aR: number;
   lattice?: HyperlatticeType;
-  /** Phason offset: shift of the window in (strained) perpendicular space, Å. */
+  /** Phason offset: shift of the window from the symmetric reference, (strained) perpendicular space, Å. */
   offset?: Vec3;
   maxPoints?: number;
   classes?: CutClass[];
