@@ -2,8 +2,8 @@
 /**
  * The space group of the current periodic cut (moyo, symprec 1e-3 Å) and the notes the generator left
  * (symmetric window position, fractional boundary sites, offsets that lower the symmetry, clusters merged).
- * Shown next to the cut summary; runs after each cut, in the page (moyo takes well under a second for
- * cells of a few thousand atoms).
+ * Shown next to the cut summary; runs after each cut, in the page, for cells up to MAX_ATOMS
+ * (larger cells: the CLI).
  */
 import { useEffect, useState } from 'react';
 import type { Structure } from '../../lib/structure/types';
