@@ -188,7 +188,13 @@ export function icosahedralPatch(spec: PatchSpec): Structure {
       parts.push({ cut, cls: ci });
     }
   });
-  return assemble(parts, classes, total, spec.params ?? spec);
+  const s = assemble(parts, classes, total, spec.params ?? spec);
+  if (offset.some((x) => x !== 0) || centre.some((x) => x !== 0))
+    s.notes = [
+      ...(s.notes ?? []),
+      'the phason offset or an off-origin centre lowers the point group of the patch below m-3-5 (offset 0 with the centre at the origin keeps it)',
+    ];
+  return s;
 }
 
 function assemble(parts: { cut: BallCut; cls: number }[], classes: CutClass[], total: number, params: unknown): Structure {

@@ -137,5 +137,6 @@ describe('icosahedral patches (pymatgen PointGroupAnalyzer)', () => {
     expect(found.slice(0, 3)).toEqual(['Ih', 'Ih', 'Ih']);
     expect(found[3]).not.toBe('Ih');
     expect(patches[0].notes?.join(' ')).toMatch(/fractional occupancy/);
+    expect(patches[3].notes?.join(' ')).toMatch(/lowers the point group of the patch/);
   });
 });
