@@ -21,6 +21,7 @@ import { FORMAT_NAMES, formatUnavailable, saveStructure, slug, type StructureFor
 import { SaveDialog, postRevision, type RevisionRef } from './SavePanel';
 import { CheckPanel } from './CheckPanel';
 import { forkProject as postFork } from '@/components/projects/fork';
+import { SpaceGroupFacts } from './SpaceGroupFacts';
 
 export interface WorkspaceProps {
   project?: { id: string; name: string; canEdit: boolean };
@@ -303,6 +304,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
               ))}
             </div>
             <CutFacts summary={summary} stale={stale} ms={cut.ms} />
+            <SpaceGroupFacts structure={stale ? null : structure} />
           </div>
           <CheckPanel structure={structure} />
           <div className="min-h-0 flex-1 rounded-lg border border-rule bg-card p-2">

@@ -1,8 +1,8 @@
 import { ENGINE_VERSION } from '../version';
 import { cellFromParameters, cellParameters, cellVolume } from '../math/cell';
 import { toCartesian, toFractional } from '../math/frac';
-import { identity, vecMat } from '../math/mat3';
-import { norm } from '../math/vec3';
+import { identity } from '../math/mat3';
+import { forEachPairWithin } from '../math/cell-list';
 import { symbolOf, tryAtomicNumber } from '../structure/elements';
 import type { Cell, Structure } from '../structure/types';
 import { validateStructure } from '../structure/validate';
@@ -30,6 +30,50 @@ export interface CifWriteOptions {
   unassigned?: 'dummy' | 'omit' | 'error';
   /** Write B_iso (Å²) instead of U_iso = B/(8π²). Default false (U_iso_or_equiv). */
   biso?: boolean;
+  /**
+   * The space group to write (lib/structure/symmetry.ts `inStandardOrigin` gives one whose operations
+   * act on this structure's fractional coordinates): H-M symbol and number, the operation list and one
+   * atom per orbit (the asymmetric unit). Absent: P 1 with every atom.
+   */
+  symmetry?: CifSymmetry;
+}
+
+/** What writeCif needs of a space group. */
+export interface CifSymmetry {
+  number: number;
+  hmSymbol: string;
+  /** x' = R·x + t on fractional coordinates, R row-major. */
+  operations: { rotation: number[]; translation: [number, number, number] }[];
+  /** Per atom: index of its orbit's representative. */
+  orbits: number[];
+}
+
+/** A fraction with denominator ≤ 12 ('1/2', '-1/3'), else a decimal. */
+function fractionText(t: number): string {
+  for (const d of [1, 2, 3, 4, 6, 8, 12]) {
+    const n = Math.round(t * d);
+    if (Math.abs(t * d - n) < 1e-6) return n === 0 ? '' : d === 1 ? String(n) : `${n}/${d}`;
+  }
+  return fixed(t, 6);
+}
+
+/** 'x,y,z' text of one operation (International Tables notation), translations reduced into [0, 1). */
+export function symopText(rotation: number[], translation: ArrayLike<number>): string {
+  const parts: string[] = [];
+  for (let r = 0; r < 3; r++) {
+    let term = '';
+    for (let c = 0; c < 3; c++) {
+      const v = Math.round(rotation[3 * r + c]);
+      if (v === 0) continue;
+      const sign = v < 0 ? '-' : term ? '+' : '';
+      term += `${sign}${Math.abs(v) === 1 ? '' : Math.abs(v)}${'xyz'[c]}`;
+    }
+    let t = translation[r] - Math.floor(translation[r]);
+    if (t > 1 - 1e-9) t = 0;
+    const ft = fractionText(t);
+    parts.push(ft ? `${term}+${ft}` : term || '0');
+  }
+  return parts.join(',');
 }
 
 /** Quote a CIF value when it needs it (whitespace, leading special characters, empty). */
@@ -107,14 +151,7 @@ export function writeCif(s: Structure, opts: CifWriteOptions = {}): string {
     `_cell_angle_beta ${fixed(p.beta)}`,
     `_cell_angle_gamma ${fixed(p.gamma)}`,
     `_cell_volume ${fixed(Math.abs(cellVolume(cell)), 4)}`,
-    `_symmetry_space_group_name_H-M 'P 1'`,
-    `_space_group_name_H-M_alt 'P 1'`,
-    `_symmetry_Int_Tables_number 1`,
-    `_space_group_IT_number 1`,
-    'loop_',
-    '_space_group_symop_id',
-    '_space_group_symop_operation_xyz',
-    "1 'x,y,z'",
+    ...symmetryLines(opts.symmetry),
     'loop_',
     '_atom_site_label',
     '_atom_site_type_symbol',
@@ -125,23 +162,56 @@ export function writeCif(s: Structure, opts: CifWriteOptions = {}): string {
     opts.biso ? '_atom_site_B_iso_or_equiv' : '_atom_site_U_iso_or_equiv',
     '_atom_site_adp_type',
   ];
+  if (opts.symmetry && opts.symmetry.orbits.length !== n) throw new Error(`CIF: the space group's orbits list ${opts.symmetry.orbits.length} atoms, the structure has ${n}`);
   const counter = new Map<number, number>();
-  for (let i = 0; i < n; i++) {
-    const z = s.species[i];
-    if (z === 0 && mode === 'omit') continue;
+  const label = (z: number) => {
     const k = (counter.get(z) ?? 0) + 1;
     counter.set(z, k);
-    const sym = symbolOf(z);
+    return `${symbolOf(z)}${k}`;
+  };
+  const sym = opts.symmetry;
+  for (let i = 0; i < n; i++) {
+    if (sym && sym.orbits[i] !== i) continue; // asymmetric unit: one atom per orbit
+    const z = s.species[i];
+    if (z === 0 && mode === 'omit') continue;
     const cls = s.site && s.siteClasses ? s.siteClasses[s.site[i]] : undefined;
     const occ = s.occupancy ? s.occupancy[i] : (cls?.occupancy ?? 1);
     const b = cls?.biso ?? 0;
     // U = B / (8π²): International Tables Vol. C §8.7 (Trueblood et al., Acta Cryst. A52 (1996) 770).
     const adp = opts.biso ? fixed(b, 6) : fixed(b / (8 * Math.PI * Math.PI), 6);
-    out.push(
-      `${sym}${k} ${sym} ${fixed(frac[3 * i])} ${fixed(frac[3 * i + 1])} ${fixed(frac[3 * i + 2])} ${fixed(occ, 6)} ${adp} ${opts.biso ? 'Biso' : 'Uiso'}`,
-    );
+    const xyz = [0, 1, 2].map((c) => {
+      const f = frac[3 * i + c];
+      if (!sym) return fixed(f);
+      const w = f - Math.floor(f);
+      return fixed(w >= 1 - 1e-12 ? 0 : w);
+    });
+    // Mixed site: one row per element at the same position, occupancy = fraction × site occupancy
+    // (IUCr CIF core dictionary, _atom_site_occupancy). Fractions of a mix sum to ≤ 1 (SiteClass.mix).
+    const mix = cls?.mix ? Object.entries(cls.mix).map(([zz, x]) => [Number(zz), x] as [number, number]).filter(([, x]) => x > 0) : null;
+    const rows: [number, number][] = mix && mix.length > 0 ? mix.sort((a, c) => c[1] - a[1] || a[0] - c[0]) : [[z, 1]];
+    for (const [el, x] of rows) {
+      const symbol = symbolOf(el);
+      out.push(`${label(el)} ${symbol} ${xyz[0]} ${xyz[1]} ${xyz[2]} ${fixed(occ * x, 6)} ${adp} ${opts.biso ? 'Biso' : 'Uiso'}`);
+    }
   }
   return out.join('\n') + '\n';
+}
+
+/** Space-group header and symop loop: P 1 with the identity, or the given group. */
+function symmetryLines(sym: CifSymmetry | undefined): string[] {
+  const hm = sym ? sym.hmSymbol : 'P 1';
+  const num = sym ? sym.number : 1;
+  const ops = sym ? sym.operations.map((o) => symopText(o.rotation, o.translation)) : ['x,y,z'];
+  return [
+    `_symmetry_space_group_name_H-M ${cifText(hm)}`,
+    `_space_group_name_H-M_alt ${cifText(hm)}`,
+    `_symmetry_Int_Tables_number ${num}`,
+    `_space_group_IT_number ${num}`,
+    'loop_',
+    '_space_group_symop_id',
+    '_space_group_symop_operation_xyz',
+    ...ops.map((t, k) => `${k + 1} '${t}'`),
+  ];
 }
 
 export interface CifReadOptions {
@@ -240,13 +310,7 @@ export function readCif(text: string, opts: CifReadOptions = {}): Structure {
     const label = cLabel >= 0 ? row[cLabel].text : `${symbolOf(z)}${classes.length + 1}`;
     const cls = classes.length;
     classes.push({ name: label, species: z, ...(o !== 1 ? { occupancy: o } : {}), ...(biso !== 0 ? { biso } : {}) });
-    const images: number[][] = [];
-    for (const op of ops) {
-      let g = applySymop(op, f[0], f[1], f[2]);
-      if (!identityOnly) g = g.map((x) => x - Math.floor(x)).map((x) => (x >= 1 - 1e-12 ? 0 : x)) as typeof g;
-      if (images.some((h) => periodicDistance(cell, g, h) < tol)) continue;
-      images.push(g);
-    }
+    const images = siteImages(ops, f, cell, tol, identityOnly);
     for (const g of images) {
       fr.push(g[0], g[1], g[2]);
       species.push(z);
@@ -282,16 +346,30 @@ function isIdentity(op: SymOp): boolean {
   return op.rot.every((row, i) => row.every((x, k) => x === I[i][k])) && op.trans.every((t) => t === 0);
 }
 
-/** Minimum-image distance (Å) between two fractional points; checks the 27 neighbouring images. */
-function periodicDistance(cell: Cell, f: number[], g: number[]): number {
-  let best = Infinity;
-  const d0 = f.map((x, k) => x - g[k]).map((x) => x - Math.round(x));
-  for (let i = -1; i <= 1; i++)
-    for (let j = -1; j <= 1; j++)
-      for (let k = -1; k <= 1; k++) {
-        best = Math.min(best, norm(vecMat([d0[0] + i, d0[1] + j, d0[2] + k], cell)));
-      }
-  return best;
+/**
+ * Every image of one atom site under the operations, wrapped into [0, 1), with images closer than tol
+ * (special positions) kept once: the first in operation order. Linear in the number of operations: the
+ * close pairs come from the periodic cell list (lib/math/cell-list.ts), not from comparing every pair.
+ */
+function siteImages(ops: SymOp[], f: number[], cell: Cell, tol: number, identityOnly: boolean): number[][] {
+  const all: number[][] = ops.map((op) => {
+    const g = applySymop(op, f[0], f[1], f[2]);
+    return identityOnly ? g : g.map((x) => x - Math.floor(x)).map((x) => (x >= 1 - 1e-12 ? 0 : x));
+  });
+  if (all.length === 1) return all;
+  const frac = Float64Array.from(all.flat());
+  const neighbours: number[][] = all.map(() => []);
+  forEachPairWithin(toCartesian(cell, frac), cell, tol, (i, j) => {
+    if (i !== j) neighbours[Math.max(i, j)].push(Math.min(i, j));
+  });
+  const kept = new Uint8Array(all.length);
+  const out: number[][] = [];
+  for (let j = 0; j < all.length; j++) {
+    if (neighbours[j].some((i) => kept[i])) continue;
+    kept[j] = 1;
+    out.push(all[j]);
+  }
+  return out;
 }
 
 function readSymops(block: CifBlock): SymOp[] {

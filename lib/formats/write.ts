@@ -3,6 +3,7 @@ import { supercell, type SupercellSize } from '../structure/supercell';
 import { wrapIntoCell } from '../structure/wrap';
 import { DEFAULT_MAX_POINTS } from '../models/point-cap';
 import { checkComment, checkStructure, type CheckReport, type SpaceGroupProvider } from '../structure/checks/report';
+import { inStandardOrigin, symmetryReady } from '../structure/symmetry';
 import { writeCif } from './cif';
 import { writeExtxyz } from './extxyz';
 import { writeJson } from './json';
@@ -22,6 +23,9 @@ export const PERIODIC_ONLY_FORMATS: readonly WriteFormat[] = ['cif', 'poscar', '
 export interface WriteOptions {
   /** A one-line summary of the check's warnings, carried in the file's comment line (none when absent). */
   comment?: string;
+  /** CIF only: 'found' writes the space group, its operations and the asymmetric unit when the symmetry
+   *  finder is ready and the cell is in a standard setting; 'p1' (the default) writes P 1 with every atom. */
+  cifSymmetry?: 'found' | 'p1';
 }
 
 /** One writer for every coordinate format, so the CLI, downloads and exports cannot drift apart. */
@@ -33,7 +37,8 @@ export function writeStructure(s: Structure, format: WriteFormat, opts: WriteOpt
     case 'extxyz':
       return writeExtxyz(s, { check: comment });
     case 'cif': {
-      const text = writeCif(s);
+      const std = opts.cifSymmetry === 'found' && s.cell && symmetryReady() ? inStandardOrigin(s) : null;
+      const text = std ? writeCif(std.structure, { symmetry: std.spaceGroup }) : writeCif(s);
       if (!comment) return text;
       // A CIF comment line right after the first line (CIF 1.1: '#' starts a comment anywhere).
       const nl = text.indexOf('\n');
@@ -82,11 +87,12 @@ export function writeExport(s: Structure, format: WriteFormat, opts: ExportOptio
     const name = format === 'poscar' ? 'POSCAR' : format === 'lammps' ? 'LAMMPS data' : 'CIF';
     throw new Error(`${name} needs a periodic cell: cut an approximant (this structure is a finite patch or a tiling without a cell)`);
   }
-  return writeStructure(exportStructure(s, opts), format, { comment: opts.comment });
+  return writeStructure(exportStructure(s, opts), format, { comment: opts.comment, cifSymmetry: opts.cifSymmetry });
 }
 
 export interface ExportFileOptions {
   supercell?: SupercellSize;
+  cifSymmetry?: 'found' | 'p1';
   /** A symmetry finder for the check (see lib/structure/checks/report.ts). */
   spaceGroup?: SpaceGroupProvider;
 }
@@ -98,6 +104,6 @@ export interface ExportFileOptions {
  */
 export function exportFile(s: Structure, format: WriteFormat, opts: ExportFileOptions = {}): { text: string; report: CheckReport } {
   const report = checkStructure(s, { spaceGroup: opts.spaceGroup });
-  const text = writeExport(s, format, { supercell: opts.supercell, comment: checkComment(report) });
+  const text = writeExport(s, format, { supercell: opts.supercell, cifSymmetry: opts.cifSymmetry, comment: checkComment(report) });
   return { text, report };
 }

@@ -89,15 +89,18 @@ export function series(params: unknown, report: Report = () => {}): JobResultMap
     let formula = '—';
     let massDensity: number | undefined;
     let exact = false;
+    let occupied: number | undefined;
     if (estimate <= SERIES_FULL_CUT_LIMIT) {
       const s = generate(rp);
       const sum = summarise(s);
       atoms = sum.count;
+      // Fractional boundary sites (singular symmetric cuts): density from the occupancy sum.
+      if (s.occupancy) occupied = s.occupancy.reduce((x, y) => x + y, 0);
       formula = sum.formula ?? '—';
       massDensity = sum.massDensity;
       exact = true;
     }
-    const numberDensity = atoms / a ** 3;
+    const numberDensity = (occupied ?? atoms) / a ** 3;
     rows.push({
       p,
       q,

@@ -12,6 +12,8 @@ import { readStructure, type StructureFormat } from '../../lib/formats/read';
 import { exportFile, type WriteFormat } from '../../lib/formats/write';
 import { parseSupercell, type SupercellSize } from '../../lib/structure/supercell';
 import { generate } from '../../lib/models';
+import { ensureSymmetry } from '../../lib/server/symmetry-wasm';
+import { spaceGroupOf } from '../../lib/structure/symmetry';
 import { radiationSchema } from '../../lib/diffraction/params';
 import type { Radiation } from '../../lib/diffraction/form-factors';
 import { parseWavelength } from '../../lib/diffraction/wavelengths';
@@ -151,10 +153,27 @@ export function supercellSize(v: string): SupercellSize {
  * pipeline (lib/formats/write.ts exportFile): checked, optionally repeated into a supercell, wrapped into the cell
  * when periodic, the check's warnings in the comment line and on standard error.
  */
-export function generateAndEmit(cmd: Command, params: Record<string, unknown>, format: WriteFormat | StructureFormat, supercell?: SupercellSize): void {
+/** Periodic cuts up to this many atoms get their space group in the CLI's notes. */
+const SPACE_GROUP_ATOM_LIMIT = 12000;
+
+export function generateAndEmit(
+  cmd: Command,
+  params: Record<string, unknown>,
+  format: WriteFormat | StructureFormat,
+  supercell?: SupercellSize,
+  cifSymmetry: 'found' | 'p1' = 'p1',
+): void {
   const s = compute(() => generate(params));
-  const { text, report } = compute(() => exportFile(s, format, { supercell }));
+  // The space group (moyo, symprec 1e-3 Å) for periodic cuts small enough to search quickly; larger cells
+  // (the search grows fast with the atom count) are left to `check`.
+  ensureSymmetry();
+  const spaceGroup = s.cell && s.species.length <= SPACE_GROUP_ATOM_LIMIT ? spaceGroupOf : undefined;
+  const { text, report } = compute(() => exportFile(s, format, { supercell, spaceGroup, cifSymmetry }));
   const errOut = cmd.configureOutput().writeErr;
+  // Notes and the space group go to standard error as '# ' comment lines, so standard output stays a clean file.
+  const notes = [...(s.notes ?? [])];
+  if (report.spaceGroup) notes.push(`space group ${report.spaceGroup.symbol} (No. ${report.spaceGroup.number})`);
+  if (errOut) for (const n of notes) errOut(`# ${n}\n`);
   for (const w of report.warnings) if (w.severity !== 'info' && errOut) errOut(`check ${w.severity}: ${w.message}\n`);
   emit(cmd, text.endsWith('\n') ? text : text + '\n');
 }

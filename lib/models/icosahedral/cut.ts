@@ -84,3 +84,70 @@ export function projectShifted(n: ArrayLike<number>, shift: ArrayLike<number>, m
   out[o + 1] = y;
   out[o + 2] = z;
 }
+
+/**
+ * Point groups acting on perpendicular space, as 3×3 matrices (row-major, 9 numbers each).
+ * m-3 (T_h, order 24): cyclic permutations of the axes times every sign change — the symmetry of the
+ * strained approximant window (its rows are signed cyclic permutations of (p, −q, 0)) and the largest cubic
+ * subgroup of m-3-5. m-3-5 (I_h, order 120): m-3 and the 72° rotation about e1⊥, closed under products
+ * (the group generated is the full icosahedral group: standard, e.g. Coxeter, Regular Polytopes — from memory;
+ * the test checks the order and that it permutes the six ±e_i⊥).
+ */
+export function pyritohedralGroup(): Float64Array[] {
+  const out: Float64Array[] = [];
+  for (const perm of [[0, 1, 2], [1, 2, 0], [2, 0, 1]])
+    for (let sg = 0; sg < 8; sg++) {
+      const g = new Float64Array(9);
+      for (let r = 0; r < 3; r++) g[3 * r + perm[r]] = sg & (1 << r) ? -1 : 1;
+      out.push(g);
+    }
+  return out;
+}
+
+function mul3(a: Float64Array, b: Float64Array): Float64Array {
+  const c = new Float64Array(9);
+  for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) for (let k = 0; k < 3; k++) c[3 * i + j] += a[3 * i + k] * b[3 * k + j];
+  return c;
+}
+
+/** The icosahedral group m-3-5 in the perpendicular frame of hyperlattice.ts (120 matrices). */
+export function icosahedralGroup(axis: ArrayLike<number>): Float64Array[] {
+  const ax = axis[0];
+  const ay = axis[1];
+  const az = axis[2];
+  const l = Math.hypot(ax, ay, az);
+  const [x, y, z] = [ax / l, ay / l, az / l];
+  const c = Math.cos((2 * Math.PI) / 5);
+  const s = Math.sin((2 * Math.PI) / 5);
+  const t = 1 - c;
+  // Rodrigues rotation by 72° about the five-fold axis.
+  const r5 = Float64Array.from([t * x * x + c, t * x * y - s * z, t * x * z + s * y, t * x * y + s * z, t * y * y + c, t * y * z - s * x, t * x * z - s * y, t * y * z + s * x, t * z * z + c]);
+  const group: Float64Array[] = [];
+  const key = (g: Float64Array) => Array.from(g, (v) => Math.round(v * 1e6)).join(',');
+  const seen = new Set<string>();
+  const th = pyritohedralGroup();
+  const gens = [r5, th[1], th[8]];
+  const queue = [...th, r5];
+  while (queue.length) {
+    const g = queue.pop()!;
+    const k = key(g);
+    if (seen.has(k)) continue;
+    seen.add(k);
+    group.push(g);
+    if (group.length > 120) throw new Error('icosahedral group: closure exceeded 120 elements');
+    for (const h of gens) queue.push(mul3(g, h));
+  }
+  return group;
+}
+
+/** A generic direction (no rational relation to any facet normal) for the symmetric boundary rule. */
+const GENERIC_DIR = [0.8147236863931789, 0.3211563727203121, 0.4826301488432133];
+
+/** The orbit {g·d₀} of the generic direction under a group, 3 numbers per direction. */
+export function directionOrbit(group: Float64Array[]): Float64Array {
+  const out = new Float64Array(3 * group.length);
+  group.forEach((g, k) => {
+    for (let r = 0; r < 3; r++) out[3 * k + r] = g[3 * r] * GENERIC_DIR[0] + g[3 * r + 1] * GENERIC_DIR[1] + g[3 * r + 2] * GENERIC_DIR[2];
+  });
+  return out;
+}

@@ -19,9 +19,9 @@ import { ENGINE_VERSION } from '../../version';
 import type { HyperlatticeType, IcosahedralBasis } from './hyperlattice';
 import { hyperlatticeCellVolume, hyperlatticeCosets, hyperlatticeSteps, icosahedralBasis, inHyperlattice, toHyper } from './hyperlattice';
 import type { CutClass } from './cut';
-import { classWindows, projectShifted, siteClassesOf, vertexClass } from './cut';
+import { classWindows, directionOrbit, icosahedralGroup, projectShifted, siteClassesOf, vertexClass } from './cut';
 import type { Window } from './window';
-import { windowContains, windowVolume, zonotopeWindow } from './window';
+import { boundaryWeight, windowContainsClosed, windowVolume, zonotopeWindow } from './window';
 import { walkCoset } from './walk';
 import { DEFAULT_MAX_POINTS, checkPointCap } from '../point-cap';
 
@@ -47,6 +47,15 @@ export interface BallCut {
   nodes: Int32Array;
   par: Float64Array;
   perp: Float64Array;
+  /** Symmetric boundary weight per node (1 inside the window; window.ts boundaryWeight, m-3-5 average). */
+  weight: Float64Array;
+}
+
+let ihDirs: Float64Array | null = null;
+/** The m-3-5 orbit of the generic direction, in the perpendicular frame (five-fold axis e1⊥ ∝ (τ, −1, 0)). */
+function icosahedralDirs(): Float64Array {
+  ihDirs ??= directionOrbit(icosahedralGroup([(1 + Math.sqrt(5)) / 2, -1, 0]));
+  return ihDirs;
 }
 
 /**
@@ -70,7 +79,7 @@ function findSeed(basis: IcosahedralBasis, lattice: HyperlatticeType, shift: Arr
     }
     if (lattice === 'F' && !inHyperlattice(n, 'F')) continue;
     projectShifted(n, shift, basis.perp, q, 0);
-    if (!windowContains(explore, q[0], q[1], q[2])) continue;
+    if (!windowContainsClosed(explore, q[0], q[1], q[2])) continue;
     projectShifted(n, shift, basis.par, p, 0);
     cand.push({ d: Math.hypot(p[0] - centre[0], p[1] - centre[1], p[2] - centre[2]), k, n: Int32Array.from(n) });
   }
@@ -90,7 +99,7 @@ export function cutBall(
   radius: number,
   walkBudget: number,
 ): BallCut {
-  const empty: BallCut = { count: 0, nodes: new Int32Array(0), par: new Float64Array(0), perp: new Float64Array(0) };
+  const empty: BallCut = { count: 0, nodes: new Int32Array(0), par: new Float64Array(0), perp: new Float64Array(0), weight: new Float64Array(0) };
   const seed = findSeed(basis, lattice, shift, explore, centre, explore.centre);
   if (!seed) return empty;
   const [cx, cy, cz] = centre;
@@ -107,20 +116,31 @@ export function cutBall(
     budget: walkBudget,
     budgetMessage: `maxPoints: the walk passed ${walkBudget.toLocaleString('en-US')} nodes; lower the radius or raise maxPoints`,
     ball: { par: basis.par, centre, lim2: lim * lim },
+    closed: true,
   });
   const { set, perp } = walk;
   const par = walk.par!;
   const r2 = radius * radius * (1 + 2e-12);
   const keep: number[] = [];
+  const weight: number[] = [];
+  const dirs = icosahedralDirs();
   for (let e = 0; e < set.size; e++) {
     const dx = par[3 * e] - cx;
     const dy = par[3 * e + 1] - cy;
     const dz = par[3 * e + 2] - cz;
     if (dx * dx + dy * dy + dz * dz > r2) continue;
-    if (accept !== explore && !windowContains(accept, perp[3 * e], perp[3 * e + 1], perp[3 * e + 2])) continue;
+    const wt = boundaryWeight(accept, perp[3 * e], perp[3 * e + 1], perp[3 * e + 2], dirs);
+    if (wt <= 0) continue;
     keep.push(e);
+    weight.push(wt);
   }
-  const out: BallCut = { count: keep.length, nodes: new Int32Array(6 * keep.length), par: new Float64Array(3 * keep.length), perp: new Float64Array(3 * keep.length) };
+  const out: BallCut = {
+    count: keep.length,
+    nodes: new Int32Array(6 * keep.length),
+    par: new Float64Array(3 * keep.length),
+    perp: new Float64Array(3 * keep.length),
+    weight: Float64Array.from(weight),
+  };
   keep.forEach((e, j) => {
     for (let i = 0; i < 6; i++) out.nodes[6 * j + i] = set.coords[6 * e + i];
     for (let c = 0; c < 3; c++) {
@@ -168,7 +188,13 @@ export function icosahedralPatch(spec: PatchSpec): Structure {
       parts.push({ cut, cls: ci });
     }
   });
-  return assemble(parts, classes, total, spec.params ?? spec);
+  const s = assemble(parts, classes, total, spec.params ?? spec);
+  if (offset.some((x) => x !== 0) || centre.some((x) => x !== 0))
+    s.notes = [
+      ...(s.notes ?? []),
+      'the phason offset or an off-origin centre lowers the point group of the patch below m-3-5 (offset 0 with the centre at the origin keeps it)',
+    ];
+  return s;
 }
 
 function assemble(parts: { cut: BallCut; cls: number }[], classes: CutClass[], total: number, params: unknown): Structure {
@@ -176,7 +202,9 @@ function assemble(parts: { cut: BallCut; cls: number }[], classes: CutClass[], t
   const perp = new Float64Array(3 * total);
   const species = new Uint16Array(total);
   const site = new Uint16Array(total);
-  const hasOcc = classes.some((c) => c.occupancy !== undefined && c.occupancy !== 1);
+  let fractional = 0;
+  for (const { cut } of parts) for (const w of cut.weight) if (w < 1) fractional++;
+  const hasOcc = fractional > 0 || classes.some((c) => c.occupancy !== undefined && c.occupancy !== 1);
   const occupancy = hasOcc ? new Float64Array(total) : undefined;
   let o = 0;
   for (const { cut, cls } of parts) {
@@ -184,10 +212,14 @@ function assemble(parts: { cut: BallCut; cls: number }[], classes: CutClass[], t
     perp.set(cut.perp, 3 * o);
     species.fill(classes[cls].species, o, o + cut.count);
     site.fill(cls, o, o + cut.count);
-    if (occupancy) occupancy.fill(classes[cls].occupancy ?? 1, o, o + cut.count);
+    if (occupancy) for (let j = 0; j < cut.count; j++) occupancy[o + j] = (classes[cls].occupancy ?? 1) * cut.weight[j];
     o += cut.count;
   }
   const s: Structure = { positions, species, site, siteClasses: siteClassesOf(classes), perp, perpDim: 3, dim: 3, provenance: { params, engine: ENGINE_VERSION } };
+  if (fractional > 0)
+    s.notes = [
+      `${fractional} points lie on the window boundary (a singular window position such as offset 0): they carry fractional occupancy, the m-3-5 average of a generic infinitesimal shift, so the patch keeps the icosahedral symmetry of its centre — use a generic phason offset for whole atoms`,
+    ];
   if (occupancy) s.occupancy = occupancy;
   return s;
 }

@@ -7,10 +7,15 @@ import { maxPointsSchema } from '../point-cap';
 const finite = z.number().refine(Number.isFinite, { message: 'must be a finite number' });
 const vec3 = z.tuple([finite, finite, finite]);
 
-/** Phason offset: a shift of the window in perpendicular space, Å, each component |x| ≤ 100. */
+/**
+ * Phason offset: a shift of the window in perpendicular space, Å, each component |x| ≤ 100, measured from
+ * the symmetric position (approximants: the m-3-fixed window centre of approximant.ts; patches: the
+ * origin), so (0, 0, 0) keeps the full point group. Approximant offsets are reduced modulo the
+ * perpendicular periods.
+ */
 const offset = vec3
   .refine((v) => v.every((x) => Math.abs(x) <= 100), { message: 'each component must be within ±100 Å' })
-  .meta({ title: 'Phason offset', unit: 'Å, perp. space', description: 'Shifts the occupation domain in perpendicular space.' })
+  .meta({ title: 'Phason offset', unit: 'Å, perp. space', description: 'Shifts the occupation domain in perpendicular space from its symmetric position; (0, 0, 0) keeps the full symmetry, other values can lower it.' })
   .default([0, 0, 0]);
 
 const common = {

@@ -14,7 +14,7 @@
 import type { Vec3 } from '../../structure/types';
 import { IntVectorSet } from '../../math/int-vector-set';
 import { projectShifted } from './cut';
-import { windowContains, type Window } from './window';
+import { windowContains, windowContainsClosed, type Window } from './window';
 
 export interface CosetWalk {
   seed: Int32Array;
@@ -30,6 +30,8 @@ export interface CosetWalk {
   ball?: { par: Float64Array; centre: Vec3; lim2: number };
   /** Cell: reduce a node into the cell in place. */
   reduce?: (n: Int32Array) => void;
+  /** Explore the closed window (boundary nodes included, for the symmetric boundary weights). */
+  closed?: boolean;
 }
 
 export interface WalkResult {
@@ -68,6 +70,7 @@ export function walkCoset(w: CosetWalk): WalkResult {
   const [cx, cy, cz] = ball ? ball.centre : [0, 0, 0];
   const lim2 = ball ? ball.lim2 : Infinity;
   const m = new Int32Array(6);
+  const inside = w.closed ? windowContainsClosed : windowContains;
   for (let head = 0; head < set.size; head++) {
     const b = 6 * head;
     const qx = perp[3 * head];
@@ -83,7 +86,7 @@ export function walkCoset(w: CosetWalk): WalkResult {
       const ux = qx + sq[3 * k];
       const uy = qy + sq[3 * k + 1];
       const uz = qz + sq[3 * k + 2];
-      if (!windowContains(explore, ux, uy, uz)) continue;
+      if (!inside(explore, ux, uy, uz)) continue;
       const st = steps[k];
       const c = set.coords;
       for (let i = 0; i < 6; i++) m[i] = c[b + i] + st[i];

@@ -204,3 +204,75 @@ export function windowOuterRadius(w: Window): number {
   }
   return best * w.scale;
 }
+
+/**
+ * Symmetric boundary rule. A point x on the boundary of W is inside W moved by an infinitesimal generic
+ * shift −η·d (η → 0⁺) for some directions d and outside for others. Averaging that indicator over the
+ * orbit {g·d₀} of one generic direction under a point group G of the window gives a weight in [0, 1]
+ * that is (i) 1 inside, 0 outside, (ii) G-invariant (the orbit is), and (iii) sums to the ideal count
+ * whenever every generic shift gives it (the mean of |G| ideal counts). The half-open rule above is the
+ * single direction d = (1, ε, ε²); this is its G-average (common practice for singular cuts: a symmetric
+ * "fractional" choice on the boundary — our own formulation).
+ */
+export function boundaryWeight(w: Window, x: number, y: number, z: number, dirs: Float64Array): number {
+  const dx = x - w.centre[0];
+  const dy = y - w.centre[1];
+  const dz = z - w.centre[2];
+  const nd = dirs.length / 3;
+  if (w.kind === 'sphere') {
+    const r = Math.sqrt(dx * dx + dy * dy + dz * dz);
+    if (r - w.r2 > w.tol) return 0;
+    if (w.r1 >= 0 && w.r1 - r > w.tol) return 0;
+    const onOuter = Math.abs(r - w.r2) <= w.tol;
+    const onInner = w.r1 >= 0 && Math.abs(r - w.r1) <= w.tol;
+    if (!onOuter && !onInner) return 1;
+    let inside = 0;
+    for (let k = 0; k < nd; k++) {
+      const s = dx * dirs[3 * k] + dy * dirs[3 * k + 1] + dz * dirs[3 * k + 2];
+      if ((onOuter && s < 0) || (onInner && s > 0)) inside++;
+    }
+    return inside / nd;
+  }
+  const n = w.normals;
+  const h = w.support;
+  const tol = w.tol;
+  // Facets the point lies on: +1 (d = h), −1 (d = −h).
+  const on: number[] = [];
+  for (let f = 0, m = h.length; f < m; f++) {
+    const d = n[3 * f] * dx + n[3 * f + 1] * dy + n[3 * f + 2] * dz;
+    if (d - h[f] > tol || -d - h[f] > tol) return 0;
+    if (Math.abs(d - h[f]) <= tol) on.push(f, 1);
+    else if (Math.abs(d + h[f]) <= tol) on.push(f, -1);
+  }
+  if (on.length === 0) return 1;
+  let inside = 0;
+  for (let k = 0; k < nd; k++) {
+    let ok = true;
+    for (let j = 0; j < on.length && ok; j += 2) {
+      const f = on[j];
+      const s = n[3 * f] * dirs[3 * k] + n[3 * f + 1] * dirs[3 * k + 1] + n[3 * f + 2] * dirs[3 * k + 2];
+      // Moving x by +η·d must go strictly inward through that facet.
+      if (on[j + 1] * s >= 0) ok = false;
+    }
+    if (ok) inside++;
+  }
+  return inside / nd;
+}
+
+/** Closed membership with the tolerance band (the window slightly enlarged): every node a weight may keep. */
+export function windowContainsClosed(w: Window, x: number, y: number, z: number): boolean {
+  const dx = x - w.centre[0];
+  const dy = y - w.centre[1];
+  const dz = z - w.centre[2];
+  if (w.kind === 'sphere') {
+    const r = Math.sqrt(dx * dx + dy * dy + dz * dz);
+    return r - w.r2 <= w.tol && (w.r1 < 0 || w.r1 - r <= w.tol);
+  }
+  const n = w.normals;
+  const h = w.support;
+  for (let f = 0, m = h.length; f < m; f++) {
+    const d = n[3 * f] * dx + n[3 * f + 1] * dy + n[3 * f + 2] * dz;
+    if (Math.abs(d) - h[f] > w.tol) return false;
+  }
+  return true;
+}

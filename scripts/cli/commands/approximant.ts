@@ -15,6 +15,7 @@ interface Flags {
   maxPoints?: number;
   format: WriteFormat;
   supercell?: SupercellSize;
+  cifSymmetry: 'found' | 'p1';
 }
 
 /** approximant: one periodic cell of a cubic (icosahedral) or decagonal approximant. */
@@ -32,6 +33,9 @@ export function registerApproximant(program: Command): void {
     .option('--max-points <n>', 'refuse to build more points than this (default 2000000)', number)
     .addOption(new Option('--format <fmt>', `${WRITE_FORMATS.join(', ')} (poscar: VASP; lammps: LAMMPS data, atom style atomic)`).choices(WRITE_FORMATS).default('xyz'))
     .option('--supercell <n1xn2xn3>', 'repeat the cell, e.g. 2x2x1 (default 1x1x1)', supercellSize)
+    .addOption(
+      new Option('--cif-symmetry <mode>', 'CIF: found = space group, operations and asymmetric unit; p1 = P 1 with every atom').choices(['found', 'p1']).default('found'),
+    )
     .action((o: Flags, cmd: Command) => {
       if (o.family === 'decagonal') {
         // Penrose layers stacked along c (lib/models/decagonal); --aR is the rhombus edge.
@@ -55,6 +59,7 @@ export function registerApproximant(program: Command): void {
         },
         o.format,
         o.supercell,
+        o.cifSymmetry,
       );
     });
 }

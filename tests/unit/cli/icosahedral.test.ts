@@ -3,14 +3,24 @@ import { cli } from '../../helpers/cli';
 import { TAU } from '../../../lib/math/golden';
 
 describe('CLI: approximant and patch', () => {
-  it('approximant 1/1 as JSON: exact key order, 32 vertices as X, Elser–Henley cell (PRL 55 (1985) 2883)', async () => {
-    const r = await cli(['approximant', '--family', 'icosahedral', '--order', '1/1', '--aR', '4.6', '--format', 'json']);
+  it('approximant 2/1 as JSON: exact key order, 136 vertices as X, Elser–Henley cell (PRL 55 (1985) 2883); space group on stderr', async () => {
+    const r = await cli(['approximant', '--family', 'icosahedral', '--order', '2/1', '--aR', '4.6', '--format', 'json']);
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out) as Record<string, unknown>;
     expect(Object.keys(j).slice(0, 6)).toEqual(['cell', 'positions', 'species', 'site', 'perp', 'provenance']);
-    expect((j.positions as unknown[]).length).toBe(32);
+    expect((j.positions as unknown[]).length).toBe(136);
     expect(new Set(j.species as string[])).toEqual(new Set(['X']));
-    expect((j.cell as number[][])[0][0]).toBeCloseTo((2 * (TAU + 1) * 4.6) / Math.sqrt(2 + TAU), 6);
+    expect((j.cell as number[][])[0][0]).toBeCloseTo((2 * (2 * TAU + 1) * 4.6) / Math.sqrt(2 + TAU), 6);
+    expect(r.err).toMatch(/^# space group P a -3 \(No\. 205\), point group m-3/m);
+  });
+
+  it('approximant --format cif writes the space group and the asymmetric unit; --cif-symmetry p1 writes every atom', async () => {
+    const found = await cli(['approximant', '--family', 'icosahedral', '--order', '2/1', '--aR', '4.6', '--species', 'Al', '--format', 'cif']);
+    expect(found.code).toBe(0);
+    expect(found.out).toMatch(/_space_group_IT_number 205/);
+    const p1 = await cli(['approximant', '--family', 'icosahedral', '--order', '2/1', '--aR', '4.6', '--species', 'Al', '--format', 'cif', '--cif-symmetry', 'p1']);
+    expect(p1.out).toMatch(/_space_group_IT_number 1\n/);
+    expect(p1.out.split('\n').filter((l) => /^Al\d+ /.test(l)).length).toBe(136);
   });
 
   it('bad flags exit with code 2 and name the field', async () => {

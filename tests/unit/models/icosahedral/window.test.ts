@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { icosahedralBasis } from '../../../../lib/models/icosahedral/hyperlattice';
 import { TAU } from '../../../../lib/math/golden';
-import { zonotopeWindow, sphereWindow, shellWindow, windowContains, windowVolume, windowInradius, windowOuterRadius, scaleWindow } from '../../../../lib/models/icosahedral/window';
+import { zonotopeWindow, sphereWindow, shellWindow, windowContains, windowVolume, windowInradius, windowOuterRadius, scaleWindow, boundaryWeight, windowContainsClosed } from '../../../../lib/models/icosahedral/window';
+import { directionOrbit, icosahedralGroup, pyritohedralGroup } from '../../../../lib/models/icosahedral/cut';
 
 describe('occupation domains', () => {
   const b = icosahedralBasis(1);
@@ -50,5 +51,35 @@ describe('occupation domains', () => {
     expect(windowVolume(sh)).toBeCloseTo((4 / 3) * Math.PI * 7, 12);
     expect(() => shellWindow(2, 1)).toThrow(/r2/);
     expect(() => sphereWindow(0)).toThrow(/radius/);
+  });
+});
+
+describe('symmetric boundary weights (boundaryWeight)', () => {
+  // A cube [−1, 1]³ as the zonotope of the three axes scaled by 2: the share of directions pointing into
+  // the cube from a face centre, an edge midpoint and a corner is 1/2, 1/4, 1/8 (elementary solid geometry),
+  // and the m-3 orbit of a generic direction has equal numbers in every octant (m-3 holds every sign change).
+  it('cube: inside 1, face ½, edge ¼, corner ⅛, outside 0 with the m-3 orbit of a generic direction', () => {
+    const cube = zonotopeWindow([1, 0, 0, 0, 1, 0, 0, 0, 1], { scale: 2 });
+    const dirs = directionOrbit(pyritohedralGroup());
+    expect(dirs.length / 3).toBe(24);
+    expect(boundaryWeight(cube, 0.2, -0.3, 0.5, dirs)).toBe(1);
+    expect(boundaryWeight(cube, 1, 0.3, -0.2, dirs)).toBe(1 / 2);
+    expect(boundaryWeight(cube, -1, 1, 0.4, dirs)).toBe(1 / 4);
+    expect(boundaryWeight(cube, 1, -1, 1, dirs)).toBe(1 / 8);
+    expect(boundaryWeight(cube, 1.001, 0, 0, dirs)).toBe(0);
+    expect(windowContainsClosed(cube, 1, -1, 1)).toBe(true);
+  });
+
+  it('the icosahedral group of the perpendicular frame has order 120 (m-3-5, textbook) and permutes the six ±e_i⊥', () => {
+    const b = icosahedralBasis(1);
+    const g = icosahedralGroup([b.perp[0], b.perp[1], b.perp[2]]);
+    expect(g.length).toBe(120);
+    for (const m of g) {
+      for (let i = 0; i < 6; i++) {
+        const v = [0, 1, 2].map((r) => m[3 * r] * b.perp[3 * i] + m[3 * r + 1] * b.perp[3 * i + 1] + m[3 * r + 2] * b.perp[3 * i + 2]);
+        const hit = [0, 1, 2, 3, 4, 5].some((j) => [1, -1].some((s) => [0, 1, 2].every((c) => Math.abs(v[c] - s * b.perp[3 * j + c]) < 1e-9)));
+        expect(hit).toBe(true);
+      }
+    }
   });
 });
