@@ -8,11 +8,13 @@
  */
 import type { Structure } from '../../structure/types';
 import { atomicNumber } from '../../structure/elements';
-import type { DecorationParams, SiteClassParams } from './decoration-schema';
+import type { ClusterPlacementParams, DecorationParams, SiteClassParams } from './decoration-schema';
+import { DEFAULT_MERGE_TOLERANCE } from './decoration-schema';
+import { checkPointCap } from '../point-cap';
 import type { CutClass } from './cut';
 import { vertexClass } from './cut';
 import { CLUSTER_PRESETS, clusterSize, placeClusters, type ClusterTemplate } from './clusters';
-import { mergeClose } from '../../structure/merge';
+import { mergeClose, wrapIntoCell } from '../../structure/merge';
 
 /** 6D fractional position of a named site (or the explicit six numbers). */
 export function sitePosition(position: SiteClassParams['position']): Float64Array {
@@ -54,39 +56,96 @@ export function resolveClasses(decoration?: DecorationParams, species?: string):
   });
 }
 
-/** Place the decoration's cluster templates on their site classes, then merge close atoms. */
-export function applyClusters<S extends Structure>(s: S, decoration?: DecorationParams): S {
+/** The cluster template of one placement: the preset (with the placement's species per shell, if given) or the user's shells. */
+export function placementTemplate(c: ClusterPlacementParams): ClusterTemplate {
+  if (c.preset) {
+    const t = CLUSTER_PRESETS[c.preset];
+    if (!c.species) return t;
+    if (c.species.length !== t.shells.length) {
+      throw new Error(`${t.name} preset: species per shell needs ${t.shells.length} elements (one per shell: ${t.shells.map((x) => x.name).join(', ')}), got ${c.species.length}`);
+    }
+    return { ...t, shells: t.shells.map((sh, k) => ({ name: sh.name, polyhedron: sh.polyhedron, radius: sh.radius, species: atomicNumber(c.species![k]) })) };
+  }
+  return {
+    name: 'cluster',
+    reference: 'user-defined shells',
+    shells: c.shells!.map((sh, k) => ({
+      name: sh.name ?? `shell ${k + 1}`,
+      polyhedron: sh.polyhedron,
+      radius: sh.radius,
+      species: atomicNumber(sh.species),
+    })),
+  };
+}
+
+/**
+ * Upper bound on the atoms after placing clusters, from the number of points of each site class:
+ * each centre is replaced by its cluster (before merging, which only removes atoms).
+ */
+export function decoratedCount(classCounts: ReadonlyMap<string, number>, total: number, decoration?: DecorationParams): number {
+  let n = total;
+  for (const c of decoration?.clusters ?? []) n += (classCounts.get(c.at) ?? 0) * (clusterSize(placementTemplate(c)) - 1);
+  return n;
+}
+
+/** The decorated structure as a modeller needs it: the decoration's site class for each preset and its usual species. */
+export function presetDecoration(preset: ClusterPlacementParams['preset'] & string): DecorationParams {
+  const t = CLUSTER_PRESETS[preset];
+  const site = t.site!;
+  return {
+    classes: [{ name: site.name, position: site.position, window: { kind: 'sphere', radius: site.sphereRadius } }],
+    clusters: [{ at: site.name, preset }],
+    mergeTolerance: DEFAULT_MERGE_TOLERANCE,
+  };
+}
+
+export interface ClusterOptions {
+  /** Point cap: refuse before allocating when the clusters would exceed it. */
+  maxPoints?: number;
+  /** Quasilattice constant of the cut, Å, to warn when a preset was sized for another. */
+  aR?: number;
+}
+
+/**
+ * Place the decoration's cluster templates on their site classes, wrap atoms that land outside the cell
+ * back in (periodic cuts), then merge atoms closer than the merge tolerance across periodic boundaries
+ * (minimum image), with notes of what was placed, wrapped and merged.
+ */
+export function applyClusters<S extends Structure>(s: S, decoration?: DecorationParams, opts: ClusterOptions = {}): S {
   if (!decoration?.clusters?.length) return s;
   let out: Structure = s;
   const notes: string[] = [];
   for (const c of decoration.clusters) {
-    const template: ClusterTemplate = c.preset
-      ? CLUSTER_PRESETS[c.preset]
-      : {
-          name: 'cluster',
-          reference: 'user-defined shells',
-          shells: c.shells!.map((sh, k) => ({
-            name: sh.name ?? `shell ${k + 1}`,
-            polyhedron: sh.polyhedron,
-            radius: sh.radius,
-            species: atomicNumber(sh.species),
-          })),
-        };
+    const template = placementTemplate(c);
     const classes = out.siteClasses ?? [];
     const site = out.site;
     const target = classes.findIndex((k) => k.name === c.at);
     let centres = 0;
-    out = placeClusters(out, template, (i) => {
-      const hit = site !== undefined && site[i] === target;
-      if (hit) centres++;
-      return hit;
-    });
-    notes.push(`${template.name} clusters on "${c.at}": ${centres} placed, ${centres * clusterSize(template)} atoms added`);
+    if (site) for (let i = 0; i < site.length; i++) if (site[i] === target) centres++;
+    const size = clusterSize(template);
+    if (opts.maxPoints !== undefined) {
+      checkPointCap(out.species.length + centres * (size - 1), opts.maxPoints, `${centres} ${template.name} clusters of ${size} atoms`);
+    }
+    out = placeClusters(out, template, (i) => site !== undefined && site[i] === target);
+    notes.push(`${template.name} clusters on "${c.at}": ${centres} placed, ${centres * size} atoms added`);
+    if (template.aR !== undefined && opts.aR !== undefined && Math.abs(opts.aR / template.aR - 1) > 0.02) {
+      notes.push(
+        `warning: the ${template.name} preset is sized for a_R = ${template.aR.toFixed(2)} Å (${template.phase?.name ?? 'its phase'}); this cut has a_R = ${opts.aR} Å, so neighbouring clusters will not share their atoms — expect close pairs`,
+      );
+    }
   }
-  if (decoration.mergeTolerance > 0) {
-    const m = mergeClose(out, decoration.mergeTolerance);
+  if (out.cell) {
+    const w = wrapIntoCell(out);
+    out = w.structure;
+    if (w.count > 0) notes.push(`wrapped ${w.count} cluster atoms that fell outside the cell back into it`);
+  }
+  const tol = decoration.mergeTolerance;
+  if (tol > 0) {
+    const m = mergeClose(out, tol);
     out = m.structure;
-    notes.push(`merged ${m.count} atoms closer than ${decoration.mergeTolerance} Å (${m.conflicts} with differing species or site class)`);
+    notes.push(
+      `merged ${m.count} atoms closer than ${tol} Å${out.cell ? ' (across the cell boundary too, minimum image)' : ''} (${m.conflicts} with differing species or site class)`,
+    );
   }
   out.notes = [...(s.notes ?? []), ...notes];
   return Object.assign(out, s.cell ? { cell: s.cell } : {}) as S;
