@@ -98,11 +98,11 @@ export const clusterShellSchema = z
 
 export const CLUSTER_PRESET_NAMES = ['mackay', 'bergman', 'tsai'] as const;
 
-/** The presets by the compound each is modelled on (clusters.ts gives the shells and their sources). */
+/** The presets by the compound each is modelled on and the a_R they are sized for (clusters.ts gives the shells and their sources). */
 const PRESET_WORDS: Record<(typeof CLUSTER_PRESET_NAMES)[number], string> = {
-  mackay: 'Mackay (α-AlMnSi)',
-  bergman: 'Bergman (Mg₃₂(Al,Zn)₄₉)',
-  tsai: 'Tsai (YbCd₅.₇)',
+  mackay: 'Mackay, 54 atoms (α-AlMnSi; cut with a_R ≈ 4.61 Å)',
+  bergman: 'Bergman, 116 atoms (Mg₃₂(Al,Zn)₄₉; a_R ≈ 5.14 Å)',
+  tsai: 'Tsai, 158 atoms (YbCd₆; a_R ≈ 5.68 Å)',
 };
 
 /**
