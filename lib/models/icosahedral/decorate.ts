@@ -15,6 +15,8 @@ import type { CutClass } from './cut';
 import { vertexClass } from './cut';
 import { CLUSTER_PRESETS, clusterSize, placeClusters, type ClusterTemplate } from './clusters';
 import { mergeClose, wrapIntoCell } from '../../structure/merge';
+import { TOO_CLOSE_FRACTION, tooCloseThreshold } from '../../structure/radii';
+import { forEachPairWithin } from '../../math/cell-list';
 
 /** 6D fractional position of a named site (or the explicit six numbers). */
 export function sitePosition(position: SiteClassParams['position']): Float64Array {
@@ -147,6 +149,37 @@ export function applyClusters<S extends Structure>(s: S, decoration?: Decoration
       `merged ${m.count} atoms closer than ${tol} Å${out.cell ? ' (across the cell boundary too, minimum image)' : ''} (${m.conflicts} with differing species or site class)`,
     );
   }
+  const close = closePairs(out);
+  if (close.count > 0) {
+    notes.push(
+      `warning: ${close.count.toLocaleString('en-US')} pairs are closer than ${TOO_CLOSE_FRACTION} of their metallic radii sum (shortest ${close.shortest.toFixed(3)} Å) — the clusters overlap; centre them on a sparser site class or fit a_R to the preset`,
+    );
+  }
   out.notes = [...(s.notes ?? []), ...notes];
   return Object.assign(out, s.cell ? { cell: s.cell } : {}) as S;
+}
+
+/** Pairs closer than the Check step's threshold (radii.ts), periodic images included; unassigned sites (X) are skipped. */
+function closePairs(s: Structure): { count: number; shortest: number } {
+  let rMax = 0;
+  const seen = new Set<number>();
+  for (const z of s.species) {
+    if (seen.has(z)) continue;
+    seen.add(z);
+    const t = tooCloseThreshold(z, z);
+    if (Number.isFinite(t)) rMax = Math.max(rMax, t);
+  }
+  let count = 0;
+  let shortest = Infinity;
+  if (rMax > 0 && s.species.length > 1) {
+    forEachPairWithin(s.positions, s.cell, rMax, (i, j, d) => {
+      if (i === j) return;
+      const t = tooCloseThreshold(s.species[i], s.species[j]);
+      if (d < t) {
+        count++;
+        shortest = Math.min(shortest, d);
+      }
+    });
+  }
+  return { count, shortest };
 }

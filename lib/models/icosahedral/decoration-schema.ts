@@ -124,7 +124,12 @@ export const clusterPlacementSchema = z
       .meta({ title: 'On site class', description: 'A cluster is centred on each point of this site class.', examples: ['vertex'], namesOf: 'classes' }),
     preset: z
       .enum(CLUSTER_PRESET_NAMES, { message: `must be one of ${CLUSTER_PRESET_NAMES.join(', ')}` })
-      .meta({ title: 'Cluster preset', optionLabels: PRESET_WORDS })
+      .meta({
+        title: 'Cluster preset',
+        optionLabels: PRESET_WORDS,
+        description:
+          'Each preset is meant for a site class of cluster centres — position node, a sphere window of 2 Å (perp. space), which keeps the body-centred cluster sites of the 1/1 — cut with the a_R in its name. Species per shell below replaces its usual species.',
+      })
       .optional(),
     shells: z.array(clusterShellSchema).min(1).max(12).meta({ title: 'Shells of one’s own' }).optional(),
     /** A preset's species, shell by shell from the inside out (replacing its usual species and mixes). */

@@ -48,6 +48,7 @@ describe('cluster presets on their site in a 1/1 cell', () => {
     const density = s.species.length / volume(s);
     expect(Math.abs(density / (PHASES.tsai.atoms / PHASES.tsai.a ** 3) - 1)).toBeLessThan(0.1);
     expect(tooClosePairs(s).count).toBe(0);
+    expect(s.notes?.join('\n')).not.toMatch(/warning/);
     // Every atom inside the cell.
     const a = s.cell![0][0];
     for (const x of s.positions) expect(x >= 0 && x < a).toBe(true);
@@ -106,6 +107,10 @@ describe('decorated atoms count against the estimate and the point cap', () => {
     });
     expect(closest).toBeGreaterThanOrEqual(1.1);
     expect(s.notes?.join('\n')).toMatch(/merged \d+ atoms closer than 1.1 Å \(across the cell boundary too, minimum image\)/);
+    // Clusters 4.2 Å apart overlap: the pairs the Check step would flag are counted in a warning.
+    const flagged = tooClosePairs(s).count;
+    expect(flagged).toBeGreaterThan(1000);
+    expect(s.notes?.join('\n')).toContain(`warning: ${flagged.toLocaleString('en-US')} pairs are closer than 0.8 of their metallic radii sum`);
     expect(s.notes?.join('\n')).toMatch(/warning: the Mackay preset is sized for a_R = 4.61 Å \(α-AlMnSi \(cP138\)\); this cut has a_R = 4.2 Å/);
   });
 });
