@@ -81,8 +81,8 @@ export function placementTemplate(c: ClusterPlacementParams): ClusterTemplate {
 }
 
 /**
- * Upper bound on the atoms after placing clusters, from the number of points of each site class:
- * each centre is replaced by its cluster (before merging, which only removes atoms).
+ * Atoms after placing clusters, from the number of points of each site class: each centre is replaced by its
+ * cluster (counted before merging, which only removes atoms).
  */
 export function decoratedCount(classCounts: ReadonlyMap<string, number>, total: number, decoration?: DecorationParams): number {
   let n = total;
@@ -90,7 +90,10 @@ export function decoratedCount(classCounts: ReadonlyMap<string, number>, total: 
   return n;
 }
 
-/** The decorated structure as a modeller needs it: the decoration's site class for each preset and its usual species. */
+/**
+ * A decoration that puts a preset on the site it is meant for: one site class of cluster centres (the
+ * preset's position and small sphere window) and the preset with its usual species, every field editable.
+ */
 export function presetDecoration(preset: ClusterPlacementParams['preset'] & string): DecorationParams {
   const t = CLUSTER_PRESETS[preset];
   const site = t.site!;

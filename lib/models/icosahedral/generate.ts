@@ -19,7 +19,9 @@ export function generateIcosahedral(p: IcosahedralParams): Structure {
 
 /**
  * Expected number of atoms: the model-set density of each site class times the volume, and for every class
- * that carries clusters, its points times the atoms per cluster (an upper bound: merging only removes atoms).
+ * that carries clusters, its expected points times the atoms per cluster (before merging, which only removes
+ * atoms). A small window in a small cell can hold more points than its density says; applyClusters checks the
+ * cap again on the real number of centres.
  */
 export function estimateIcosahedral(p: IcosahedralParams): number {
   const classes = resolveClasses(p.decoration, p.species);
