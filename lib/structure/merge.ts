@@ -1,4 +1,5 @@
 import { forEachPairWithin } from '../math/cell-list';
+import { toCartesian, toFractional } from '../math/frac';
 import type { Structure } from './types';
 import { perpDimension, validateStructure } from './validate';
 
@@ -103,4 +104,35 @@ export function mergeClose(s: Structure, tol: number): MergeResult {
   }
   if (s.tiles) out.tiles = { ...s.tiles, corners: Uint32Array.from(s.tiles.corners, (c) => newIndex[c]) };
   return { structure: out, merged, count: merged.length, conflicts };
+}
+
+/**
+ * Every atom of a periodic structure moved into its cell: fractional coordinates reduced into [0, 1)
+ * (x − ⌊x⌋, a value that rounds to 1 becomes 0; a coordinate within 1e-9 below an integer is taken as that
+ * integer, so float noise on a cell face does not send an atom to the far face). Returns the structure and how
+ * many atoms moved; a structure without a cell is returned as it is.
+ */
+export function wrapIntoCell(s: Structure): { structure: Structure; count: number } {
+  if (!s.cell) return { structure: s, count: 0 };
+  const f = toFractional(s.cell, s.positions);
+  const moved = new Uint8Array(f.length / 3);
+  let count = 0;
+  for (let i = 0; i < f.length; i += 3) {
+    for (let q = 0; q < 3; q++) {
+      const x = f[i + q];
+      const k = Math.floor(x + 1e-9);
+      if (k === 0) continue;
+      let w = x - k;
+      if (w < 0 || w >= 1) w = 0;
+      f[i + q] = w;
+      moved[i / 3] = 1;
+    }
+    count += moved[i / 3];
+  }
+  if (count === 0) return { structure: s, count: 0 };
+  const wrapped = toCartesian(s.cell, f);
+  // Atoms that did not move keep their exact coordinates (no round trip through fractions).
+  const positions = Float64Array.from(s.positions);
+  for (let a = 0; a < moved.length; a++) if (moved[a]) positions.set(wrapped.subarray(3 * a, 3 * a + 3), 3 * a);
+  return { structure: { ...s, positions }, count };
 }

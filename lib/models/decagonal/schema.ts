@@ -30,7 +30,7 @@ export const decagonalModelSchema = z
       .optional(),
     /** Rhombus edge in Å. Default 2.45 Å, a typical decagonal Al–Ni–Co value (from memory). */
     edge: z.number({ message: 'must be a number' }).gt(0, 'must be positive').max(1000, 'must be at most 1000 Å').meta({ title: 'Edge length', unit: 'Å' }).default(2.45),
-    /** Layers per period along c. Default 2 (the common two-layer stacking). */
+    /** Layers per period along c. Default 2 (the two-layer 10₅ period of d-Al–Ni–Co). */
     layers: z
       .number({ message: 'must be a number' })
       .int('must be an integer')
@@ -53,6 +53,20 @@ export const decagonalModelSchema = z
       ])
       .meta({ title: 'Layer shift', unit: 'Å', description: 'How far each layer sits sideways (x, y) from the one below.' })
       .default([0, 0]),
+    /**
+     * How the layers of one period are related. 'screw' (default): every other layer is the layer turned by
+     * 36° about the tenfold axis — for the Penrose vertex set, the layer inverted through the axis with its
+     * perpendicular window inverted — the 10₅ screw axis of the decagonal phases, period two layers.
+     * 'translation': identical layers, each moved by the shift.
+     */
+    stacking: z
+      .enum(['screw', 'translation'], { message: 'must be screw or translation' })
+      .meta({
+        title: 'Stacking',
+        description: 'How neighbouring layers are related along the tenfold axis.',
+        optionLabels: { screw: '10₅ screw: every other layer turned by 36°', translation: 'identical layers, shifted' },
+      })
+      .default('screw'),
     /** Pentagrid offsets γ_j of the layer tiling (5 entries, default 0). */
     gamma: z
       .array(z.number({ message: 'must be a number' }).min(-100, 'must be at least -100').max(100, 'must be at most 100'))
@@ -64,6 +78,9 @@ export const decagonalModelSchema = z
     maxPoints: maxPointsSchema,
   })
   .superRefine((v, ctx) => {
+    if (v.stacking === 'screw' && v.layers % 2 !== 0) {
+      ctx.addIssue({ code: 'custom', path: ['layers'], message: `the 10₅ screw stacking repeats after two layers, so layers per period must be even (got ${v.layers}); use stacking "translation" for an odd count` });
+    }
     if (v.radius === undefined && v.approximant === undefined) {
       ctx.addIssue({ code: 'custom', path: ['radius'], message: 'required unless an approximant is asked for' });
     }

@@ -26,59 +26,117 @@ export interface ClusterTemplate {
   centre?: { name: string; species: number; mix?: Record<number, number>; occupancy?: number };
   /** Shells from the inside out. */
   shells: ClusterShell[];
+  /** Presets: the site class the cluster is meant to be centred on. */
+  site?: PresetSite;
+  /** Presets: the quasilattice constant a_R (Å) the shells are sized for; neighbouring clusters share atoms only then. */
+  aR?: number;
+  /** Presets: the crystal the cluster is modelled on. */
+  phase?: ReferencePhase;
+}
+
+const TAU = (1 + Math.sqrt(5)) / 2;
+/** Quasilattice constant a_R of a 1/1 cubic approximant of lattice constant a: a = 2(τ + 1)·a_R/√(2 + τ) (Elser & Henley 1985). */
+export function aROf11(a: number): number {
+  return (a * Math.sqrt(2 + TAU)) / (2 * (TAU + 1));
+}
+
+/** The crystal a preset is modelled on: its cubic 1/1 approximant, for the density check and the preset's scale. */
+export interface ReferencePhase {
+  /** Phase name, e.g. "YbCd6 (1/1 approximant)". */
+  name: string;
+  /** Cubic lattice constant, Å. */
+  a: number;
+  /** Atoms per conventional cell. */
+  atomsPerCell: number;
+  /** Where a and the count come from (and how sure we are). */
+  source: string;
+}
+
+/** The site a preset is meant for: a site class of the cut whose points are the cluster centres. */
+export interface PresetSite {
+  /** Suggested class name. */
+  name: string;
+  position: 'node' | 'body';
+  /** Sphere window radius in perpendicular-space Å: small, so only the cluster centres are kept. */
+  sphereRadius: number;
 }
 
 /**
- * Mackay-type cluster as in α-(Al,Mn)Si: an Al icosahedron, then 12 Mn on a larger icosahedron and
- * 30 Al on an icosidodecahedron (54 atoms, centre empty). Cooper & Robinson, Acta Cryst. 20 (1966) 614
- * (structure of α-AlMnSi); Elser & Henley, Phys. Rev. Lett. 55 (1985) 2883 (the cluster as the
- * building unit of the icosahedral phase). Radii from memory, approximate — adjust to the refinement.
+ * Mackay-type cluster as in α-(Al,Mn)Si (cP138, Pm-3, a = 12.68 Å): an Al icosahedron, an Al
+ * icosidodecahedron and a Mn icosahedron capping its pentagons at about the same radius (54 atoms,
+ * centre empty). Cooper & Robinson, Acta Cryst. 20 (1966) 614 (structure of α-AlMnSi); Elser & Henley,
+ * Phys. Rev. Lett. 55 (1985) 2883 (the cluster as the building unit of the icosahedral phase; Mackay
+ * clusters on the bcc sites of the 1/1, quasilattice constant a_R = a/2.7528 = 4.61 Å); Sugiyama et al.
+ * (1998) for the shells of the α-phase (the Mn icosahedron about as wide as the icosidodecahedron).
+ * Radii from memory: inner Al icosahedron 2.45 Å, Al icosidodecahedron 4.5 Å, Mn icosahedron 4.8 Å, chosen so
+ * every contact is at least 0.85 of the CN-12 metallic-radius sum (the published inner shell is partly
+ * occupied and slightly larger). The α-phase holds 30 more "glue" atoms per cell than two clusters (138 vs 108).
  */
 export const MACKAY: ClusterTemplate = {
   name: 'Mackay',
   reference:
-    'Cooper & Robinson, Acta Cryst. 20 (1966) 614; Elser & Henley, PRL 55 (1985) 2883. Radii from memory, approximate.',
+    'Cooper & Robinson, Acta Cryst. 20 (1966) 614; Elser & Henley, PRL 55 (1985) 2883. Radii from memory, approximate; cut with a_R ≈ 4.61 Å (α-AlMnSi, a = 12.68 Å).',
   shells: [
-    { name: 'inner icosahedron', polyhedron: 'icosahedron', radius: 2.5, species: 13 },
-    { name: 'Mn icosahedron', polyhedron: 'icosahedron', radius: 4.7, species: 25 },
+    { name: 'inner icosahedron', polyhedron: 'icosahedron', radius: 2.45, species: 13 },
     { name: 'icosidodecahedron', polyhedron: 'icosidodecahedron', radius: 4.5, species: 13 },
+    { name: 'Mn icosahedron', polyhedron: 'icosahedron', radius: 4.8, species: 25 },
   ],
+  site: { name: 'cluster centre', position: 'node', sphereRadius: 2 },
+  aR: aROf11(12.68),
+  phase: { name: 'α-AlMnSi (cP138)', a: 12.68, atomsPerCell: 138, source: 'Cooper & Robinson, Acta Cryst. 20 (1966) 614 — from memory' },
 };
 
 /**
- * Bergman cluster as in Mg32(Al,Zn)49: (Al,Zn) icosahedron, Mg dodecahedron, (Al,Zn) icosahedron
- * capping its faces (together a 32-atom triacontahedron), then a 60-atom (Al,Zn) truncated icosahedron.
- * Bergman, Waugh & Pauling, Acta Cryst. 10 (1957) 254. Radii from memory, approximate; Al:Zn taken 1:1.
+ * Bergman cluster as in the R-phase Mg32(Al,Zn)49 (cI162, Im-3, a = 14.16 Å): (Al,Zn) icosahedron; Mg
+ * dodecahedron and (Al,Zn) icosahedron capping its faces (together a 32-vertex rhombic triacontahedron, the
+ * icosahedron at 1/0.9106 of the dodecahedron's radius); a 60-atom (Al,Zn) truncated icosahedron; 12 Mg on the
+ * five-fold axes capping its pentagons. Bergman, Waugh & Pauling, Acta Cryst. 10 (1957) 254. Radii from
+ * memory (2.5, 4.6, 5.05, 6.7, 7.9 Å), tuned so that clusters on the bcc sites of the 1/1 (a_R = 5.14 Å) share
+ * their outer shells without contacts below 0.95 of the metallic-radius sum; Al:Zn taken 1:1.
  */
 export const BERGMAN: ClusterTemplate = {
   name: 'Bergman',
-  reference: 'Bergman, Waugh & Pauling, Acta Cryst. 10 (1957) 254. Radii from memory, approximate; Al:Zn set to 1:1.',
+  reference:
+    'Bergman, Waugh & Pauling, Acta Cryst. 10 (1957) 254. Radii from memory, approximate; Al:Zn set to 1:1; cut with a_R ≈ 5.14 Å (R-phase, a = 14.16 Å).',
   shells: [
-    { name: 'inner icosahedron', polyhedron: 'icosahedron', radius: 2.6, species: 30, mix: { 13: 0.5, 30: 0.5 } },
-    { name: 'Mg dodecahedron', polyhedron: 'dodecahedron', radius: 4.4, species: 12 },
-    { name: 'outer icosahedron', polyhedron: 'icosahedron', radius: 5.1, species: 30, mix: { 13: 0.5, 30: 0.5 } },
-    { name: 'truncated icosahedron', polyhedron: 'truncated-icosahedron', radius: 6.5, species: 30, mix: { 13: 0.5, 30: 0.5 } },
+    { name: 'inner icosahedron', polyhedron: 'icosahedron', radius: 2.5, species: 30, mix: { 13: 0.5, 30: 0.5 } },
+    { name: 'Mg dodecahedron', polyhedron: 'dodecahedron', radius: 4.6, species: 12 },
+    { name: 'outer icosahedron', polyhedron: 'icosahedron', radius: 4.6 / 0.910593, species: 30, mix: { 13: 0.5, 30: 0.5 } },
+    { name: 'truncated icosahedron', polyhedron: 'truncated-icosahedron', radius: 6.7, species: 30, mix: { 13: 0.5, 30: 0.5 } },
+    { name: 'Mg icosahedron', polyhedron: 'icosahedron', radius: 7.9, species: 12 },
   ],
+  site: { name: 'cluster centre', position: 'node', sphereRadius: 2 },
+  aR: aROf11(14.16),
+  phase: { name: 'R-phase Mg32(Al,Zn)49 (cI162)', a: 14.16, atomsPerCell: 162, source: 'Bergman, Waugh & Pauling, Acta Cryst. 10 (1957) 254 — from memory' },
 };
 
 /**
- * Tsai-type cluster as in YbCd5.7 (the i-phase) and its 1/1 approximant YbCd6: a (disordered) Cd4
- * tetrahedron, Cd20 dodecahedron, Yb12 icosahedron, Cd30 icosidodecahedron and the Cd rhombic
- * triacontahedron (here only its 32 vertices; the full 92-atom shell also has 60 atoms on its edges).
- * Tsai et al., Nature 408 (2000) 537; Gómez & Lidin, Angew. Chem. Int. Ed. 40 (2001) 4037;
- * Takakura et al., Nature Materials 6 (2007) 58. Radii from memory, approximate.
+ * Tsai-type cluster as in YbCd5.7 (the i-phase) and its 1/1 approximant YbCd6 (cI168, Im-3, a = 15.64 Å):
+ * Cd4 tetrahedron, Cd20 dodecahedron, Yb12 icosahedron, Cd30 icosidodecahedron and the 92-atom Cd rhombic
+ * triacontahedron (32 vertices and 60 edge midpoints). Its inradius is half the 1/1 cell constant, so its
+ * edge is the quasilattice constant a_R = 15.64/2.7528 = 5.68 Å (circumradius τ·a_R = 9.19 Å): neighbouring
+ * clusters of the 1/1 share a rhombus face along the two-fold axes and interpenetrate along the three-fold
+ * axes, where their triacontahedron atoms fall on the neighbour's dodecahedron and icosidodecahedron
+ * (merged). Tsai et al., Nature 408 (2000) 537; Gómez & Lidin, Angew. Chem. Int. Ed. 40 (2001) 4037;
+ * Takakura et al., Nature Materials 6 (2007) 58. Inner radii from memory, adjusted (tetrahedron 1.6,
+ * dodecahedron 4.3, icosahedron 5.6, icosidodecahedron 6.1 Å) so the merged 1/1 has no contact below 0.82 of
+ * the metallic-radius sum; the published tetrahedron is orientationally disordered.
  */
 export const TSAI: ClusterTemplate = {
   name: 'Tsai',
   reference:
-    'Tsai et al., Nature 408 (2000) 537; Gómez & Lidin, Angew. Chem. 40 (2001) 4037; Takakura et al., Nat. Mater. 6 (2007) 58. Radii from memory, approximate.',
+    'Tsai et al., Nature 408 (2000) 537; Gómez & Lidin, Angew. Chem. 40 (2001) 4037; Takakura et al., Nat. Mater. 6 (2007) 58. Inner radii from memory, approximate; cut with a_R ≈ 5.68 Å (YbCd6, a = 15.64 Å).',
   shells: [
     { name: 'Cd tetrahedron', polyhedron: 'tetrahedron', radius: 1.6, species: 48 },
-    { name: 'Cd dodecahedron', polyhedron: 'dodecahedron', radius: 4.6, species: 48 },
+    { name: 'Cd dodecahedron', polyhedron: 'dodecahedron', radius: 4.3, species: 48 },
     { name: 'Yb icosahedron', polyhedron: 'icosahedron', radius: 5.6, species: 70 },
-    { name: 'Cd icosidodecahedron', polyhedron: 'icosidodecahedron', radius: 6.5, species: 48 },
-    { name: 'Cd triacontahedron', polyhedron: 'rhombic-triacontahedron', radius: 7.9, species: 48 },
+    { name: 'Cd icosidodecahedron', polyhedron: 'icosidodecahedron', radius: 6.1, species: 48 },
+    // Edge a_R = 15.64/2.7528 Å; circumradius (five-fold vertices) τ·a_R.
+    { name: 'Cd triacontahedron', polyhedron: 'rhombic-triacontahedron-92', radius: TAU * aROf11(15.64), species: 48 },
   ],
+  site: { name: 'cluster centre', position: 'node', sphereRadius: 2 },
+  aR: aROf11(15.64),
+  phase: { name: 'YbCd6 (cI168)', a: 15.64, atomsPerCell: 168, source: 'Gómez & Lidin, Angew. Chem. Int. Ed. 40 (2001) 4037 (a = 15.638 Å, Yb24Cd144) — from memory' },
 };
 
 export const CLUSTER_PRESETS: Readonly<Record<string, ClusterTemplate>> = { mackay: MACKAY, bergman: BERGMAN, tsai: TSAI };

@@ -8,11 +8,15 @@
  */
 import type { Structure } from '../../structure/types';
 import { atomicNumber } from '../../structure/elements';
-import type { DecorationParams, SiteClassParams } from './decoration-schema';
+import type { ClusterPlacementParams, DecorationParams, SiteClassParams } from './decoration-schema';
+import { DEFAULT_MERGE_TOLERANCE } from './decoration-schema';
+import { checkPointCap } from '../point-cap';
 import type { CutClass } from './cut';
 import { vertexClass } from './cut';
 import { CLUSTER_PRESETS, clusterSize, placeClusters, type ClusterTemplate } from './clusters';
-import { mergeClose } from '../../structure/merge';
+import { mergeClose, wrapIntoCell } from '../../structure/merge';
+import { TOO_CLOSE_FRACTION, tooCloseThreshold } from '../../structure/radii';
+import { forEachPairWithin } from '../../math/cell-list';
 
 /** 6D fractional position of a named site (or the explicit six numbers). */
 export function sitePosition(position: SiteClassParams['position']): Float64Array {
@@ -54,40 +58,131 @@ export function resolveClasses(decoration?: DecorationParams, species?: string):
   });
 }
 
-/** Place the decoration's cluster templates on their site classes, then merge close atoms. */
-export function applyClusters<S extends Structure>(s: S, decoration?: DecorationParams): S {
+/** The cluster template of one placement: the preset (with the placement's species per shell, if given) or the user's shells. */
+export function placementTemplate(c: ClusterPlacementParams): ClusterTemplate {
+  if (c.preset) {
+    const t = CLUSTER_PRESETS[c.preset];
+    if (!c.species) return t;
+    if (c.species.length !== t.shells.length) {
+      throw new Error(`${t.name} preset: species per shell needs ${t.shells.length} elements (one per shell: ${t.shells.map((x) => x.name).join(', ')}), got ${c.species.length}`);
+    }
+    return { ...t, shells: t.shells.map((sh, k) => ({ name: sh.name, polyhedron: sh.polyhedron, radius: sh.radius, species: atomicNumber(c.species![k]) })) };
+  }
+  return {
+    name: 'cluster',
+    reference: 'user-defined shells',
+    shells: c.shells!.map((sh, k) => ({
+      name: sh.name ?? `shell ${k + 1}`,
+      polyhedron: sh.polyhedron,
+      radius: sh.radius,
+      species: atomicNumber(sh.species),
+    })),
+  };
+}
+
+/**
+ * Atoms after placing clusters, from the number of points of each site class: each centre is replaced by its
+ * cluster (counted before merging, which only removes atoms).
+ */
+export function decoratedCount(classCounts: ReadonlyMap<string, number>, total: number, decoration?: DecorationParams): number {
+  let n = total;
+  for (const c of decoration?.clusters ?? []) n += (classCounts.get(c.at) ?? 0) * (clusterSize(placementTemplate(c)) - 1);
+  return n;
+}
+
+/**
+ * A decoration that puts a preset on the site it is meant for: one site class of cluster centres (the
+ * preset's position and small sphere window) and the preset with its usual species, every field editable.
+ */
+export function presetDecoration(preset: ClusterPlacementParams['preset'] & string): DecorationParams {
+  const t = CLUSTER_PRESETS[preset];
+  const site = t.site!;
+  return {
+    classes: [{ name: site.name, position: site.position, window: { kind: 'sphere', radius: site.sphereRadius } }],
+    clusters: [{ at: site.name, preset }],
+    mergeTolerance: DEFAULT_MERGE_TOLERANCE,
+  };
+}
+
+export interface ClusterOptions {
+  /** Point cap: refuse before allocating when the clusters would exceed it. */
+  maxPoints?: number;
+  /** Quasilattice constant of the cut, Å, to warn when a preset was sized for another. */
+  aR?: number;
+}
+
+/**
+ * Place the decoration's cluster templates on their site classes, wrap atoms that land outside the cell
+ * back in (periodic cuts), then merge atoms closer than the merge tolerance across periodic boundaries
+ * (minimum image), with notes of what was placed, wrapped and merged.
+ */
+export function applyClusters<S extends Structure>(s: S, decoration?: DecorationParams, opts: ClusterOptions = {}): S {
   if (!decoration?.clusters?.length) return s;
   let out: Structure = s;
   const notes: string[] = [];
   for (const c of decoration.clusters) {
-    const template: ClusterTemplate = c.preset
-      ? CLUSTER_PRESETS[c.preset]
-      : {
-          name: 'cluster',
-          reference: 'user-defined shells',
-          shells: c.shells!.map((sh, k) => ({
-            name: sh.name ?? `shell ${k + 1}`,
-            polyhedron: sh.polyhedron,
-            radius: sh.radius,
-            species: atomicNumber(sh.species),
-          })),
-        };
+    const template = placementTemplate(c);
     const classes = out.siteClasses ?? [];
     const site = out.site;
     const target = classes.findIndex((k) => k.name === c.at);
     let centres = 0;
-    out = placeClusters(out, template, (i) => {
-      const hit = site !== undefined && site[i] === target;
-      if (hit) centres++;
-      return hit;
-    });
-    notes.push(`${template.name} clusters on "${c.at}": ${centres} placed, ${centres * clusterSize(template)} atoms added`);
+    if (site) for (let i = 0; i < site.length; i++) if (site[i] === target) centres++;
+    const size = clusterSize(template);
+    if (opts.maxPoints !== undefined) {
+      checkPointCap(out.species.length + centres * (size - 1), opts.maxPoints, `${centres} ${template.name} clusters of ${size} atoms`);
+    }
+    out = placeClusters(out, template, (i) => site !== undefined && site[i] === target);
+    notes.push(`${template.name} clusters on "${c.at}": ${centres} placed, ${centres * size} atoms added`);
+    if (template.aR !== undefined && opts.aR !== undefined && Math.abs(opts.aR / template.aR - 1) > 0.02) {
+      notes.push(
+        `warning: the ${template.name} preset is sized for a_R = ${template.aR.toFixed(2)} Å (${template.phase?.name ?? 'its phase'}); this cut has a_R = ${opts.aR} Å, so neighbouring clusters will not share their atoms — expect close pairs`,
+      );
+    }
   }
-  if (decoration.mergeTolerance > 0) {
-    const m = mergeClose(out, decoration.mergeTolerance);
+  if (out.cell) {
+    const w = wrapIntoCell(out);
+    out = w.structure;
+    if (w.count > 0) notes.push(`wrapped ${w.count} cluster atoms that fell outside the cell back into it`);
+  }
+  const tol = decoration.mergeTolerance;
+  if (tol > 0) {
+    const m = mergeClose(out, tol);
     out = m.structure;
-    notes.push(`merged ${m.count} atoms closer than ${decoration.mergeTolerance} Å (${m.conflicts} with differing species or site class)`);
+    notes.push(
+      `merged ${m.count} atoms closer than ${tol} Å${out.cell ? ' (across the cell boundary too, minimum image)' : ''} (${m.conflicts} with differing species or site class)`,
+    );
+  }
+  const close = closePairs(out);
+  if (close.count > 0) {
+    notes.push(
+      `warning: ${close.count.toLocaleString('en-US')} pairs are closer than ${TOO_CLOSE_FRACTION} of their metallic radii sum (shortest ${close.shortest.toFixed(3)} Å) — the clusters overlap; centre them on a sparser site class or fit a_R to the preset`,
+    );
   }
   out.notes = [...(s.notes ?? []), ...notes];
   return Object.assign(out, s.cell ? { cell: s.cell } : {}) as S;
+}
+
+/** Pairs closer than the Check step's threshold (radii.ts), periodic images included; unassigned sites (X) are skipped. */
+function closePairs(s: Structure): { count: number; shortest: number } {
+  let rMax = 0;
+  const seen = new Set<number>();
+  for (const z of s.species) {
+    if (seen.has(z)) continue;
+    seen.add(z);
+    const t = tooCloseThreshold(z, z);
+    if (Number.isFinite(t)) rMax = Math.max(rMax, t);
+  }
+  let count = 0;
+  let shortest = Infinity;
+  if (rMax > 0 && s.species.length > 1) {
+    forEachPairWithin(s.positions, s.cell, rMax, (i, j, d) => {
+      if (i === j) return;
+      const t = tooCloseThreshold(s.species[i], s.species[j]);
+      if (d < t) {
+        count++;
+        shortest = Math.min(shortest, d);
+      }
+    });
+  }
+  return { count, shortest };
 }

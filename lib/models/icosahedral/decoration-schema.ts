@@ -98,14 +98,22 @@ export const clusterShellSchema = z
 
 export const CLUSTER_PRESET_NAMES = ['mackay', 'bergman', 'tsai'] as const;
 
-/** The presets by the compound each is modelled on (clusters.ts gives the shells and their sources). */
+/** The presets by the compound each is modelled on and the a_R they are sized for (clusters.ts gives the shells and their sources). */
 const PRESET_WORDS: Record<(typeof CLUSTER_PRESET_NAMES)[number], string> = {
-  mackay: 'Mackay (α-AlMnSi)',
-  bergman: 'Bergman (Mg₃₂(Al,Zn)₄₉)',
-  tsai: 'Tsai (YbCd₅.₇)',
+  mackay: 'Mackay, 54 atoms (α-AlMnSi; cut with a_R ≈ 4.61 Å)',
+  bergman: 'Bergman, 116 atoms (Mg₃₂(Al,Zn)₄₉; a_R ≈ 5.14 Å)',
+  tsai: 'Tsai, 158 atoms (YbCd₆; a_R ≈ 5.68 Å)',
 };
 
-/** Clusters centred on every point of one site class: a published preset or shells of one's own. */
+/**
+ * Default merge tolerance, Å: 1.1 Å, half the shortest nearest-neighbour distance in any metal (Be, CN-12
+ * metallic diameter 2 × 1.12 Å, the radii table of the Check step). Two cluster atoms that close are one atom
+ * counted twice by neighbouring clusters; pairs farther apart but still too close are not merged silently —
+ * the Check step flags them.
+ */
+export const DEFAULT_MERGE_TOLERANCE = 1.1;
+
+/** Clusters centred on every point of one site class: a preset modelled on a published cluster, or shells of one's own. */
 export const clusterPlacementSchema = z
   .object({
     at: z
@@ -116,11 +124,24 @@ export const clusterPlacementSchema = z
       .meta({ title: 'On site class', description: 'A cluster is centred on each point of this site class.', examples: ['vertex'], namesOf: 'classes' }),
     preset: z
       .enum(CLUSTER_PRESET_NAMES, { message: `must be one of ${CLUSTER_PRESET_NAMES.join(', ')}` })
-      .meta({ title: 'Cluster preset', optionLabels: PRESET_WORDS })
+      .meta({
+        title: 'Cluster preset',
+        optionLabels: PRESET_WORDS,
+        description:
+          'Each preset is meant for a site class of cluster centres — position node, a sphere window of 2 Å (perp. space), which keeps the body-centred cluster sites of the 1/1 — cut with the a_R in its name. Species per shell below replaces its usual species.',
+      })
       .optional(),
     shells: z.array(clusterShellSchema).min(1).max(12).meta({ title: 'Shells of one’s own' }).optional(),
+    /** A preset's species, shell by shell from the inside out (replacing its usual species and mixes). */
+    species: z
+      .array(elementSymbolSchema)
+      .min(1)
+      .max(12)
+      .meta({ title: 'Species per shell', description: 'For a preset: one element per shell, inside out; empty keeps the preset’s usual species.', examples: [['Al', 'Al', 'Mn']] })
+      .optional(),
   })
   .refine((c) => (c.preset === undefined) !== (c.shells === undefined), { message: 'give either a preset or shells of one’s own, not both', path: ['preset'] })
+  .refine((c) => c.species === undefined || c.preset !== undefined, { message: 'species per shell go with a preset; shells of one’s own carry their own species', path: ['species'] })
   .meta({ title: 'Cluster', examples: [{ at: 'vertex', preset: 'mackay' }] });
 
 export const decorationSchema = z
@@ -132,8 +153,12 @@ export const decorationSchema = z
       .number()
       .min(0)
       .max(5)
-      .meta({ title: 'Merge tolerance', unit: 'Å', description: 'Atoms closer than this after placing clusters become one; 0 merges nothing.' })
-      .default(0),
+      .meta({
+        title: 'Merge tolerance',
+        unit: 'Å',
+        description: 'Atoms closer than this after placing clusters become one, across the cell boundary too; 0 merges nothing. Default 1.1 Å, half the shortest bond in any metal.',
+      })
+      .default(DEFAULT_MERGE_TOLERANCE),
   })
   .superRefine((d, ctx) => {
     const names = new Set(d.classes.map((c) => c.name));

@@ -6,7 +6,8 @@
 import type { Structure } from '../../structure/types';
 import type { IcosahedralApproximantParams, IcosahedralParams, IcosahedralPatchParams } from './schema';
 import { parseOrder } from './schema';
-import { applyClusters, resolveClasses } from './decorate';
+import { applyClusters, decoratedCount, resolveClasses } from './decorate';
+import { checkPointCap } from '../point-cap';
 import { estimatePatchCount, icosahedralPatch } from './patch';
 import { estimateApproximantCount, icosahedralApproximant, type Centring } from './approximant';
 
@@ -16,19 +17,38 @@ export function generateIcosahedral(p: IcosahedralParams): Structure {
   return s;
 }
 
-/** Expected number of points of the cut (before clusters), from the model-set density of each class. */
+/**
+ * Expected number of atoms: the model-set density of each site class times the volume, and for every class
+ * that carries clusters, its expected points times the atoms per cluster (before merging, which only removes
+ * atoms). A small window in a small cell can hold more points than its density says; applyClusters checks the
+ * cap again on the real number of centres.
+ */
 export function estimateIcosahedral(p: IcosahedralParams): number {
   const classes = resolveClasses(p.decoration, p.species);
-  if (p.mode === 'patch') {
-    return Math.round(estimatePatchCount({ aR: p.aR, radius: p.radius, lattice: p.lattice, offset: p.offset, classes }));
+  const { p: pp, q } = p.mode === 'approximant' ? parseOrder(p.order) : { p: 0, q: 0 };
+  const one = (cl: (typeof classes)[number]) =>
+    p.mode === 'patch'
+      ? estimatePatchCount({ aR: p.aR, radius: p.radius, lattice: p.lattice, offset: p.offset, classes: [cl] })
+      : estimateApproximantCount({ p: pp, q, aR: p.aR, lattice: p.lattice, offset: p.offset, classes: [cl] });
+  const perClass = new Map<string, number>();
+  let total = 0;
+  for (const cl of classes) {
+    const n = one(cl);
+    perClass.set(cl.name, (perClass.get(cl.name) ?? 0) + n);
+    total += n;
   }
-  const { p: pp, q } = parseOrder(p.order);
-  return Math.round(estimateApproximantCount({ p: pp, q, aR: p.aR, lattice: p.lattice, offset: p.offset, classes }));
+  return Math.round(decoratedCount(perClass, total, p.decoration));
+}
+
+/** Refuse before cutting when the decorated estimate is over the point cap. */
+function checkDecoratedCap(p: IcosahedralParams, what: string): void {
+  if (p.decoration?.clusters?.length) checkPointCap(estimateIcosahedral(p), p.maxPoints, `${what} with its clusters`);
 }
 
 /** Validated patch Params → Structure. */
 export function generateIcosahedralPatch(params: IcosahedralPatchParams): Structure {
-  return applyClusters(generateIcosahedralPatchCut(params), params.decoration);
+  checkDecoratedCap(params, `a patch of radius ${params.radius} Å`);
+  return applyClusters(generateIcosahedralPatchCut(params), params.decoration, { maxPoints: params.maxPoints, aR: params.aR });
 }
 
 function generateIcosahedralPatchCut(params: IcosahedralPatchParams): Structure {
@@ -47,6 +67,7 @@ function generateIcosahedralPatchCut(params: IcosahedralPatchParams): Structure 
 /** Validated approximant Params → one cubic cell (Structure with cell) and its detected centring. */
 export function generateIcosahedralApproximant(params: IcosahedralApproximantParams): Structure & { centring: Centring } {
   const { p, q } = parseOrder(params.order);
+  checkDecoratedCap(params, `the ${params.order} cell`);
   const cut = icosahedralApproximant({
     p,
     q,
@@ -57,5 +78,5 @@ export function generateIcosahedralApproximant(params: IcosahedralApproximantPar
     classes: resolveClasses(params.decoration, params.species),
     params,
   });
-  return Object.assign(applyClusters(cut, params.decoration), { centring: cut.centring });
+  return Object.assign(applyClusters(cut, params.decoration, { maxPoints: params.maxPoints, aR: params.aR }), { centring: cut.centring });
 }

@@ -10,7 +10,10 @@ import { icosahedralDirections } from './hyperlattice';
  *   icosidodecahedron     = directions of its 30 edge midpoints (two-fold axes);
  *   truncated icosahedron = the points 1/3 and 2/3 along each of its 30 edges (60 vertices);
  *   rhombic triacontahedron = the zonohedron Σ_i [−u_i/2, u_i/2] (the projection of a 6D cube's hull;
- *     12 vertices on the five-fold and 20 on the three-fold axes, not all at one radius).
+ *     12 vertices on the five-fold axes at τ·edge — the circumradius — and 20 on the three-fold axes at
+ *     0.9106 of it; inradius 1.3764·edge);
+ *   rhombic triacontahedron, 92 = its 32 vertices and the midpoints of its 60 edges (the 92-atom outer
+ *     shell of the Tsai cluster, Takakura et al., Nature Materials 6 (2007) 58).
  * The coordinate axes x, y, z are two-fold axes of this icosahedron, so the cube (±1,±1,±1),
  * octahedron (±1,0,0)… and tetrahedron (1,1,1),(1,−1,−1),(−1,1,−1),(−1,−1,1) use the standard
  * cubic setting and share the three-fold axes with the dodecahedron (T_h ⊂ I_h).
@@ -22,6 +25,7 @@ export type PolyhedronName =
   | 'dodecahedron'
   | 'icosidodecahedron'
   | 'rhombic-triacontahedron'
+  | 'rhombic-triacontahedron-92'
   | 'truncated-icosahedron'
   | 'cube'
   | 'octahedron'
@@ -33,6 +37,7 @@ export const POLYHEDRON_NAMES: readonly PolyhedronName[] = [
   'dodecahedron',
   'icosidodecahedron',
   'rhombic-triacontahedron',
+  'rhombic-triacontahedron-92',
   'truncated-icosahedron',
   'cube',
   'octahedron',
@@ -136,6 +141,14 @@ function raw(name: PolyhedronName): V[] {
       ]);
     case 'rhombic-triacontahedron':
       return zonohedron();
+    case 'rhombic-triacontahedron-92': {
+      const v = zonohedron();
+      const edge = Math.min(...v.slice(1).map((w) => dist(v[0], w)));
+      const mids: V[] = [];
+      for (let i = 0; i < v.length; i++)
+        for (let j = i + 1; j < v.length; j++) if (Math.abs(dist(v[i], v[j]) - edge) < 1e-9) mids.push([0, 1, 2].map((q) => (v[i][q] + v[j][q]) / 2) as V);
+      return [...v, ...mids]; // 32 + 60
+    }
     case 'cube': {
       const out: V[] = [];
       for (const x of [1, -1]) for (const y of [1, -1]) for (const z of [1, -1]) out.push([x, y, z]);

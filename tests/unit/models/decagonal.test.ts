@@ -4,6 +4,7 @@ import { generate } from '../../../lib/models';
 import { runPython } from '../../helpers/python';
 import { toFractional } from '../../../lib/math/frac';
 import { TAU } from '../../../lib/math/golden';
+import { enumerateHkl, structureFactorsHkl } from '../../../lib/diffraction/structure-factor';
 
 /** Number of atoms in the primitive cell spglib finds (spglib.find_primitive, reference library). */
 function spglibPrimitiveCount(s: Structure): number {
@@ -18,7 +19,7 @@ function spglibPrimitiveCount(s: Structure): number {
 describe('decagonal model', () => {
   it('stacks the layer tiling: layers × the planar vertices, z = k·spacing, shift per layer', () => {
     const planar = generate({ family: 'penrose', radius: 10, edge: 2 });
-    const s = generate({ family: 'decagonal', radius: 10, edge: 2, layers: 3, spacing: 2.1, shift: [0.5, -0.25] });
+    const s = generate({ family: 'decagonal', radius: 10, edge: 2, layers: 3, spacing: 2.1, shift: [0.5, -0.25], stacking: 'translation' });
     const m = planar.species.length;
     expect(s.species.length).toBe(3 * m);
     expect(s.dim).toBe(3);
@@ -50,7 +51,7 @@ describe('decagonal model', () => {
   it('spglib finds the planar approximant cell primitive, and the stacked cell primitive / layers (spglib.find_primitive)', () => {
     const planar = generate({ family: 'penrose', approximant: { p: 2, q: 1 }, edge: 2.45 });
     expect(spglibPrimitiveCount(planar)).toBe(planar.species.length);
-    const stacked = generate({ family: 'decagonal', approximant: { p: 2, q: 1 }, layers: 3, spacing: 2, shift: [0.7, 0.3] });
+    const stacked = generate({ family: 'decagonal', approximant: { p: 2, q: 1 }, layers: 3, spacing: 2, shift: [0.7, 0.3], stacking: 'translation' });
     expect(spglibPrimitiveCount(stacked)).toBe(stacked.species.length / 3);
   }, 60_000);
 
@@ -61,5 +62,63 @@ describe('decagonal model', () => {
     expect(() => generate({ family: 'decagonal', radius: 5, shift: [1] as never })).toThrow(/shift/);
     expect(() => generate({ family: 'decagonal', approximant: { p: 4, q: 3 } })).toThrow(/approximant: 4\/3 is not a convergent/);
     expect(() => generate({ family: 'decagonal', radius: 200, layers: 100 })).toThrow(/maxPoints: 100 decagonal layers would hold about/);
+  });
+
+  describe('10₅ screw stacking (Steurer, Z. Kristallogr. 219 (2004) 391: decagonal phases have a tenfold screw axis, period two layers — from memory)', () => {
+    const params = (stacking: 'screw' | 'translation') =>
+      ({ family: 'decagonal', approximant: { p: 2, q: 1 }, edge: 2.45, layers: 2, spacing: 2.04, species: 'Al', stacking }) as const;
+
+    it('the second layer is the first turned by 36° — the Penrose layer inverted through the axis (window inverted)', () => {
+      const s = generate({ family: 'decagonal', radius: 8, edge: 2.45, species: 'Al' });
+      const m = s.species.length / 2;
+      for (const i of [0, 5, 17]) {
+        expect(s.positions[3 * (m + i)]).toBeCloseTo(-s.positions[3 * i], 12);
+        expect(s.positions[3 * (m + i) + 1]).toBeCloseTo(-s.positions[3 * i + 1], 12);
+        expect(s.positions[3 * (m + i) + 2]).toBeCloseTo(2.04, 12);
+      }
+      // The inverted layer is a different tiling of the same patch: not a translate of the first.
+      const key = (k: number) => `${s.positions[3 * k].toFixed(6)},${s.positions[3 * k + 1].toFixed(6)}`;
+      const first = new Set(Array.from({ length: m }, (_, i) => key(i)));
+      let shared = 0;
+      for (let i = 0; i < m; i++) if (first.has(key(m + i))) shared++;
+      expect(shared).toBeLessThan(m);
+    });
+
+    it('spglib finds the two-layer period: the primitive cell keeps every atom (identical layers halve it)', () => {
+      const screw = generate(params('screw'));
+      expect(spglibPrimitiveCount(screw)).toBe(screw.species.length);
+      const flat = generate(params('translation'));
+      expect(spglibPrimitiveCount(flat)).toBe(flat.species.length / 2);
+    }, 60_000);
+
+    it('odd-l reflections of the two-layer cell are present (lib/diffraction and numpy agree); identical layers extinguish them', () => {
+      const oddMax = (stacking: 'screw' | 'translation') => {
+        const s = generate(params(stacking));
+        const f = structureFactorsHkl(s, enumerateHkl(s, 1.2), 'xray');
+        let odd = 0;
+        let all = 0;
+        for (let r = 0; r < f.f2.length; r++) {
+          all = Math.max(all, f.f2[r]);
+          if (Math.abs(f.hkl[3 * r + 2]) % 2 === 1) odd = Math.max(odd, f.f2[r]);
+        }
+        // numpy: the strongest odd-l geometric structure factor |Σ exp(2πi h·x)|² / N² over |h|, |k| ≤ 8, l = ±1, ±3.
+        const frac = Array.from(toFractional(s.cell!, s.positions));
+        const ref = runPython<number>(
+          'import sys, json, numpy as np\nf=np.array(json.load(sys.stdin)).reshape(-1,3)\nb=0\nfor h in range(-8,9):\n  for k in range(-8,9):\n    for l in (-3,-1,1,3):\n      b=max(b,abs(np.exp(2j*np.pi*(f@np.array([h,k,l]))).sum())**2/len(f)**2)\nprint(json.dumps(b))',
+          JSON.stringify(frac),
+        );
+        return { ratio: odd / all, ref };
+      };
+      const screw = oddMax('screw');
+      expect(screw.ratio).toBeGreaterThan(1e-3);
+      expect(screw.ref).toBeGreaterThan(1e-3);
+      const flat = oddMax('translation');
+      expect(flat.ratio).toBeLessThan(1e-20);
+      expect(flat.ref).toBeLessThan(1e-20);
+    }, 60_000);
+
+    it('an odd number of layers is refused for the screw stacking, with the reason', () => {
+      expect(() => generate({ family: 'decagonal', radius: 5, layers: 3 })).toThrow(/layers: the 10₅ screw stacking repeats after two layers, so layers per period must be even \(got 3\)/);
+    });
   });
 });

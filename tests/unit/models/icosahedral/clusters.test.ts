@@ -7,12 +7,22 @@ const prov = { engine: 'test', params: null };
 const empty = (cell?: Structure['cell']): Structure => ({ positions: new Float64Array(0), species: new Uint16Array(0), provenance: prov, ...(cell ? { cell } : {}) });
 
 describe('cluster templates', () => {
-  it('have the published atom counts: Mackay 54, Bergman 104 (12+20+12+60), Tsai 98 (4+20+12+30+32 vertices)', () => {
-    // Mackay: 12 + 42 (Elser & Henley 1985); Bergman shells 12/20/12/60 (Bergman, Waugh & Pauling 1957);
-    // Tsai shells 4/20/12/30 and the triacontahedron's 32 vertices (Takakura et al. 2007).
+  it('have the published atom counts: Mackay 54, Bergman 116 (12+20+12+60+12), Tsai 158 (4+20+12+30+92)', () => {
+    // Mackay: 12 + 42 (Elser & Henley 1985); Bergman shells 12/20/12/60 and the 12 Mg capping the truncated
+    // icosahedron's pentagons (Bergman, Waugh & Pauling 1957); Tsai shells 4/20/12/30 and the complete
+    // 92-atom triacontahedron, 32 vertices + 60 edge midpoints (Takakura et al. 2007). From memory.
     expect(clusterSize(MACKAY)).toBe(54);
-    expect(clusterSize(BERGMAN)).toBe(104);
-    expect(clusterSize(TSAI)).toBe(98);
+    expect(clusterSize(BERGMAN)).toBe(116);
+    expect(clusterSize(TSAI)).toBe(158);
+  });
+
+  it('Tsai triacontahedron: inradius half the YbCd6 cell constant 15.64 Å (clusters share a face along the two-fold axes; Takakura et al. 2007), edge-midpoint atoms half an edge from the vertices', () => {
+    const c = clusterAtoms(TSAI);
+    const rt: number[][] = [];
+    for (let i = 0; i < c.shell.length; i++) if (c.shell[i] === 4) rt.push([c.positions[3 * i], c.positions[3 * i + 1], c.positions[3 * i + 2]]);
+    expect(rt.length).toBe(92);
+    // The face normals are the 30 two-fold axes; the x axis is one of them: the largest x is the inradius.
+    expect(Math.max(...rt.map((p) => p[0]))).toBeCloseTo(15.64 / 2, 6);
   });
 
   it('Mackay and Bergman are Ih; Tsai with its tetrahedron core is T (Td ∩ Ih = T, group theory)', () => {
@@ -36,7 +46,7 @@ describe('placeClusters', () => {
   it('places a cluster per centre with one site class per shell, inner shells first', () => {
     const s = placeClusters(empty(), MACKAY, new Float64Array([0, 0, 0, 20, 0, 0]));
     expect(s.species.length).toBe(108);
-    expect(s.siteClasses!.map((c) => c.name)).toEqual(['Mackay: inner icosahedron', 'Mackay: Mn icosahedron', 'Mackay: icosidodecahedron']);
+    expect(s.siteClasses!.map((c) => c.name)).toEqual(['Mackay: inner icosahedron', 'Mackay: icosidodecahedron', 'Mackay: Mn icosahedron']);
     expect(Array.from(s.site!.slice(0, 12))).toEqual(Array(12).fill(0));
     expect(s.positions[3 * 54]).toBeCloseTo(20 + s.positions[0], 12);
     // Mackay composition Al42Mn12 (12 inner + 30 outer Al, 12 Mn).
@@ -50,7 +60,7 @@ describe('placeClusters', () => {
   it('replaces the atoms a predicate picks and keeps the others', () => {
     const base: Structure = { positions: new Float64Array([0, 0, 0, 30, 0, 0]), species: new Uint16Array([0, 26]), provenance: prov };
     const s = placeClusters(base, TSAI, (i) => base.species[i] === 0);
-    expect(s.species.length).toBe(1 + 98);
+    expect(s.species.length).toBe(1 + 158);
     expect(s.species[0]).toBe(26);
     expect(s.siteClasses![0]).toEqual({ name: 'input 26', species: 26 });
     expect(s.siteClasses!.length).toBe(1 + 5);
@@ -58,9 +68,9 @@ describe('placeClusters', () => {
 
   it('Bergman mixed (Al,Zn) shells give a mixed composition', () => {
     const c = composition(placeClusters(empty(), BERGMAN, new Float64Array(3)));
-    // 84 (Al,Zn) sites at 1:1 and 20 Mg.
+    // 84 (Al,Zn) sites at 1:1 and 20 + 12 Mg.
     expect(c.entries.map((e) => [e.symbol, e.count])).toEqual([
-      ['Mg', 20],
+      ['Mg', 32],
       ['Al', 42],
       ['Zn', 42],
     ]);

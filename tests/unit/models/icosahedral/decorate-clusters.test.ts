@@ -22,7 +22,7 @@ describe('cluster templates placed by the decoration', () => {
 
   it('merges atoms of neighbouring clusters across the cell boundary and reports it', () => {
     const base = { family: 'icosahedral', mode: 'approximant', order: '1/1', aR: 4.6, offset: [0.31, 0.17, 0.05] } as const; // generic offset: 32 whole vertices
-    const raw = generate({ ...base, decoration: { classes: [vertexClass], clusters: [{ at: 'vertex', preset: 'mackay' }] } });
+    const raw = generate({ ...base, decoration: { classes: [vertexClass], clusters: [{ at: 'vertex', preset: 'mackay' }], mergeTolerance: 0 } });
     const merged = generate({
       ...base,
       decoration: { classes: [vertexClass], clusters: [{ at: 'vertex', preset: 'mackay' }], mergeTolerance: 1.5 },
