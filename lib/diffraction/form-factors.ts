@@ -84,3 +84,23 @@ export function tableSymbol(z: number): string {
   checkZ(z);
   return ELEMENT_SYMBOLS[z];
 }
+
+/**
+ * Ranges of s = sinθ/λ (Å⁻¹) over which the parametrised form factors were fitted:
+ * - X-rays: International Tables Vol. C Table 6.1.1.4 (four Gaussians + c) is fitted for 0 ≤ s ≤ 2 Å⁻¹
+ *   (ITC §6.1.1.4; beyond it the fit departs from the Hartree–Fock values).
+ * - Electrons: Peng, Ren, Dudarev & Whelan, Acta Cryst. A52 (1996) 257, give two five-Gaussian sets, one
+ *   fitted over 0–2 Å⁻¹ (ITC Table 4.3.2.2, the one gemmi carries and data/scattering-tables.ts holds) and
+ *   one over 0–6 Å⁻¹. The 0–6 set is not in any library installed here (gemmi 0.5.7 has only c4322), so
+ *   electron calculations stop at s = 2 Å⁻¹ with a warning instead of extrapolating the 0–2 set.
+ * - Neutrons: scattering lengths do not depend on s.
+ */
+export const FORM_FACTOR_S_MAX: Record<Radiation, number> = { xray: 2, electron: 2, neutron: Infinity };
+
+/** A warning when s = sinθ/λ goes beyond the fit range of the radiation's form factors, else null. */
+export function formFactorRangeWarning(radiation: Radiation, sMax: number): string | null {
+  const lim = FORM_FACTOR_S_MAX[radiation];
+  if (!(sMax > lim * (1 + 1e-9))) return null;
+  const table = radiation === 'xray' ? 'International Tables C 6.1.1.4 X-ray fits' : 'Peng et al. (1996) 0–2 Å⁻¹ electron fits';
+  return `form factors: sinθ/λ reaches ${sMax.toFixed(3)} Å⁻¹, beyond the ${lim} Å⁻¹ range of the ${table}`;
+}
