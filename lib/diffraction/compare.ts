@@ -85,7 +85,8 @@ export function fitScale(y: ArrayLike<number>, x: ArrayLike<number>, w: ArrayLik
   return { scale: (sw * sxy - sx * sy) / det, background: (sxx * sy - sx * sxy) / det };
 }
 
-function toTwoTheta(m: MeasuredPattern, lambda?: number): Float64Array {
+/** The measured x axis as 2θ in degrees (|Q| and d converted with λ; NaN where unreachable). */
+export function toTwoTheta(m: MeasuredPattern, lambda?: number): Float64Array {
   if (m.axis === '2theta') return Float64Array.from(m.x);
   if (!(lambda && lambda > 0)) throw new Error(`wavelength: needed to convert the measured ${m.axis === 'q' ? '|Q|' : 'd'} axis to 2θ`);
   const out = new Float64Array(m.x.length);

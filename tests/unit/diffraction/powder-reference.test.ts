@@ -22,7 +22,7 @@ import { runPython } from '../../helpers/python';
 import { braggPowder } from '../../../lib/diffraction/powder';
 import { readCif } from '../../../lib/formats/cif';
 import { toFractional } from '../../../lib/math/frac';
-import type { Structure } from '../../../lib/structure/types';
+import type { Cell, Structure } from '../../../lib/structure/types';
 import { icosahedralModelSchema } from '../../../lib/models/icosahedral/schema';
 import { generateIcosahedral } from '../../../lib/models/icosahedral/generate';
 import { tableSymbol } from '../../../lib/diffraction/form-factors';
@@ -158,7 +158,7 @@ Mg1 Mg 0.333333 0.666667 0.25
 
   it('tetragonal: rutile TiO2 (a = 4.594, c = 2.959 Å, x(O) = 0.3053), intensities within 3 % + 0.1 (7 % beyond s = 0.4)', () => {
     const x = 0.3053;
-    const cell: [number, number, number][] = [
+    const cell: Cell = [
       [4.594, 0, 0],
       [0, 4.594, 0],
       [0, 0, 2.959],
