@@ -8,11 +8,16 @@
  *   χ²   = Σ w (y_o − y_c)² / (N − P) = (R_wp / R_exp)²   (goodness of fit S = √χ²)
  * N points, P refined parameters.
  *
- * Counting statistics without a σ column: σ_i² = max(y_i, 1) — a count of zero or less still has an
- * uncertainty of one count, so those points get the weight of a one-count point, never the largest weight
- * (common practice for counts). For intensities that are not counts (largest below 100) the weights are
- * still computed but a warning says so.
+ * Counting statistics without a σ column: σ_i² = y_i for y_i > 0 (Poisson: variance = mean, y_i its
+ * estimate). A point with y_i ≤ 0 (an empty or background-subtracted channel) has no such estimate; its
+ * variance is taken as the mean of the positive counts among its ±LOCAL neighbours (floored at one count),
+ * so it weighs like its surroundings — never, as 1/y_min would give, the most of all.
+ * For intensities that are not counts (largest below 100) the weights are still computed but a warning
+ * says so.
  */
+
+/** Neighbours on each side whose mean stands in for the variance of an empty channel. */
+const LOCAL = 5;
 
 export interface Weighting {
   w: Float64Array;
@@ -35,11 +40,23 @@ export function powderWeights(y: ArrayLike<number>, sigma?: ArrayLike<number>): 
   let max = -Infinity;
   for (let i = 0; i < n; i++) {
     max = Math.max(max, y[i]);
-    w[i] = 1 / Math.max(y[i], 1);
+    if (y[i] > 0) {
+      w[i] = 1 / y[i];
+      continue;
+    }
+    let sum = 0;
+    let cnt = 0;
+    for (let j = Math.max(0, i - LOCAL); j <= Math.min(n - 1, i + LOCAL); j++) {
+      if (y[j] > 0) {
+        sum += y[j];
+        cnt++;
+      }
+    }
+    w[i] = 1 / Math.max(cnt > 0 ? sum / cnt : 1, 1);
   }
   if (max < 100) {
     warnings.push(
-      `weights: no σ column and the largest intensity is ${max.toPrecision(3)}, which does not look like counts; w = 1/max(y, 1) assumes counts, so R_exp and χ² are not meaningful — give σ as a third column`,
+      `weights: no σ column and the largest intensity is ${max.toPrecision(3)}, which does not look like counts; w = 1/y assumes counts, so R_exp and χ² are not meaningful — give σ as a third column`,
     );
   }
   return { w, source: 'counts', warnings };

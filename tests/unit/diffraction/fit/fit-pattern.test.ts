@@ -106,7 +106,7 @@ describe('fitting a measured pattern (synthetic NaCl, numpy + gemmi)', () => {
     expect(r.peaks.every((p) => p.withinWidth)).toBe(true);
   });
 
-  it('without a σ column the weights are counting statistics 1/max(y, 1) and give the same fit', () => {
+  it('without a σ column the weights are counting statistics (w = 1/y) and give the same fit', () => {
     const m = synthetic(false);
     const r = fitPattern(m, lines, { wavelength: LAMBDA, radiation: 'xray', profile: { U: 0.01, V: 0, W: 0.01, eta: TRUE.eta }, nBackground: 4, refineLattice: true });
     expect(r.weights).toBe('counts');
