@@ -6,7 +6,9 @@ import type { PowderCurve } from '@/lib/worker/protocol';
 import { powderParamsSchema, zoneParamsSchema } from '@/lib/diffraction/params';
 import { parseWavelength } from '@/lib/diffraction/wavelengths';
 import { readMeasured, type MeasuredPattern } from '@/lib/formats/measured';
-import { comparePatterns } from '@/lib/diffraction/compare';
+import { comparePatterns, type CompareResult } from '@/lib/diffraction/compare';
+import { fitPattern, fitToComparison } from '@/lib/diffraction/fit/fit-pattern';
+import { lorentzPolarization } from '@/lib/diffraction/lorentz-polarization';
 import { ZonePattern } from '@/components/plots/ZonePattern';
 import { PowderPlot } from '@/components/plots/PowderPlot';
 import { resultKey, slotOf, useResultsStore, type DiffractionForm, type DiffractionKind, type MeasuredRef } from './resultsStore';
@@ -97,14 +99,38 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
 
   // A comparison that cannot be made says why (e.g. the measured range lies outside the simulated one).
   const curve = (slots[powderKey]?.result ?? null) as PowderCurve | null;
-  const { comparison, compareErr } = useMemo(() => {
+  const { comparison: plain, compareErr } = useMemo(() => {
     if (!measured || !curve) return { comparison: null, compareErr: null };
+    const h = Number(fwhm) > 0 ? Number(fwhm) : 0.1;
     try {
-      return { comparison: comparePatterns(measured.data, curve, curve.peaks, { wavelength: curve.wavelength, background: true }), compareErr: null };
+      return { comparison: comparePatterns(measured.data, curve, curve.peaks, { wavelength: curve.wavelength, background: true, fwhm: () => h, eta: 0.5 }), compareErr: null };
     } catch (e) {
       return { comparison: null, compareErr: compareMessage((e as Error).message, measured.data, curve.twoTheta) };
     }
-  }, [measured, curve]);
+  }, [measured, curve, fwhm]);
+  // A least-squares fit of the shown curve's reflections to the measured pattern (periodic cells only);
+  // kept for exactly that measured pattern and curve.
+  const [fitState, setFitState] = useState<{ for: [unknown, unknown]; result?: CompareResult; error?: string; busy?: boolean } | null>(null);
+  const fitHere = fitState && fitState.for[0] === measured && fitState.for[1] === curve ? fitState : null;
+  const comparison = fitHere?.result ?? plain;
+  const canFit = !!measured && !!curve && curve.peaks.some((p) => p.hkl !== null);
+  const runFit = () => {
+    if (!measured || !curve) return;
+    const key: [unknown, unknown] = [measured, curve];
+    setFitState({ for: key, busy: true });
+    const h = Number(fwhm) > 0 ? Number(fwhm) : 0.1;
+    // Let the "Fitting…" state paint before the (seconds-long) fit runs on this thread.
+    setTimeout(() => {
+      try {
+        // The curve's line intensities are m|F|²·Lp (largest 100); the fit wants m|F|² and applies Lp itself.
+        const lines = curve.peaks.map((p) => ({ d: p.d, hkl: p.hkl, strength: p.intensity / lorentzPolarization(p.twoTheta, radiation) }));
+        const f = fitPattern(measured.data, lines, { wavelength: curve.wavelength, radiation, profile: { U: 0, V: 0, W: h * h, eta: 0.5 }, nBackground: 4, refineLattice: true });
+        setFitState({ for: key, result: fitToComparison(f) });
+      } catch (e) {
+        setFitState({ for: key, error: `Fit failed: ${(e as Error).message.replace(/^[a-z]+: /, '')}` });
+      }
+    }, 30);
+  };
 
   const loadText = (name: string, text: string, from: { file?: File; datasetId?: string }) => {
     setKeepState({});
@@ -296,6 +322,21 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
             {measErr ? (
               <span className="text-xs text-clay" role="alert">
                 {measErr}
+              </span>
+            ) : null}
+            {canFit ? (
+              <button type="button" disabled={fitHere?.busy} className="rounded border border-tide px-2 py-0.5 text-xs text-tide hover:bg-tide-pale disabled:opacity-50" onClick={runFit} data-testid="fit-button">
+                {fitHere?.busy ? 'Fitting…' : fitHere?.result ? 'Fit again' : 'Fit zero shift, background, widths and cell'}
+              </button>
+            ) : null}
+            {fitHere?.result ? (
+              <button type="button" className="text-xs text-ink-soft underline" onClick={() => setFitState(null)}>
+                show the unfitted overlay
+              </button>
+            ) : null}
+            {fitHere?.error ? (
+              <span className="basis-full text-xs text-clay" role="alert">
+                {fitHere.error}
               </span>
             ) : null}
             {compareErr ? (

@@ -7,7 +7,7 @@
 import type { MeasuredPattern } from '../../formats/measured';
 import type { Radiation } from '../form-factors';
 import type { PowderPeak } from '../powder';
-import { findPeaks, toTwoTheta } from '../compare';
+import { findPeaks, toTwoTheta, type CompareResult } from '../compare';
 import { powderWeights } from './agreement';
 import { labelPeaks, type PeakLabel } from './labels';
 import { refinePowder, type RefineResult } from './refine';
@@ -65,4 +65,30 @@ export function fitPattern(measured: MeasuredPattern, lines: FitLine[], o: FitPa
   const peaks = labelPeaks(found, calcLines, o.profile.eta);
   const { model: _m, ...rest } = r;
   return { ...rest, warnings: [...warnings, ...r.warnings], twoTheta: x, observed: yo, residual, weights: source, peaks };
+}
+
+/** A fit result in the shape of a plain comparison (compare.ts), for plots and tables that show either. */
+export function fitToComparison(f: FitPatternResult): CompareResult {
+  return {
+    scale: f.params.scale,
+    background: 0,
+    rp: f.final.rp,
+    rwp: f.final.rwp,
+    rexp: f.final.rexp,
+    chi2: f.final.chi2,
+    weights: f.weights,
+    warnings: f.warnings,
+    points: f.final.points,
+    twoTheta: f.twoTheta,
+    observed: f.observed,
+    calculated: f.calculated,
+    peaks: f.peaks.map((p) => ({
+      twoTheta: p.twoTheta,
+      intensity: p.intensity,
+      nearest: p.line ? { twoTheta: p.line.twoTheta, d: p.line.d, hkl: p.line.hkl, intensity: p.line.area } : null,
+      misfit: p.misfit,
+      withinWidth: p.withinWidth,
+    })),
+    fit: { parameters: f.parameters, initialRwp: f.initial.rwp, iterations: f.iterations },
+  };
 }
