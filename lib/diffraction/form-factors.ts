@@ -7,6 +7,7 @@
  * Species 0 (an unassigned tiling vertex, element "X") scatters with f = 1 for every radiation.
  */
 import { ELECTRON_C4322, ELEMENT_SYMBOLS, NEUTRON_SEARS92_FM, TABLE_ZMAX, XRAY_IT92 } from './data/scattering-tables';
+import { NEUTRON_ABSORBING } from './data/neutron-absorbing';
 
 export type Radiation = 'xray' | 'neutron' | 'electron';
 export const RADIATIONS: readonly Radiation[] = ['xray', 'neutron', 'electron'];
@@ -103,4 +104,21 @@ export function formFactorRangeWarning(radiation: Radiation, sMax: number): stri
   if (!(sMax > lim * (1 + 1e-9))) return null;
   const table = radiation === 'xray' ? 'International Tables C 6.1.1.4 X-ray fits' : 'Peng et al. (1996) 0–2 Å⁻¹ electron fits';
   return `form factors: sinθ/λ reaches ${sMax.toFixed(3)} Å⁻¹, beyond the ${lim} Å⁻¹ range of the ${table}`;
+}
+
+/**
+ * Complex bound coherent neutron scattering length [b′, b″] in fm with b = b′ − i b″ (Sears 1992; the
+ * imaginary part is nonzero only for the strong absorbers of data/neutron-absorbing.ts: B, Cd, Sm, Eu, Gd, Dy).
+ */
+export function neutronScatteringLengthComplex(z: number): [number, number] {
+  const re = neutronScatteringLength(z);
+  return [re, z === 0 ? 0 : (NEUTRON_ABSORBING[z]?.bImag ?? 0)];
+}
+
+/** A warning naming the strong neutron absorbers among the atomic numbers, or null. */
+export function neutronAbsorptionWarning(zs: Iterable<number>): string | null {
+  const hit = [...new Set(zs)].filter((z) => z > 0 && NEUTRON_ABSORBING[z]).sort((a, b) => a - b);
+  if (hit.length === 0) return null;
+  const list = hit.map((z) => `${ELEMENT_SYMBOLS[z]} (σ_a = ${NEUTRON_ABSORBING[z].sigmaAbs} b)`).join(', ');
+  return `neutron absorption: ${list} absorb strongly at 1.798 Å; intensities use complex scattering lengths but no sample absorption correction, and for Sm, Eu, Gd the lengths change with wavelength`;
 }

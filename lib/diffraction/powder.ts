@@ -17,7 +17,8 @@ import { enumerateHkl, structureFactorsHkl } from './structure-factor';
 import { mergeReflections } from './merge';
 import { lorentzPolarization, twoThetaOf } from './lorentz-polarization';
 import { powderProfile, type ProfileShape } from './profile';
-import { formFactorRangeWarning, FORM_FACTOR_S_MAX } from './form-factors';
+import { formFactorRangeWarning, FORM_FACTOR_S_MAX, neutronAbsorptionWarning } from './form-factors';
+import { hasComplexNeutronLength, neutronFactorsHkl } from './neutron-structure-factor';
 
 export interface PowderFamily {
   hkl: [number, number, number];
@@ -110,6 +111,13 @@ export function powderDMin(s: Structure, o: PowderOptions, lambda = o.wavelength
       warnings.push(`${fit}; reflections with d < ${dMin} Å are left out`);
     } else warnings.push(fit);
   }
+  if (o.radiation === 'neutron') {
+    const zs: number[] = [];
+    for (const v of s.species) zs.push(v);
+    for (const c of s.siteClasses ?? []) for (const z of Object.keys(c.mix ?? {})) zs.push(Number(z));
+    const abs = neutronAbsorptionWarning(zs);
+    if (abs) warnings.push(abs);
+  }
   const n = reflectionEstimate(s, dMin);
   if (n > MAX_REFLECTIONS) {
     const v = s.cell ? Math.abs(determinant(s.cell)) : 0;
@@ -127,7 +135,7 @@ const LINE_D_TOL = 1e-5;
 export function powderPeaks(s: Structure, o: PowderOptions, lambda = o.wavelength, dMinIn?: number): PowderPeak[] {
   const dMin = dMinIn ?? powderDMin(s, o, lambda).dMin;
   const hkl = enumerateHkl(s, dMin);
-  const f = structureFactorsHkl(s, hkl, o.radiation);
+  const f = o.radiation === 'neutron' && hasComplexNeutronLength(s) ? neutronFactorsHkl(s, hkl) : structureFactorsHkl(s, hkl, o.radiation);
   const merged = mergeReflections(f);
   const peaks: PowderPeak[] = [];
   // merged is sorted by d descending, families of one d next to each other.

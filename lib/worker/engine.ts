@@ -150,7 +150,7 @@ export function zone(job: Extract<JobRequest, { kind: 'zone' }>): ZoneResult {
     .map((p) => {
       const q3: [number, number, number] = [0, 1, 2].map((k) => p.qx * frame.e1[k] + p.qy * frame.e2[k] + p.qz * frame.axis[k]) as [number, number, number];
       const found = aR
-        ? indexIcosahedralSpot(q3, aR, tol)
+        ? indexIcosahedralSpot(q3, aR, tol, 12, m?.family === 'icosahedral' ? (m.lattice ?? 'P') : 'P')
         : edge && Math.abs(q3[2]) <= tol
           ? indexOctagonalSpot([q3[0], q3[1]], edge, tol)
           : null;

@@ -134,7 +134,7 @@ async function parallelHistogram(s: Parameters<typeof groupAtoms>[0], binWidth: 
   try {
     const hist = await pool.pairHistogram(s.positions, groupOf, weight, spec);
     const self = new Float64Array(groups.length);
-    for (let i = 0; i < groupOf.length; i++) self[groupOf[i]] += weight[i] * weight[i];
+    for (let i = 0; i < groupOf.length; i++) self[groupOf[i]] += weight[i];
     return { ...spec, hist, self, groups, atoms: groupOf.length };
   } finally {
     await pool.close();
