@@ -95,7 +95,7 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
     const labelFont = `12px ${c.font}`;
     const fmt = (v: number) => {
       const a = Math.abs(v);
-      return a === 0 ? '0' : a >= 1e4 || a < 1e-2 ? v.toExponential(0) : String(Number(v.toPrecision(3)));
+      return a === 0 ? '0' : a >= 1e4 || a < 1e-2 ? v.toExponential(Number(v.toExponential(0)) === v ? 0 : 1) : String(Number(v.toPrecision(3)));
     };
     const curvesOnly = (u: uPlot, splits: number[]) => {
       const lo = u.scales.y.min ?? 0;
