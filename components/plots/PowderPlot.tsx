@@ -199,9 +199,14 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
             ctx.strokeStyle = c.brass;
             ctx.lineWidth = dpr;
             ctx.beginPath();
+            // After a fit the ticks sit where the fit put the lines: cell scale k and zero shift applied.
+            const fp = comparison?.fit?.parameters;
+            const zero = fp?.find((q) => q.name === 'zero')?.value ?? 0;
+            const k = fp?.find((q) => q.name === 'lattice')?.value ?? 1;
             for (const p of curve.peaks) {
               if (p.intensity <= 1) continue;
-              const x = u.valToPos(p.twoTheta, 'x', true);
+              const tt = fp ? (360 / Math.PI) * Math.asin(Math.min(1, curve.wavelength / (2 * p.d * k))) + zero : p.twoTheta;
+              const x = u.valToPos(tt, 'x', true);
               ctx.moveTo(x, foot);
               ctx.lineTo(x, foot - 6 * dpr);
             }

@@ -4,7 +4,7 @@ import { useMemo, useState } from 'react';
 import type { Structure } from '@/lib/structure/types';
 import type { PowderCurve } from '@/lib/worker/protocol';
 import { powderParamsSchema, zoneParamsSchema } from '@/lib/diffraction/params';
-import { parseWavelength } from '@/lib/diffraction/wavelengths';
+import { kalpha2Of, parseWavelength } from '@/lib/diffraction/wavelengths';
 import { readMeasured, type MeasuredPattern } from '@/lib/formats/measured';
 import { comparePatterns, type CompareResult } from '@/lib/diffraction/compare';
 import { fitPattern, fitToComparison } from '@/lib/diffraction/fit/fit-pattern';
@@ -72,6 +72,10 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
   const setFwhm = (v: string) => set({ fwhm: v });
   const setMeasured = (m: MeasuredRef | null | ((old: MeasuredRef | null) => MeasuredRef | null)) => store().setMeasured(scope, FORM_DEFAULTS, m);
   const [measErr, setMeasErr] = useState<string | null>(null);
+  // Kα2 doublet: offered for a Kα1 line name (the ratio of that element, wavelengths.ts).
+  const [withKa2, setWithKa2] = useState(false);
+  const line2 = radiation === 'xray' ? kalpha2Of(wl) : undefined;
+  const ka2 = withKa2 && line2 ? line2 : undefined;
   const [keepState, setKeepState] = useState<{ busy?: boolean; ok?: string; error?: string }>({});
   const zoneInput = { axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax) };
   const zoneCheck = zoneParamsSchema.safeParse(zoneInput, { error: plainError });
@@ -91,7 +95,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
 
   // Which result is shown: the one computed for this model with exactly these settings, or none.
   const zoneSettings = { kind: 'zone' as const, axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax), radiation };
-  const powderSettings = { kind: 'powder' as const, wavelength: lambda ?? wl, radiation, twoThetaMin: numberOrText(tt0), twoThetaMax: numberOrText(tt1), step: powderCheck.success ? powderCheck.data.profile.step : null, fwhm: numberOrText(fwhm) };
+  const powderSettings = { kind: 'powder' as const, wavelength: lambda ?? wl, radiation, twoThetaMin: numberOrText(tt0), twoThetaMax: numberOrText(tt1), step: powderCheck.success ? powderCheck.data.profile.step : null, fwhm: numberOrText(fwhm), ...(ka2 ? { kalpha2: ka2.ratio } : {}) };
   const zoneKey = resultKey(scope, model, zoneSettings);
   const powderKey = resultKey(scope, model, powderSettings);
   const zone = { ...slotOf<'zone'>(slots, zoneKey), cancel: () => store().cancel(zoneKey) };
@@ -124,7 +128,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
       try {
         // The curve's line intensities are m|F|²·Lp (largest 100); the fit wants m|F|² and applies Lp itself.
         const lines = curve.peaks.map((p) => ({ d: p.d, hkl: p.hkl, strength: p.intensity / lorentzPolarization(p.twoTheta, radiation) }));
-        const f = fitPattern(measured.data, lines, { wavelength: curve.wavelength, radiation, profile: { U: 0, V: 0, W: h * h, eta: 0.5 }, nBackground: 4, refineLattice: true });
+        const f = fitPattern(measured.data, lines, { wavelength: curve.wavelength, wavelength2: curve.wavelength2, ratio2: curve.ratio2, radiation, profile: { U: 0, V: 0, W: h * h, eta: 0.5 }, nBackground: 4, refineLattice: true });
         setFitState({ for: key, result: fitToComparison(f) });
       } catch (e) {
         setFitState({ for: key, error: `Fit failed: ${(e as Error).message.replace(/^[a-z]+: /, '')}` });
@@ -220,7 +224,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
               e.preventDefault();
               if (lambda === null || !powderCheck.success || fwhmErr) return;
               const p = powderCheck.data;
-              void store().run(powderKey, 'diffraction', { kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm) });
+              void store().run(powderKey, 'diffraction', { kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm), wavelength2: ka2?.wavelength, ratio2: ka2?.ratio });
             }}
           >
             <div>
@@ -257,6 +261,11 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
                 <option value="electron">Electron</option>
               </select>
             </div>
+            {line2 ? (
+              <label className="flex items-center gap-1 text-xs text-ink-soft" title={`Kα2 at ${line2.wavelength} Å with ${line2.ratio} of the Kα1 intensity`}>
+                <input type="checkbox" checked={withKa2} onChange={(e) => setWithKa2(e.target.checked)} /> with Kα2
+              </label>
+            ) : null}
             <button type="submit" className={btn} disabled={lambda === null || !powderCheck.success || !!fwhmErr || powder.running}>
               Compute powder pattern
             </button>
@@ -346,6 +355,13 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
             ) : null}
           </div>
           {powder.error ? <p className="text-sm text-clay">{powder.error.message}</p> : null}
+          {powder.result?.warnings?.length ? (
+            <ul className="text-xs text-clay" role="alert">
+              {powder.result.warnings.map((w) => (
+                <li key={w}>{w}</li>
+              ))}
+            </ul>
+          ) : null}
           {/* The progress strip lies over the top of the plot while a profile is computed, so it leaves no empty
               band above the plot the rest of the time (and lets clicks through when idle). */}
           <div className="relative">

@@ -115,19 +115,22 @@ export function series(params: unknown, report: Report = () => {}): JobResultMap
 }
 
 function powder(job: Extract<JobRequest, { kind: 'powder' }>): PowderCurve {
-  const { structure: s, wavelength, radiation, twoThetaMin, twoThetaMax, step, fwhm } = job;
+  const { structure: s, wavelength, radiation, twoThetaMin, twoThetaMax, step, fwhm, wavelength2, ratio2 } = job;
   if (s.cell) {
     // Caglioti with U = V = 0 gives a constant FWHM of √W degrees.
-    const r = braggPowder(s, { wavelength, radiation, twoThetaMin, twoThetaMax, profile: { U: 0, V: 0, W: fwhm * fwhm, eta: 0.5, step } });
+    const r = braggPowder(s, { wavelength, radiation, twoThetaMin, twoThetaMax, wavelength2, ratio2, profile: { U: 0, V: 0, W: fwhm * fwhm, eta: 0.5, step } });
     return {
       twoTheta: r.profile!.twoTheta,
       intensity: r.profile!.intensity,
       peaks: r.peaks.map((p) => ({ twoTheta: p.twoTheta, d: p.d, hkl: p.hkl, intensity: p.intensity })),
       wavelength,
+      wavelength2,
+      ratio2,
+      warnings: r.warnings,
     };
   }
   const r = debyePowder(s, { wavelength, radiation, twoThetaMin, twoThetaMax, step });
-  return { twoTheta: r.twoTheta, intensity: r.intensity, peaks: r.maxima.map((m) => ({ twoTheta: m.twoTheta, d: m.d, hkl: null, intensity: m.intensity })), wavelength };
+  return { twoTheta: r.twoTheta, intensity: r.intensity, peaks: r.maxima.map((m) => ({ twoTheta: m.twoTheta, d: m.d, hkl: null, intensity: m.intensity })), wavelength, warnings: r.warnings };
 }
 
 const AXIS_NAMES: Record<string, string> = { '5': 'a five-fold axis', '3': 'a three-fold axis', '2': 'a two-fold axis' };

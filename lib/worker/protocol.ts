@@ -40,6 +40,11 @@ export interface PowderCurve {
   intensity: Float64Array;
   peaks: { twoTheta: number; d: number; hkl: number[] | null; intensity: number }[];
   wavelength: number;
+  /** Kα2 line drawn in the profile (periodic cells), with its intensity ratio to the first line. */
+  wavelength2?: number;
+  ratio2?: number;
+  /** Warnings of the run (form-factor range, resolution, neutron absorption). */
+  warnings?: string[];
 }
 
 export interface SeriesRow {
@@ -64,7 +69,7 @@ export type JobRequest =
   | { kind: 'generate'; params: unknown }
   | { kind: 'estimate'; params: unknown }
   | { kind: 'zone'; structure: Structure; axis: string; qmax: number; slab: number; radiation: 'xray' | 'neutron' | 'electron' }
-  | { kind: 'powder'; structure: Structure; wavelength: number; radiation: 'xray' | 'neutron' | 'electron'; twoThetaMin: number; twoThetaMax: number; step: number; fwhm: number }
+  | { kind: 'powder'; structure: Structure; wavelength: number; radiation: 'xray' | 'neutron' | 'electron'; twoThetaMin: number; twoThetaMax: number; step: number; fwhm: number; wavelength2?: number; ratio2?: number }
   | { kind: 'series'; params: unknown };
 
 export interface JobResultMap {

@@ -108,6 +108,7 @@ async function powderCommand(o: PowderFlags, cmd: Command): Promise<void> {
       binWidth: p.binWidth,
     }),
   );
+  for (const w of res.warnings) process.stderr.write(`warning: ${w}\n`);
   const peaks = res.maxima.map((k) => ({ twoTheta: r(k.twoTheta), d: r(k.d), q: r(k.q), hkl: null, multiplicity: null, intensity: r(k.intensity, 4) }));
   if (o.format === 'json') {
     const out = {
