@@ -6,8 +6,7 @@ import type { PowderCurve } from '@/lib/worker/protocol';
 import { powderParamsSchema, zoneParamsSchema } from '@/lib/diffraction/params';
 import { kalpha2Of, parseWavelength } from '@/lib/diffraction/wavelengths';
 import { readMeasured, type MeasuredPattern } from '@/lib/formats/measured';
-import { comparePatterns, type CompareResult } from '@/lib/diffraction/compare';
-import { fitPattern, fitToComparison } from '@/lib/diffraction/fit/fit-pattern';
+import { comparePatterns } from '@/lib/diffraction/compare';
 import { lorentzPolarization } from '@/lib/diffraction/lorentz-polarization';
 import { ZonePattern } from '@/components/plots/ZonePattern';
 import { PowderPlot } from '@/components/plots/PowderPlot';
@@ -112,28 +111,26 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
       return { comparison: null, compareErr: compareMessage((e as Error).message, measured.data, curve.twoTheta) };
     }
   }, [measured, curve, fwhm]);
-  // A least-squares fit of the shown curve's reflections to the measured pattern (periodic cells only);
-  // kept for exactly that measured pattern and curve.
-  const [fitState, setFitState] = useState<{ for: [unknown, unknown]; result?: CompareResult; error?: string; busy?: boolean } | null>(null);
-  const fitHere = fitState && fitState.for[0] === measured && fitState.for[1] === curve ? fitState : null;
-  const comparison = fitHere?.result ?? plain;
+  // A least-squares fit of the shown curve's reflections to the measured pattern (periodic cells only), run in
+  // the worker and kept in the results store for exactly this curve and measured pattern.
+  const [showFit, setShowFit] = useState(true);
+  const fitKey = resultKey(scope, model, { kind: 'fit', powder: powderKey, measured: measured ? `${measured.name}:${measured.data.x.length}:${measured.data.x[0]}` : null });
+  const fit = { ...slotOf<'fit'>(slots, fitKey), cancel: () => store().cancel(fitKey) };
+  const fitted = showFit && measured && curve ? (fit.result ?? null) : null;
+  const comparison = fitted ?? plain;
   const canFit = !!measured && !!curve && curve.peaks.some((p) => p.hkl !== null);
   const runFit = () => {
     if (!measured || !curve) return;
-    const key: [unknown, unknown] = [measured, curve];
-    setFitState({ for: key, busy: true });
     const h = Number(fwhm) > 0 ? Number(fwhm) : 0.1;
-    // Let the "Fitting…" state paint before the (seconds-long) fit runs on this thread.
-    setTimeout(() => {
-      try {
-        // The curve's line intensities are m|F|²·Lp (largest 100); the fit wants m|F|² and applies Lp itself.
-        const lines = curve.peaks.map((p) => ({ d: p.d, hkl: p.hkl, strength: p.intensity / lorentzPolarization(p.twoTheta, radiation) }));
-        const f = fitPattern(measured.data, lines, { wavelength: curve.wavelength, wavelength2: curve.wavelength2, ratio2: curve.ratio2, radiation, profile: { U: 0, V: 0, W: h * h, eta: 0.5 }, nBackground: 4, refineLattice: true });
-        setFitState({ for: key, result: fitToComparison(f) });
-      } catch (e) {
-        setFitState({ for: key, error: `Fit failed: ${(e as Error).message.replace(/^[a-z]+: /, '')}` });
-      }
-    }, 30);
+    setShowFit(true);
+    // The curve's line intensities are m|F|²·Lp (largest 100); the fit wants m|F|² and applies Lp itself.
+    const lines = curve.peaks.map((p) => ({ d: p.d, hkl: p.hkl, strength: p.intensity / lorentzPolarization(p.twoTheta, radiation) }));
+    void store().run(fitKey, 'diffraction', {
+      kind: 'fit',
+      measured: measured.data,
+      lines,
+      options: { wavelength: curve.wavelength, wavelength2: curve.wavelength2, ratio2: curve.ratio2, radiation, profile: { U: 0, V: 0, W: h * h, eta: 0.5 }, nBackground: 4, refineLattice: true },
+    });
   };
 
   const loadText = (name: string, text: string, from: { file?: File; datasetId?: string }) => {
@@ -334,18 +331,23 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
               </span>
             ) : null}
             {canFit ? (
-              <button type="button" disabled={fitHere?.busy} className="rounded border border-tide px-2 py-0.5 text-xs text-tide hover:bg-tide-pale disabled:opacity-50" onClick={runFit} data-testid="fit-button">
-                {fitHere?.busy ? 'Fitting…' : fitHere?.result ? 'Fit again' : 'Fit zero shift, background, widths and cell'}
+              <button type="button" disabled={fit.running} className="rounded border border-tide px-2 py-0.5 text-xs text-tide hover:bg-tide-pale disabled:opacity-50" onClick={runFit} data-testid="fit-button">
+                {fit.running ? 'Fitting…' : fitted ? 'Fit again' : 'Fit zero shift, background, widths and cell'}
               </button>
             ) : null}
-            {fitHere?.result ? (
-              <button type="button" className="text-xs text-ink-soft underline" onClick={() => setFitState(null)}>
-                show the unfitted overlay
+            {fit.running ? (
+              <button type="button" className="text-xs text-clay underline" onClick={fit.cancel}>
+                cancel the fit
               </button>
             ) : null}
-            {fitHere?.error ? (
+            {fit.result && !fit.running ? (
+              <button type="button" className="text-xs text-ink-soft underline" onClick={() => setShowFit(!showFit)}>
+                {showFit ? 'show the unfitted overlay' : 'show the fit'}
+              </button>
+            ) : null}
+            {fit.error ? (
               <span className="basis-full text-xs text-clay" role="alert">
-                {fitHere.error}
+                Fit failed: {fit.error.message}
               </span>
             ) : null}
             {compareErr ? (

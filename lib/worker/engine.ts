@@ -7,6 +7,7 @@ import type { Structure } from '../structure/types';
 import { composition } from '../structure/checks/composition';
 import { density } from '../structure/checks/density';
 import { braggPowder } from '../diffraction/powder';
+import { fitPattern, fitToComparison } from '../diffraction/fit/fit-pattern';
 import { debyePowder } from '../diffraction/debye-powder';
 import { approximantLatticeConstant } from '../models/icosahedral/approximant';
 import { TAU } from '../math/golden';
@@ -191,5 +192,8 @@ export function runJob<K extends JobRequest['kind']>(job: Extract<JobRequest, { 
       return powder(j) as JobResultMap[K];
     case 'series':
       return series(j.params, report) as JobResultMap[K];
+    case 'fit':
+      report('least squares', 0.1);
+      return fitToComparison(fitPattern(j.measured, j.lines, j.options)) as JobResultMap[K];
   }
 }

@@ -2,6 +2,10 @@
  * Messages between the workspace and its Web Worker (engine.worker.ts). One request runs at a time per
  * worker ("lane"); cancelling terminates the worker, so a long cut never has to poll for a flag.
  */
+import type { MeasuredPattern } from '../formats/measured';
+import type { FitLine } from '../diffraction/fit/model';
+import type { FitPatternOptions } from '../diffraction/fit/fit-pattern';
+import type { CompareResult } from '../diffraction/compare';
 import type { Structure } from '../structure/types';
 
 export interface CutSummary {
@@ -70,7 +74,8 @@ export type JobRequest =
   | { kind: 'estimate'; params: unknown }
   | { kind: 'zone'; structure: Structure; axis: string; qmax: number; slab: number; radiation: 'xray' | 'neutron' | 'electron' }
   | { kind: 'powder'; structure: Structure; wavelength: number; radiation: 'xray' | 'neutron' | 'electron'; twoThetaMin: number; twoThetaMax: number; step: number; fwhm: number; wavelength2?: number; ratio2?: number }
-  | { kind: 'series'; params: unknown };
+  | { kind: 'series'; params: unknown }
+  | { kind: 'fit'; measured: MeasuredPattern; lines: FitLine[]; options: FitPatternOptions };
 
 export interface JobResultMap {
   generate: { structure: Structure; summary: CutSummary };
@@ -78,6 +83,7 @@ export interface JobResultMap {
   zone: ZoneResult;
   powder: PowderCurve;
   series: { rows: SeriesRow[]; quasicrystalDensity?: number };
+  fit: CompareResult;
 }
 
 export type ToWorker = { id: number; job: JobRequest };

@@ -52,7 +52,7 @@ export interface FitSetup {
  * background.
  */
 const CUT = 30;
-const BUDGET = 4e6;
+const BUDGET = 1.5e6;
 const DEG = Math.PI / 180;
 
 function twoTheta(d: number, lambda: number): number {
