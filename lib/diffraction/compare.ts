@@ -2,8 +2,8 @@
  * Comparison of a simulated powder profile with a measured one.
  *
  * Scale (and optional flat background) by weighted linear least squares, y_obs ≈ s·y_calc + b, with
- * weights w = 1/σ² from the file's σ column, else counting statistics w = 1/max(y_obs, 1) (fit/agreement.ts:
- * a point with y_obs ≤ 0 weighs like a one-count point, never the most). Agreement factors (Young, The
+ * weights w = 1/σ² from the file's σ column, else counting statistics w = 1/y_obs (fit/agreement.ts: a
+ * point with y_obs ≤ 0 weighs like its neighbours, never the most). Agreement factors (Young, The
  * Rietveld Method, IUCr/OUP 1993, ch. 1 definitions, fit/agreement.ts):
  *   R_p  = Σ |y_obs − y_calc| / Σ |y_obs|
  *   R_wp = √( Σ w (y_obs − y_calc)² / Σ w y_obs² ),  R_exp = √((N − P)/Σ w y_obs²),  χ² = (R_wp/R_exp)²
