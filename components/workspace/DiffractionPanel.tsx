@@ -75,6 +75,10 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
   const [withKa2, setWithKa2] = useState(false);
   const line2 = radiation === 'xray' ? kalpha2Of(wl) : undefined;
   const ka2 = withKa2 && line2 ? line2 : undefined;
+  // Electron powder: the resolution limit d_min the user sets (default in lib/diffraction/powder.ts).
+  const [dMinText, setDMinText] = useState('');
+  const dMin = radiation === 'electron' && dMinText.trim() !== '' ? Number(dMinText) : undefined;
+  const dMinErr = dMin !== undefined && !(dMin > 0 && Number.isFinite(dMin)) ? 'd min: must be a positive length in Å' : null;
   const [keepState, setKeepState] = useState<{ busy?: boolean; ok?: string; error?: string }>({});
   const zoneInput = { axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax) };
   const zoneCheck = zoneParamsSchema.safeParse(zoneInput, { error: plainError });
@@ -94,7 +98,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
 
   // Which result is shown: the one computed for this model with exactly these settings, or none.
   const zoneSettings = { kind: 'zone' as const, axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax), radiation };
-  const powderSettings = { kind: 'powder' as const, wavelength: lambda ?? wl, radiation, twoThetaMin: numberOrText(tt0), twoThetaMax: numberOrText(tt1), step: powderCheck.success ? powderCheck.data.profile.step : null, fwhm: numberOrText(fwhm), ...(ka2 ? { kalpha2: ka2.ratio } : {}) };
+  const powderSettings = { kind: 'powder' as const, wavelength: lambda ?? wl, radiation, twoThetaMin: numberOrText(tt0), twoThetaMax: numberOrText(tt1), step: powderCheck.success ? powderCheck.data.profile.step : null, fwhm: numberOrText(fwhm), ...(ka2 ? { kalpha2: ka2.ratio } : {}), ...(dMin !== undefined ? { dMin } : {}) };
   const zoneKey = resultKey(scope, model, zoneSettings);
   const powderKey = resultKey(scope, model, powderSettings);
   const zone = { ...slotOf<'zone'>(slots, zoneKey), cancel: () => store().cancel(zoneKey) };
@@ -219,9 +223,9 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
             className="flex flex-wrap items-end gap-3"
             onSubmit={(e) => {
               e.preventDefault();
-              if (lambda === null || !powderCheck.success || fwhmErr) return;
+              if (lambda === null || !powderCheck.success || fwhmErr || dMinErr) return;
               const p = powderCheck.data;
-              void store().run(powderKey, 'diffraction', { kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm), wavelength2: ka2?.wavelength, ratio2: ka2?.ratio });
+              void store().run(powderKey, 'diffraction', { kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm), wavelength2: ka2?.wavelength, ratio2: ka2?.ratio, dMin });
             }}
           >
             <div>
@@ -258,12 +262,21 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
                 <option value="electron">Electron</option>
               </select>
             </div>
+            {radiation === 'electron' ? (
+              <div>
+                <label htmlFor="pw-dmin" className="block text-xs text-ink-soft">
+                  d min (Å, default 0.5)
+                </label>
+                <input id="pw-dmin" className={`${input} w-20 font-mono`} value={dMinText} onChange={(e) => setDMinText(e.target.value)} aria-invalid={!!dMinErr} placeholder="0.5" />
+                {dMinErr ? <p className="text-xs text-clay">{dMinErr}</p> : null}
+              </div>
+            ) : null}
             {line2 ? (
               <label className="flex items-center gap-1 text-xs text-ink-soft" title={`Kα2 at ${line2.wavelength} Å with ${line2.ratio} of the Kα1 intensity`}>
                 <input type="checkbox" checked={withKa2} onChange={(e) => setWithKa2(e.target.checked)} /> with Kα2
               </label>
             ) : null}
-            <button type="submit" className={btn} disabled={lambda === null || !powderCheck.success || !!fwhmErr || powder.running}>
+            <button type="submit" className={btn} disabled={lambda === null || !powderCheck.success || !!fwhmErr || !!dMinErr || powder.running}>
               Compute powder pattern
             </button>
           </form>

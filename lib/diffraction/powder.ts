@@ -100,7 +100,7 @@ export function powderDMin(s: Structure, o: PowderOptions, lambda = o.wavelength
   if (o.radiation === 'electron' && o.dMin === undefined && ELECTRON_DEFAULT_DMIN > dMin) {
     dMin = ELECTRON_DEFAULT_DMIN;
     warnings.push(
-      `resolution: electron powder stops at d = ${ELECTRON_DEFAULT_DMIN} Å (2θ = ${twoThetaOf(dMin, lambda).toFixed(3)}°) unless you set dMin; the range asked for reaches d = ${braggLimit.toPrecision(3)} Å`,
+      `resolution: electron powder stops at d = ${ELECTRON_DEFAULT_DMIN} Å (2θ = ${twoThetaOf(dMin, lambda).toFixed(3)}°) unless you set d min (--d-min); the range asked for reaches d = ${braggLimit.toPrecision(3)} Å`,
     );
   }
   const fit = formFactorRangeWarning(o.radiation, 1 / (2 * dMin));

@@ -116,10 +116,10 @@ export function series(params: unknown, report: Report = () => {}): JobResultMap
 }
 
 function powder(job: Extract<JobRequest, { kind: 'powder' }>): PowderCurve {
-  const { structure: s, wavelength, radiation, twoThetaMin, twoThetaMax, step, fwhm, wavelength2, ratio2 } = job;
+  const { structure: s, wavelength, radiation, twoThetaMin, twoThetaMax, step, fwhm, wavelength2, ratio2, dMin } = job;
   if (s.cell) {
     // Caglioti with U = V = 0 gives a constant FWHM of √W degrees.
-    const r = braggPowder(s, { wavelength, radiation, twoThetaMin, twoThetaMax, wavelength2, ratio2, profile: { U: 0, V: 0, W: fwhm * fwhm, eta: 0.5, step } });
+    const r = braggPowder(s, { wavelength, radiation, twoThetaMin, twoThetaMax, wavelength2, ratio2, dMin, profile: { U: 0, V: 0, W: fwhm * fwhm, eta: 0.5, step } });
     return {
       twoTheta: r.profile!.twoTheta,
       intensity: r.profile!.intensity,

@@ -73,7 +73,7 @@ export type JobRequest =
   | { kind: 'generate'; params: unknown }
   | { kind: 'estimate'; params: unknown }
   | { kind: 'zone'; structure: Structure; axis: string; qmax: number; slab: number; radiation: 'xray' | 'neutron' | 'electron' }
-  | { kind: 'powder'; structure: Structure; wavelength: number; radiation: 'xray' | 'neutron' | 'electron'; twoThetaMin: number; twoThetaMax: number; step: number; fwhm: number; wavelength2?: number; ratio2?: number }
+  | { kind: 'powder'; structure: Structure; wavelength: number; radiation: 'xray' | 'neutron' | 'electron'; twoThetaMin: number; twoThetaMax: number; step: number; fwhm: number; wavelength2?: number; ratio2?: number; dMin?: number }
   | { kind: 'series'; params: unknown }
   | { kind: 'fit'; measured: MeasuredPattern; lines: FitLine[]; options: FitPatternOptions };
 

@@ -227,7 +227,7 @@ export function refinePowder(setup: FitSetup, yo: Float64Array, w: Float64Array,
     if (!(h2 > 0)) warnings.push(`profile: the fitted U, V, W give FWHM² = ${h2.toPrecision(3)} ≤ 0 at 2θ = ${tt.toFixed(2)}°; fix the widths or narrow the range`);
   }
   if (o.refineLattice && Math.abs(params.lattice - 1) > 0.05) warnings.push(`lattice: the fitted cell is ${((params.lattice - 1) * 100).toFixed(2)} % off the model's; check the model`);
-  if (final.chi2 > 4 * (final.rexp > 0 ? 1 : 0) && final.rwp > 2 * final.rexp) {
+  if (final.rwp > 2 * final.rexp) {
     warnings.push(`fit: R_wp = ${(final.rwp * 100).toFixed(2)} % is more than twice R_exp = ${(final.rexp * 100).toFixed(2)} %; the model does not describe the pattern within its noise, and the σ understate the error`);
   }
   return { params, parameters, initial, final, calculated, background: model.background(params), iterations, warnings, model };
