@@ -72,8 +72,8 @@ async function main() {
   ensureDebian(['fonts-dejavu-core'], () => existsSync('/usr/share/fonts/truetype/dejavu'), 'the browser tests');
   // Reference libraries that tests compare our results with (each test names the one it uses).
   ensureDebian(
-    ['python3', 'python3-numpy', 'python3-scipy', 'python3-gemmi', 'python3-ase', 'python3-spglib', 'python3-xraylib', 'python3-pymatgen'],
-    () => capture('/usr/bin/python3', ['-c', 'import numpy, scipy, gemmi, ase, spglib, xraylib, pymatgen.core']).status === 0,
+    ['python3', 'python3-numpy', 'python3-scipy', 'python3-gemmi', 'python3-ase', 'python3-spglib', 'python3-xraylib', 'python3-pymatgen', 'python3-periodictable'],
+    () => capture('/usr/bin/python3', ['-c', 'import numpy, scipy, gemmi, ase, spglib, xraylib, pymatgen.core, periodictable']).status === 0,
     'the reference checks in the tests',
   );
   const s = settings();

@@ -55,6 +55,16 @@ interface Readout {
   reflection: { hkl: number[] | null; twoTheta: number; d: number; intensity: number } | null;
 }
 
+/** Words for the fitted parameters (units as the fit reports them). */
+const PARAM_LABELS: Record<string, string> = {
+  scale: 'scale',
+  zero: 'zero shift (°, measured = calculated + zero)',
+  U: 'Caglioti U (deg²)',
+  V: 'Caglioti V (deg²)',
+  W: 'Caglioti W (deg²)',
+  lattice: 'cell scale k (a = k·a of the model)',
+};
+
 export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curve: PowderCurve; comparison: CompareResult | null; measuredName?: string; fileBase: string }) {
   const boxRef = useRef<HTMLDivElement>(null);
   const plotRef = useRef<uPlot | null>(null);
@@ -65,6 +75,8 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
   const windowRef = useRef<{ curve: PowderCurve; min: number; max: number } | null>(null);
   const residual = useMemo(() => (comparison ? comparison.observed.map((v, i) => v - comparison.calculated[i]) : null), [comparison]);
   const calcScaled = useMemo(() => (comparison ? curve.intensity.map((v) => v * comparison.scale + comparison.background) : curve.intensity), [curve, comparison]);
+  // A fitted comparison carries its own calculated curve on the measured points (zero shift, widths, background).
+  const fitted = !!comparison?.fit;
   const x0 = curve.twoTheta[0];
   const x1 = curve.twoTheta[curve.twoTheta.length - 1];
 
@@ -75,7 +87,7 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
     const f = (v: number) => toAxis(v, scale);
     // One x column for both tables: the calculated curve on its own grid, the measured points and the difference
     // on theirs (null where a table has no point; lines span the gaps).
-    const calcT: [number[], number[]] = [Array.from(curve.twoTheta), Array.from(calcScaled, f)];
+    const calcT: [number[], number[]] = comparison?.fit ? [Array.from(comparison.twoTheta), Array.from(comparison.calculated, f)] : [Array.from(curve.twoTheta), Array.from(calcScaled, f)];
     const data: uPlot.AlignedData = comparison && residual
       ? uPlot.join([calcT, [Array.from(comparison.twoTheta), Array.from(comparison.observed, f), Array.from(comparison.observed, (o, i) => f(o) - f(comparison.calculated[i]))]])
       : [calcT[0], calcT[1]];
@@ -83,7 +95,7 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
     const labelFont = `12px ${c.font}`;
     const fmt = (v: number) => {
       const a = Math.abs(v);
-      return a === 0 ? '0' : a >= 1e4 || a < 1e-2 ? v.toExponential(0) : String(Number(v.toPrecision(3)));
+      return a === 0 ? '0' : a >= 1e4 || a < 1e-2 ? v.toExponential(Number(v.toExponential(0)) === v ? 0 : 1) : String(Number(v.toPrecision(3)));
     };
     const curvesOnly = (u: uPlot, splits: number[]) => {
       const lo = u.scales.y.min ?? 0;
@@ -187,9 +199,14 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
             ctx.strokeStyle = c.brass;
             ctx.lineWidth = dpr;
             ctx.beginPath();
+            // After a fit the ticks sit where the fit put the lines: cell scale k and zero shift applied.
+            const fp = comparison?.fit?.parameters;
+            const zero = fp?.find((q) => q.name === 'zero')?.value ?? 0;
+            const k = fp?.find((q) => q.name === 'lattice')?.value ?? 1;
             for (const p of curve.peaks) {
               if (p.intensity <= 1) continue;
-              const x = u.valToPos(p.twoTheta, 'x', true);
+              const tt = fp ? (360 / Math.PI) * Math.asin(Math.min(1, curve.wavelength / (2 * p.d * k))) + zero : p.twoTheta;
+              const x = u.valToPos(tt, 'x', true);
               ctx.moveTo(x, foot);
               ctx.lineTo(x, foot - 6 * dpr);
             }
@@ -214,7 +231,7 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
             const span = (u.scales.x.max ?? x1) - (u.scales.x.min ?? x0);
             const reflection = nearestReflection(curve.peaks, x, Math.max(0.05, span / 150), 0.01);
             const j = comparison ? nearestIndex(comparison.twoTheta, x) : -1;
-            setReadout({ twoTheta: x, calculated: calcScaled[i], measured: comparison ? comparison.observed[j] : null, reflection });
+            setReadout({ twoTheta: x, calculated: comparison?.fit ? comparison.calculated[j] : calcScaled[i], measured: comparison ? comparison.observed[j] : null, reflection });
           },
         ],
         setScale: [
@@ -267,7 +284,7 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
       <div className="flex items-center gap-3 text-xs">
         <div className="flex min-w-0 flex-1 flex-wrap items-center gap-x-3 gap-y-0.5">
           <span className="inline-flex items-center gap-1">
-            <span className="inline-block h-0.5 w-4 bg-tide" /> calculated (λ = {curve.wavelength.toFixed(4)} Å)
+            <span className="inline-block h-0.5 w-4 bg-tide" /> {fitted ? 'fitted' : 'calculated'} (λ = {curve.wavelength.toFixed(4)} Å)
           </span>
           {comparison ? (
             <>
@@ -288,8 +305,10 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
         </div>
         {comparison ? (
           <span className="flex shrink-0 gap-3 whitespace-nowrap font-mono">
-            <span data-testid="rwp">R_wp = {(100 * comparison.rwp).toFixed(1)} %</span>
-            <span>R_p = {(100 * comparison.rp).toFixed(1)} %</span>
+            <span data-testid="rwp">R_wp = {(100 * comparison.rwp).toFixed(2)} %</span>
+            <span>R_p = {(100 * comparison.rp).toFixed(2)} %</span>
+            {Number.isFinite(comparison.rexp) ? <span title={comparison.weights === 'sigma' ? 'weights 1/σ² from the file' : 'weights 1/I (counting statistics)'}>R_exp = {(100 * comparison.rexp).toFixed(2)} %</span> : null}
+            {Number.isFinite(comparison.chi2) ? <span data-testid="chi2">χ² = {comparison.chi2.toPrecision(3)}</span> : null}
           </span>
         ) : null}
         <span className="flex shrink-0 gap-2">
@@ -337,6 +356,38 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
           )}
         </div>
       </div>
+      {comparison?.warnings.length ? (
+        <ul className="text-xs text-clay" role="alert">
+          {comparison.warnings.map((w) => (
+            <li key={w}>{w}</li>
+          ))}
+        </ul>
+      ) : null}
+      {comparison?.fit ? (
+        <div className="rounded-md border border-rule bg-card" data-testid="fit-parameters">
+          <table className="w-full text-xs">
+            <caption className="px-2 py-1 text-left text-sm font-semibold">
+              Fitted parameters (R_wp {(100 * comparison.fit.initialRwp).toFixed(1)} % before the fit; σ statistical only, scaled by √χ²)
+            </caption>
+            <thead>
+              <tr className="text-left text-ink-soft">
+                <th className="px-2 font-medium">Parameter</th>
+                <th className="px-2 font-medium">Value</th>
+                <th className="px-2 font-medium">σ</th>
+              </tr>
+            </thead>
+            <tbody>
+              {comparison.fit.parameters.map((p) => (
+                <tr key={p.name} className="border-t border-rule">
+                  <td className="px-2">{PARAM_LABELS[p.name] ?? p.name.replace(/^background(\d+)$/, 'background c$1 (Chebyshev)')}</td>
+                  <td className="px-2 font-mono">{p.value.toPrecision(6)}</td>
+                  <td className="px-2 font-mono">{p.sigma.toPrecision(2)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      ) : null}
       {comparison ? (
         <div className="max-h-48 overflow-y-auto rounded-md border border-rule bg-card">
           <table className="w-full text-xs">
@@ -346,14 +397,14 @@ export function PowderPlot({ curve, comparison, measuredName, fileBase }: { curv
                 <th className="px-2 font-medium">Measured 2θ (°)</th>
                 <th className="px-2 font-medium">Measured height (file units)</th>
                 <th className="px-2 font-medium">Calculated 2θ (°)</th>
-                <th className="px-2 font-medium">hkl (strongest)</th>
-                <th className="px-2 font-medium">Calculated intensity (rel.)</th>
+                <th className="px-2 font-medium">hkl (largest contribution within the width)</th>
+                <th className="px-2 font-medium">{comparison.fit ? 'Calculated area (file units)' : 'Calculated intensity (rel.)'}</th>
                 <th className="px-2 font-medium">Δ2θ (°)</th>
               </tr>
             </thead>
             <tbody>
               {comparison.peaks.map((m, i) => (
-                <tr key={i} className={`border-t border-rule ${m.nearest ? '' : 'text-clay'}`}>
+                <tr key={i} className={`border-t border-rule ${m.nearest && m.withinWidth !== false ? '' : 'text-clay'}`} title={m.withinWidth === false ? 'no calculated line within one peak width: nearest line shown' : undefined}>
                   <td className="px-2 font-mono">{m.twoTheta.toFixed(3)}</td>
                   <td className="px-2 font-mono">{m.intensity.toPrecision(4)}</td>
                   <td className="px-2 font-mono">{m.nearest ? m.nearest.twoTheta.toFixed(3) : 'no match'}</td>

@@ -4,9 +4,10 @@ import { useMemo, useState } from 'react';
 import type { Structure } from '@/lib/structure/types';
 import type { PowderCurve } from '@/lib/worker/protocol';
 import { powderParamsSchema, zoneParamsSchema } from '@/lib/diffraction/params';
-import { parseWavelength } from '@/lib/diffraction/wavelengths';
+import { kalpha2Of, parseWavelength } from '@/lib/diffraction/wavelengths';
 import { readMeasured, type MeasuredPattern } from '@/lib/formats/measured';
 import { comparePatterns } from '@/lib/diffraction/compare';
+import { lorentzPolarization } from '@/lib/diffraction/lorentz-polarization';
 import { ZonePattern } from '@/components/plots/ZonePattern';
 import { PowderPlot } from '@/components/plots/PowderPlot';
 import { resultKey, slotOf, useResultsStore, type DiffractionForm, type DiffractionKind, type MeasuredRef } from './resultsStore';
@@ -70,6 +71,14 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
   const setFwhm = (v: string) => set({ fwhm: v });
   const setMeasured = (m: MeasuredRef | null | ((old: MeasuredRef | null) => MeasuredRef | null)) => store().setMeasured(scope, FORM_DEFAULTS, m);
   const [measErr, setMeasErr] = useState<string | null>(null);
+  // Kα2 doublet: offered for a Kα1 line name (the ratio of that element, wavelengths.ts).
+  const [withKa2, setWithKa2] = useState(false);
+  const line2 = radiation === 'xray' ? kalpha2Of(wl) : undefined;
+  const ka2 = withKa2 && line2 ? line2 : undefined;
+  // Electron powder: the resolution limit d_min the user sets (default in lib/diffraction/powder.ts).
+  const [dMinText, setDMinText] = useState('');
+  const dMin = radiation === 'electron' && dMinText.trim() !== '' ? Number(dMinText) : undefined;
+  const dMinErr = dMin !== undefined && !(dMin > 0 && Number.isFinite(dMin)) ? 'd min: must be a positive length in Å' : null;
   const [keepState, setKeepState] = useState<{ busy?: boolean; ok?: string; error?: string }>({});
   const zoneInput = { axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax) };
   const zoneCheck = zoneParamsSchema.safeParse(zoneInput, { error: plainError });
@@ -89,7 +98,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
 
   // Which result is shown: the one computed for this model with exactly these settings, or none.
   const zoneSettings = { kind: 'zone' as const, axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax), radiation };
-  const powderSettings = { kind: 'powder' as const, wavelength: lambda ?? wl, radiation, twoThetaMin: numberOrText(tt0), twoThetaMax: numberOrText(tt1), step: powderCheck.success ? powderCheck.data.profile.step : null, fwhm: numberOrText(fwhm) };
+  const powderSettings = { kind: 'powder' as const, wavelength: lambda ?? wl, radiation, twoThetaMin: numberOrText(tt0), twoThetaMax: numberOrText(tt1), step: powderCheck.success ? powderCheck.data.profile.step : null, fwhm: numberOrText(fwhm), ...(ka2 ? { kalpha2: ka2.ratio } : {}), ...(dMin !== undefined ? { dMin } : {}) };
   const zoneKey = resultKey(scope, model, zoneSettings);
   const powderKey = resultKey(scope, model, powderSettings);
   const zone = { ...slotOf<'zone'>(slots, zoneKey), cancel: () => store().cancel(zoneKey) };
@@ -97,14 +106,36 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
 
   // A comparison that cannot be made says why (e.g. the measured range lies outside the simulated one).
   const curve = (slots[powderKey]?.result ?? null) as PowderCurve | null;
-  const { comparison, compareErr } = useMemo(() => {
+  const { comparison: plain, compareErr } = useMemo(() => {
     if (!measured || !curve) return { comparison: null, compareErr: null };
+    const h = Number(fwhm) > 0 ? Number(fwhm) : 0.1;
     try {
-      return { comparison: comparePatterns(measured.data, curve, curve.peaks, { wavelength: curve.wavelength, background: true }), compareErr: null };
+      return { comparison: comparePatterns(measured.data, curve, curve.peaks, { wavelength: curve.wavelength, background: true, fwhm: () => h, eta: 0.5 }), compareErr: null };
     } catch (e) {
       return { comparison: null, compareErr: compareMessage((e as Error).message, measured.data, curve.twoTheta) };
     }
-  }, [measured, curve]);
+  }, [measured, curve, fwhm]);
+  // A least-squares fit of the shown curve's reflections to the measured pattern (periodic cells only), run in
+  // the worker and kept in the results store for exactly this curve and measured pattern.
+  const [showFit, setShowFit] = useState(true);
+  const fitKey = resultKey(scope, model, { kind: 'fit', powder: powderKey, measured: measured ? `${measured.name}:${measured.data.x.length}:${measured.data.x[0]}` : null });
+  const fit = { ...slotOf<'fit'>(slots, fitKey), cancel: () => store().cancel(fitKey) };
+  const fitted = showFit && measured && curve ? (fit.result ?? null) : null;
+  const comparison = fitted ?? plain;
+  const canFit = !!measured && !!curve && curve.peaks.some((p) => p.hkl !== null);
+  const runFit = () => {
+    if (!measured || !curve) return;
+    const h = Number(fwhm) > 0 ? Number(fwhm) : 0.1;
+    setShowFit(true);
+    // The curve's line intensities are m|F|²·Lp (largest 100); the fit wants m|F|² and applies Lp itself.
+    const lines = curve.peaks.map((p) => ({ d: p.d, hkl: p.hkl, strength: p.intensity / lorentzPolarization(p.twoTheta, radiation) }));
+    void store().run(fitKey, 'diffraction', {
+      kind: 'fit',
+      measured: measured.data,
+      lines,
+      options: { wavelength: curve.wavelength, wavelength2: curve.wavelength2, ratio2: curve.ratio2, radiation, profile: { U: 0, V: 0, W: h * h, eta: 0.5 }, nBackground: 4, refineLattice: true },
+    });
+  };
 
   const loadText = (name: string, text: string, from: { file?: File; datasetId?: string }) => {
     setKeepState({});
@@ -192,9 +223,9 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
             className="flex flex-wrap items-end gap-3"
             onSubmit={(e) => {
               e.preventDefault();
-              if (lambda === null || !powderCheck.success || fwhmErr) return;
+              if (lambda === null || !powderCheck.success || fwhmErr || dMinErr) return;
               const p = powderCheck.data;
-              void store().run(powderKey, 'diffraction', { kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm) });
+              void store().run(powderKey, 'diffraction', { kind: 'powder', structure, wavelength: lambda, radiation, twoThetaMin: p.twoThetaMin, twoThetaMax: p.twoThetaMax, step: p.profile.step, fwhm: Number(fwhm), wavelength2: ka2?.wavelength, ratio2: ka2?.ratio, dMin });
             }}
           >
             <div>
@@ -231,7 +262,21 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
                 <option value="electron">Electron</option>
               </select>
             </div>
-            <button type="submit" className={btn} disabled={lambda === null || !powderCheck.success || !!fwhmErr || powder.running}>
+            {radiation === 'electron' ? (
+              <div>
+                <label htmlFor="pw-dmin" className="block text-xs text-ink-soft">
+                  d min (Å, default 0.5)
+                </label>
+                <input id="pw-dmin" className={`${input} w-20 font-mono`} value={dMinText} onChange={(e) => setDMinText(e.target.value)} aria-invalid={!!dMinErr} placeholder="0.5" />
+                {dMinErr ? <p className="text-xs text-clay">{dMinErr}</p> : null}
+              </div>
+            ) : null}
+            {line2 ? (
+              <label className="flex items-center gap-1 text-xs text-ink-soft" title={`Kα2 at ${line2.wavelength} Å with ${line2.ratio} of the Kα1 intensity`}>
+                <input type="checkbox" checked={withKa2} onChange={(e) => setWithKa2(e.target.checked)} /> with Kα2
+              </label>
+            ) : null}
+            <button type="submit" className={btn} disabled={lambda === null || !powderCheck.success || !!fwhmErr || !!dMinErr || powder.running}>
               Compute powder pattern
             </button>
           </form>
@@ -298,6 +343,26 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
                 {measErr}
               </span>
             ) : null}
+            {canFit ? (
+              <button type="button" disabled={fit.running} className="rounded border border-tide px-2 py-0.5 text-xs text-tide hover:bg-tide-pale disabled:opacity-50" onClick={runFit} data-testid="fit-button">
+                {fit.running ? 'Fitting…' : fitted ? 'Fit again' : 'Fit zero shift, background, widths and cell'}
+              </button>
+            ) : null}
+            {fit.running ? (
+              <button type="button" className="text-xs text-clay underline" onClick={fit.cancel}>
+                cancel the fit
+              </button>
+            ) : null}
+            {fit.result && !fit.running ? (
+              <button type="button" className="text-xs text-ink-soft underline" onClick={() => setShowFit(!showFit)}>
+                {showFit ? 'show the unfitted overlay' : 'show the fit'}
+              </button>
+            ) : null}
+            {fit.error ? (
+              <span className="basis-full text-xs text-clay" role="alert">
+                Fit failed: {fit.error.message}
+              </span>
+            ) : null}
             {compareErr ? (
               <span className="basis-full text-xs text-clay" role="alert" data-testid="compare-error">
                 {compareErr}
@@ -305,6 +370,13 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
             ) : null}
           </div>
           {powder.error ? <p className="text-sm text-clay">{powder.error.message}</p> : null}
+          {powder.result?.warnings?.length ? (
+            <ul className="text-xs text-clay" role="alert">
+              {powder.result.warnings.map((w) => (
+                <li key={w}>{w}</li>
+              ))}
+            </ul>
+          ) : null}
           {/* The progress strip lies over the top of the plot while a profile is computed, so it leaves no empty
               band above the plot the rest of the time (and lets clicks through when idle). */}
           <div className="relative">

@@ -2,18 +2,22 @@
  * Comparison of a simulated powder profile with a measured one.
  *
  * Scale (and optional flat background) by weighted linear least squares, y_obs ≈ s·y_calc + b, with
- * Rietveld weights w = 1/y_obs (counting statistics, σ² = y_obs — common practice; points with
- * y_obs ≤ 0 get the weight of the smallest positive y_obs). Agreement factors (Young, The Rietveld
- * Method, IUCr/OUP 1993, ch. 1 definitions):
+ * weights w = 1/σ² from the file's σ column, else counting statistics w = 1/y_obs (fit/agreement.ts: a
+ * point with y_obs ≤ 0 weighs like its neighbours, never the most). Agreement factors (Young, The
+ * Rietveld Method, IUCr/OUP 1993, ch. 1 definitions, fit/agreement.ts):
  *   R_p  = Σ |y_obs − y_calc| / Σ |y_obs|
- *   R_wp = √( Σ w (y_obs − y_calc)² / Σ w y_obs² )
+ *   R_wp = √( Σ w (y_obs − y_calc)² / Σ w y_obs² ),  R_exp = √((N − P)/Σ w y_obs²),  χ² = (R_wp/R_exp)²
  * Measured x on the |Q| or d axis is converted to 2θ with the given wavelength; the simulation is
  * interpolated linearly onto the measured points (points outside the simulated range are left out).
  * Peak table: local maxima of the measured pattern above `peakThreshold` × (max − min) prominence over
- * the neighbouring minima, each matched to the nearest simulated reflection in 2θ (reflections at the
- * same 2θ count as one line: the strongest hkl, the summed intensity).
+ * the neighbouring minima, each named after the simulated line that contributes most at that 2θ among
+ * those within one peak width (fit/labels.ts; the nearest line only when none is within the width;
+ * reflections at the same 2θ count as one line: the strongest hkl, the summed intensity).
  */
 import type { MeasuredPattern } from '../formats/measured';
+import { agreement, powderWeights } from './fit/agreement';
+import { labelPeaks } from './fit/labels';
+import type { RefinedParameter } from './fit/refine';
 
 export interface SimReflection {
   twoTheta: number;
@@ -27,6 +31,10 @@ export interface CompareOptions {
   wavelength?: number;
   background?: boolean;
   peakThreshold?: number;
+  /** Peak width (FWHM, degrees) of the simulated profile at 2θ, for labelling; default 0.1°. */
+  fwhm?: (twoTheta: number) => number;
+  /** Lorentzian fraction of the simulated profile, for labelling; default 0.5. */
+  eta?: number;
 }
 
 export interface PeakMatch {
@@ -36,6 +44,8 @@ export interface PeakMatch {
   nearest: { twoTheta: number; d: number; hkl: number[] | null; intensity: number } | null;
   /** Measured − simulated, degrees 2θ. */
   misfit: number | null;
+  /** False when no simulated line lies within one peak width (then `nearest` is just the nearest). */
+  withinWidth?: boolean;
 }
 
 export interface CompareResult {
@@ -43,11 +53,18 @@ export interface CompareResult {
   background: number;
   rp: number;
   rwp: number;
+  rexp: number;
+  chi2: number;
+  /** Where the weights came from: the file's σ column or counting statistics. */
+  weights: 'sigma' | 'counts';
+  warnings: string[];
   points: number;
   twoTheta: Float64Array;
   observed: Float64Array;
   calculated: Float64Array;
   peaks: PeakMatch[];
+  /** Present when the result comes from a least-squares fit (fit/fit-pattern.ts). */
+  fit?: { parameters: RefinedParameter[]; initialRwp: number; iterations: number };
 }
 
 /** R_p and R_wp for given observed, calculated and weights. */
@@ -85,7 +102,8 @@ export function fitScale(y: ArrayLike<number>, x: ArrayLike<number>, w: ArrayLik
   return { scale: (sw * sxy - sx * sy) / det, background: (sxx * sy - sx * sxy) / det };
 }
 
-function toTwoTheta(m: MeasuredPattern, lambda?: number): Float64Array {
+/** The measured x axis as 2θ in degrees (|Q| and d converted with λ; NaN where unreachable). */
+export function toTwoTheta(m: MeasuredPattern, lambda?: number): Float64Array {
   if (m.axis === '2theta') return Float64Array.from(m.x);
   if (!(lambda && lambda > 0)) throw new Error(`wavelength: needed to convert the measured ${m.axis === 'q' ? '|Q|' : 'd'} axis to 2θ`);
   const out = new Float64Array(m.x.length);
@@ -148,51 +166,60 @@ export function comparePatterns(
   const x: number[] = [];
   const yo: number[] = [];
   const yc: number[] = [];
+  const sg: number[] = [];
   for (const i of idx) {
     const c = interpolate(sim.twoTheta, sim.intensity, tt[i]);
     if (!Number.isFinite(c)) continue;
     x.push(tt[i]);
     yo.push(measured.intensity[i]);
     yc.push(c);
+    if (measured.sigma) sg.push(measured.sigma[i]);
   }
   if (x.length < 3) throw new Error('range: fewer than three measured points lie inside the simulated 2θ range');
-  let minPos = Infinity;
-  for (const v of yo) if (v > 0) minPos = Math.min(minPos, v);
-  if (!Number.isFinite(minPos)) throw new Error('intensity: the measured pattern has no positive intensities');
-  const w = yo.map((v) => 1 / (v > 0 ? v : minPos));
-  const { scale, background } = fitScale(yo, yc, w, o.background ?? true);
+  if (!yo.some((v) => v > 0)) throw new Error('intensity: the measured pattern has no positive intensities');
+  const { w, source, warnings } = powderWeights(yo, measured.sigma ? sg : undefined);
+  const withBg = o.background ?? true;
+  const { scale, background } = fitScale(yo, yc, w, withBg);
   const calc = yc.map((v) => scale * v + background);
-  const { rp, rwp } = rFactors(yo, calc, w);
+  const { rp, rwp, rexp, chi2 } = agreement(yo, calc, w, withBg ? 2 : 1);
   const mp = findPeaks(x, yo, o.peakThreshold ?? 0.02);
-  const peaks: PeakMatch[] = mp.map((p) => {
-    let best: SimReflection | null = null;
-    for (const r of reflections) if (!best || Math.abs(r.twoTheta - p.x) < Math.abs(best.twoTheta - p.x)) best = r;
-    const d = o.wavelength ? o.wavelength / (2 * Math.sin((p.x * Math.PI) / 360)) : undefined;
-    // Reflections at one 2θ are one line: a cell written in P1 lists every symmetry-equivalent hkl on its
-    // own, and in a cubic cell different families share h²+k²+l² (so d = a/√(h²+k²+l²)). Name the
-    // strongest of them and give their summed intensity, not whichever came first in the list.
-    let line = best;
-    let sum = 0;
-    if (best) {
-      for (const r of reflections) {
-        if (Math.abs(r.twoTheta - best.twoTheta) > COINCIDENT_TWO_THETA) continue;
-        sum += r.intensity;
-        if (r.intensity > line!.intensity) line = r;
+  const width = o.fwhm ?? (() => 0.1);
+  // Reflections at one 2θ are one line: a cell written in P1 lists every symmetry-equivalent hkl on its
+  // own, and in a cubic cell different families share h²+k²+l² (so d = a/√(h²+k²+l²)). Name the
+  // strongest of them and give their summed intensity.
+  const lines: { twoTheta: number; d: number; hkl: number[] | null; intensity: number; top: number }[] = [];
+  for (const r of [...reflections].sort((p, q) => p.twoTheta - q.twoTheta)) {
+    const last = lines[lines.length - 1];
+    if (last && Math.abs(r.twoTheta - last.twoTheta) <= COINCIDENT_TWO_THETA) {
+      last.intensity += r.intensity;
+      if (r.intensity > last.top) {
+        last.top = r.intensity;
+        last.hkl = r.hkl;
       }
-    }
-    return {
-      twoTheta: p.x,
-      d,
-      intensity: p.y,
-      nearest: best && line ? { twoTheta: best.twoTheta, d: best.d, hkl: line.hkl, intensity: sum } : null,
-      misfit: best ? p.x - best.twoTheta : null,
-    };
-  });
+    } else lines.push({ twoTheta: r.twoTheta, d: r.d, hkl: r.hkl, intensity: r.intensity, top: r.intensity });
+  }
+  const labelled = labelPeaks(
+    mp,
+    lines.map((l) => ({ twoTheta: l.twoTheta, area: l.intensity * scale, fwhm: width(l.twoTheta), d: l.d, hkl: l.hkl })),
+    o.eta ?? 0.5,
+  );
+  const peaks: PeakMatch[] = labelled.map((p) => ({
+    twoTheta: p.twoTheta,
+    d: o.wavelength ? o.wavelength / (2 * Math.sin((p.twoTheta * Math.PI) / 360)) : undefined,
+    intensity: p.intensity,
+    nearest: p.line ? { twoTheta: p.line.twoTheta, d: p.line.d, hkl: p.line.hkl, intensity: p.line.area / (scale || 1) } : null,
+    misfit: p.misfit,
+    withinWidth: p.withinWidth,
+  }));
   return {
     scale,
     background,
     rp,
     rwp,
+    rexp,
+    chi2,
+    weights: source,
+    warnings,
     points: x.length,
     twoTheta: Float64Array.from(x),
     observed: Float64Array.from(yo),

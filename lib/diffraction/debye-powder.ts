@@ -6,7 +6,7 @@
  * interpolated linearly.
  */
 import type { Structure } from '../structure/types';
-import type { Radiation } from './form-factors';
+import { formFactorRangeWarning, neutronAbsorptionWarning, type Radiation } from './form-factors';
 import { debyeFromHistogram, pairHistogram, type PairHistogram } from './debye';
 import { polarization, qOfTwoTheta } from './lorentz-polarization';
 
@@ -29,6 +29,8 @@ export interface DebyePowderResult {
   intensity: Float64Array;
   /** Local maxima of the profile (2θ, intensity scaled so the largest = 100). */
   maxima: { twoTheta: number; q: number; d: number; intensity: number }[];
+  /** Form factors beyond their fit range; strong neutron absorbers (real parts of b only on this route). */
+  warnings: string[];
 }
 
 export function debyePowder(s: Structure, o: DebyePowderOptions): DebyePowderResult {
@@ -62,5 +64,13 @@ export function debyePowder(s: Structure, o: DebyePowderOptions): DebyePowderRes
     }
   }
   for (const p of maxima) p.intensity = (100 * p.intensity) / (top || 1);
-  return { twoTheta: tt, q, intensity: out, maxima: maxima.filter((p) => p.intensity >= 1) };
+  const warnings: string[] = [];
+  const range = formFactorRangeWarning(o.radiation, q[n - 1] / (4 * Math.PI));
+  if (range) warnings.push(range);
+  if (o.radiation === 'neutron') {
+    const zs = ph.groups.flatMap((g) => g.parts.map(([z]) => z));
+    const abs = neutronAbsorptionWarning(zs);
+    if (abs) warnings.push(`${abs}; this finite-patch route uses the real parts b′ only`);
+  }
+  return { twoTheta: tt, q, intensity: out, maxima: maxima.filter((p) => p.intensity >= 1), warnings };
 }

@@ -2,8 +2,13 @@
  * Powder (orientation-averaged) intensity of a finite cluster by the Debye scattering equation
  * (P. Debye, Ann. Phys. 351 (1915) 809; Warren, X-ray Diffraction, 1969, ch. 6):
  *
- *   I(Q) = Σ_i Σ_j f_i f_j sin(Q r_ij)/(Q r_ij)
- *        = Σ_a g_a² Σ_{i∈a} w_i²  +  2 Σ_{a≤b} g_a g_b Σ_bins h_ab(r) sin(Q r)/(Q r)
+ *   I(Q) = Σ_i Σ_j f_i f_j sin(Q r_ij)/(Q r_ij)   averaged over the random occupation of the sites:
+ *        = Σ_a ⟨f²⟩_a Σ_{i∈a} w_i  +  2 Σ_{a≤b} g_a g_b Σ_bins h_ab(r) sin(Q r)/(Q r)
+ *
+ * A site i occupied with probability w_i (occupancy) by species z with fractions x_z scatters on its own
+ * w_i Σ_z x_z f_z² = w_i ⟨f²⟩ — not (w_i ⟨f⟩)²; pairs of different sites are independent, so they carry
+ * w_i w_j ⟨f⟩_i ⟨f⟩_j (Warren, X-ray Diffraction, 1969, ch. 12: the difference is the Laue monotonic
+ * diffuse scattering of vacancies and mixed sites).
  *
  * with the pair histogram h_ab of pair-histogram.ts (bin centres r = (k + ½)Δ). I is in (form-factor
  * unit)² for the whole cluster; divide by N for per-atom values. Q in Å⁻¹ (|Q| = 4π sinθ/λ).
@@ -14,12 +19,12 @@
  */
 import type { Structure } from '../structure/types';
 import type { Radiation } from './form-factors';
-import { groupAtoms, groupFactor, type ScatteringGroup } from './scatterers';
+import { groupAtoms, groupFactor, groupSelfFactor, type ScatteringGroup } from './scatterers';
 import { accumulatePairs, histogramSpec, type PairHistogramSpec } from './pair-histogram';
 
 export interface PairHistogram extends PairHistogramSpec {
   hist: Float64Array;
-  /** Σ_{i∈a} w_i² per group (the i = j terms). */
+  /** Σ_{i∈a} w_i per group (the i = j terms carry w_i ⟨f²⟩). */
   self: Float64Array;
   groups: ScatteringGroup[];
   atoms: number;
@@ -31,7 +36,7 @@ export function pairHistogram(s: Structure, binWidth = 0.005): PairHistogram {
   const hist = new Float64Array(spec.nGroups * spec.nGroups * spec.nBins);
   accumulatePairs(s.positions, groupOf, weight, spec, hist);
   const self = new Float64Array(groups.length);
-  for (let i = 0; i < groupOf.length; i++) self[groupOf[i]] += weight[i] * weight[i];
+  for (let i = 0; i < groupOf.length; i++) self[groupOf[i]] += weight[i];
   return { ...spec, hist, self, groups, atoms: groupOf.length };
 }
 
@@ -87,18 +92,17 @@ export function debyeFromHistogram(ph: PairHistogram, q: Float64Array, radiation
   const ng = ph.groups.length;
   const out = new Float64Array(m);
   const g = new Float64Array(ng * m);
-  const bare = new Float64Array(ng * m);
+  const selfF = new Float64Array(ng * m);
   for (let a = 0; a < ng; a++) {
-    const undamped = { ...ph.groups[a], biso: 0 };
     for (let k = 0; k < m; k++) {
       const s2 = (q[k] / (4 * Math.PI)) ** 2;
       g[a * m + k] = groupFactor(ph.groups[a], radiation, s2);
-      bare[a * m + k] = groupFactor(undamped, radiation, s2);
+      selfF[a * m + k] = groupSelfFactor(ph.groups[a], radiation, s2);
     }
   }
   const tmp = new Float64Array(m);
   for (let a = 0; a < ng; a++) {
-    for (let k = 0; k < m; k++) out[k] += bare[a * m + k] ** 2 * ph.self[a];
+    for (let k = 0; k < m; k++) out[k] += selfF[a * m + k] * ph.self[a];
     for (let b = a; b < ng; b++) {
       sincSum(ph.hist, (a * ng + b) * ph.nBins, ph.nBins, ph.binWidth, q, tmp);
       for (let k = 0; k < m; k++) out[k] += 2 * g[a * m + k] * g[b * m + k] * tmp[k];
@@ -114,12 +118,12 @@ export function debyeExact(s: Structure, q: Float64Array, radiation: Radiation =
   const m = q.length;
   const out = new Float64Array(m);
   const g = groups.map((gr) => Float64Array.from(q, (qq) => groupFactor(gr, radiation, (qq / (4 * Math.PI)) ** 2)));
-  const bare = groups.map((gr) => Float64Array.from(q, (qq) => groupFactor({ ...gr, biso: 0 }, radiation, (qq / (4 * Math.PI)) ** 2)));
+  const selfF = groups.map((gr) => Float64Array.from(q, (qq) => groupSelfFactor(gr, radiation, (qq / (4 * Math.PI)) ** 2)));
   const p = s.positions;
   for (let i = 0; i < n; i++) {
     const gi = g[groupOf[i]];
-    const fi = bare[groupOf[i]];
-    for (let k = 0; k < m; k++) out[k] += (weight[i] * fi[k]) ** 2;
+    const fi = selfF[groupOf[i]];
+    for (let k = 0; k < m; k++) out[k] += weight[i] * fi[k];
     for (let j = i + 1; j < n; j++) {
       const r = Math.hypot(p[3 * j] - p[3 * i], p[3 * j + 1] - p[3 * i + 1], p[3 * j + 2] - p[3 * i + 2]);
       const gj = g[groupOf[j]];

@@ -1,8 +1,12 @@
 /**
- * Lorentz–polarization factor for Bragg–Brentano powder diffraction (International Tables Vol. C §6.2.5):
- *   X-rays, no monochromator:  Lp = (1 + cos²2θ) / (sin²θ cosθ)
- *   X-rays, monochromator at 2θ_m: Lp = (1 + cos²2θ_m cos²2θ) / (sin²θ cosθ (1 + cos²2θ_m))
+ * Lorentz–polarization factor for Bragg–Brentano powder diffraction (International Tables Vol. C §6.2.5,
+ * polarization after Azaroff, Acta Cryst. 8 (1955) 701, as given in ITC §6.2.2):
+ *   X-rays, no monochromator:  Lp = (1 + cos²2θ) / (2 sin²θ cosθ)
+ *   X-rays, monochromator at 2θ_m: Lp = (1 + cos²2θ_m cos²2θ) / ((1 + cos²2θ_m) sin²θ cosθ)
  *   neutrons, electrons (unpolarized, no polarization factor): L = 1 / (sin²θ cosθ)
+ * The polarization part is normalised so it is 1 at 2θ = 0 in every branch: the monochromator form tends
+ * to the unpolarised (1 + cos²2θ)/2 as 2θ_m → 0 (a monochromator at 2θ_m = 0 changes nothing), which is
+ * why the plain branch carries the 1/2 (relative intensities do not depend on it).
  * Angles in degrees.
  */
 import type { Radiation } from './form-factors';
@@ -15,7 +19,7 @@ export function lorentzPolarization(twoThetaDeg: number, radiation: Radiation, m
   const lorentz = 1 / (s * s * Math.cos(th));
   if (radiation !== 'xray') return lorentz;
   const c2 = Math.cos(2 * th) ** 2;
-  if (monochromator2ThetaDeg === undefined || monochromator2ThetaDeg === 0) return (1 + c2) * lorentz;
+  if (monochromator2ThetaDeg === undefined || monochromator2ThetaDeg === 0) return ((1 + c2) / 2) * lorentz;
   const cm = Math.cos(monochromator2ThetaDeg * DEG) ** 2;
   return ((1 + cm * c2) / (1 + cm)) * lorentz;
 }

@@ -3,10 +3,13 @@
  *
  * Rule (no space group needed, so it works for any cell, approximants included): reflections are
  * equivalent when their d agree to `dTol` (relative) and their |F|² agree to `f2Tol` (relative to the
- * larger, plus f2Tol·max|F|² absolute). This merges every Laue-class equivalent and Friedel pair, and
+ * larger, plus 1e-6·max|F|² absolute). This merges every Laue-class equivalent and Friedel pair, and
  * also reflections that are equal by accident (e.g. cubic 333 and 511 of fcc) — in a powder pattern those
- * coincide exactly anyway. The representative index is the lexicographically largest (h, k, l) of the set,
- * which gives the usual 111, 200, 220, 311 … for cubic lattices. Deterministic.
+ * coincide exactly anyway. The defaults (d to 1e-5, |F|² to 2e-3 relative, i.e. |F| to 0.1 %) absorb the
+ * rounding of coordinates a CIF carries (x = 0.333333 for 1/3 splits hexagonal {100} into 2 + 4 at 1e-6)
+ * while keeping families of different |F| apart (Laue class m-3: {hkl} and {khl} at one d).
+ * The representative index has the most non-negative entries, then is the lexicographically largest,
+ * which gives the usual 111, 200, 220, 311 … for cubic and 100, 110, 101 for hexagonal cells. Deterministic.
  */
 import type { HklFactors } from './structure-factor';
 
@@ -18,13 +21,22 @@ export interface MergedReflection {
 }
 
 export interface MergeOptions {
+  /** Relative d tolerance of a shell. Default 1e-5. */
   dTol?: number;
+  /** |F|² within f2Tol relative (plus 1e-6 of the largest |F|²) is one family. Default 2e-3. */
   f2Tol?: number;
   /** Drop reflections with |F|² below this fraction of the largest (systematic absences). Default 1e-10. */
   extinctTol?: number;
 }
 
 function lexGreater(a: ArrayLike<number>, ia: number, b: ArrayLike<number>, ib: number): boolean {
+  let na = 0;
+  let nb = 0;
+  for (let c = 0; c < 3; c++) {
+    if (a[ia + c] >= 0) na++;
+    if (b[ib + c] >= 0) nb++;
+  }
+  if (na !== nb) return na > nb;
   for (let c = 0; c < 3; c++) {
     if (a[ia + c] !== b[ib + c]) return a[ia + c] > b[ib + c];
   }
@@ -32,8 +44,8 @@ function lexGreater(a: ArrayLike<number>, ia: number, b: ArrayLike<number>, ib: 
 }
 
 export function mergeReflections(f: HklFactors, opts: MergeOptions = {}): MergedReflection[] {
-  const dTol = opts.dTol ?? 1e-6;
-  const f2Tol = opts.f2Tol ?? 1e-6;
+  const dTol = opts.dTol ?? 1e-5;
+  const f2Tol = opts.f2Tol ?? 2e-3;
   const extinctTol = opts.extinctTol ?? 1e-10;
   const m = f.d.length;
   let f2max = 0;
@@ -52,7 +64,7 @@ export function mergeReflections(f: HklFactors, opts: MergeOptions = {}): Merged
     while (p < shell.length) {
       const ref = f.f2[shell[p]];
       let q = p + 1;
-      while (q < shell.length && Math.abs(f.f2[shell[q]] - ref) <= f2Tol * ref + f2Tol * f2max) q++;
+      while (q < shell.length && Math.abs(f.f2[shell[q]] - ref) <= f2Tol * ref + 1e-6 * f2max) q++;
       let best = shell[p];
       let sumF2 = 0;
       let sumD = 0;

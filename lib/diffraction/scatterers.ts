@@ -72,3 +72,15 @@ export function groupFactor(group: ScatteringGroup, radiation: Radiation, s2: nu
   for (const [z, x] of group.parts) f += x * scatteringFactor(radiation, z, s2);
   return group.biso ? f * Math.exp(-group.biso * s2) : f;
 }
+
+/**
+ * Mean squared scattering factor of a group, ⟨f²⟩ = Σ_z x_z f_z(s)² (no Debye–Waller factor): the self
+ * (i = j) term of the Debye sum for a site occupied at random by species z with fractions x_z. It is
+ * larger than ⟨f⟩² = (Σ x_z f_z)² by the Laue monotonic term Σ x_z (f_z − ⟨f⟩)² (Warren, X-ray
+ * Diffraction, 1969, ch. 12).
+ */
+export function groupSelfFactor(group: ScatteringGroup, radiation: Radiation, s2: number): number {
+  let f2 = 0;
+  for (const [z, x] of group.parts) f2 += x * scatteringFactor(radiation, z, s2) ** 2;
+  return f2;
+}

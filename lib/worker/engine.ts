@@ -7,6 +7,7 @@ import type { Structure } from '../structure/types';
 import { composition } from '../structure/checks/composition';
 import { density } from '../structure/checks/density';
 import { braggPowder } from '../diffraction/powder';
+import { fitPattern, fitToComparison } from '../diffraction/fit/fit-pattern';
 import { debyePowder } from '../diffraction/debye-powder';
 import { approximantLatticeConstant } from '../models/icosahedral/approximant';
 import { TAU } from '../math/golden';
@@ -118,19 +119,22 @@ export function series(params: unknown, report: Report = () => {}): JobResultMap
 }
 
 function powder(job: Extract<JobRequest, { kind: 'powder' }>): PowderCurve {
-  const { structure: s, wavelength, radiation, twoThetaMin, twoThetaMax, step, fwhm } = job;
+  const { structure: s, wavelength, radiation, twoThetaMin, twoThetaMax, step, fwhm, wavelength2, ratio2, dMin } = job;
   if (s.cell) {
     // Caglioti with U = V = 0 gives a constant FWHM of √W degrees.
-    const r = braggPowder(s, { wavelength, radiation, twoThetaMin, twoThetaMax, profile: { U: 0, V: 0, W: fwhm * fwhm, eta: 0.5, step } });
+    const r = braggPowder(s, { wavelength, radiation, twoThetaMin, twoThetaMax, wavelength2, ratio2, dMin, profile: { U: 0, V: 0, W: fwhm * fwhm, eta: 0.5, step } });
     return {
       twoTheta: r.profile!.twoTheta,
       intensity: r.profile!.intensity,
       peaks: r.peaks.map((p) => ({ twoTheta: p.twoTheta, d: p.d, hkl: p.hkl, intensity: p.intensity })),
       wavelength,
+      wavelength2,
+      ratio2,
+      warnings: r.warnings,
     };
   }
   const r = debyePowder(s, { wavelength, radiation, twoThetaMin, twoThetaMax, step });
-  return { twoTheta: r.twoTheta, intensity: r.intensity, peaks: r.maxima.map((m) => ({ twoTheta: m.twoTheta, d: m.d, hkl: null, intensity: m.intensity })), wavelength };
+  return { twoTheta: r.twoTheta, intensity: r.intensity, peaks: r.maxima.map((m) => ({ twoTheta: m.twoTheta, d: m.d, hkl: null, intensity: m.intensity })), wavelength, warnings: r.warnings };
 }
 
 const AXIS_NAMES: Record<string, string> = { '5': 'a five-fold axis', '3': 'a three-fold axis', '2': 'a two-fold axis' };
@@ -153,7 +157,7 @@ export function zone(job: Extract<JobRequest, { kind: 'zone' }>): ZoneResult {
     .map((p) => {
       const q3: [number, number, number] = [0, 1, 2].map((k) => p.qx * frame.e1[k] + p.qy * frame.e2[k] + p.qz * frame.axis[k]) as [number, number, number];
       const found = aR
-        ? indexIcosahedralSpot(q3, aR, tol)
+        ? indexIcosahedralSpot(q3, aR, tol, 12, m?.family === 'icosahedral' ? (m.lattice ?? 'P') : 'P')
         : edge && Math.abs(q3[2]) <= tol
           ? indexOctagonalSpot([q3[0], q3[1]], edge, tol)
           : null;
@@ -191,5 +195,8 @@ export function runJob<K extends JobRequest['kind']>(job: Extract<JobRequest, { 
       return powder(j) as JobResultMap[K];
     case 'series':
       return series(j.params, report) as JobResultMap[K];
+    case 'fit':
+      report('least squares', 0.1);
+      return fitToComparison(fitPattern(j.measured, j.lines, j.options)) as JobResultMap[K];
   }
 }

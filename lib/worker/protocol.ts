@@ -2,6 +2,10 @@
  * Messages between the workspace and its Web Worker (engine.worker.ts). One request runs at a time per
  * worker ("lane"); cancelling terminates the worker, so a long cut never has to poll for a flag.
  */
+import type { MeasuredPattern } from '../formats/measured';
+import type { FitLine } from '../diffraction/fit/model';
+import type { FitPatternOptions } from '../diffraction/fit/fit-pattern';
+import type { CompareResult } from '../diffraction/compare';
 import type { Structure } from '../structure/types';
 
 export interface CutSummary {
@@ -40,6 +44,11 @@ export interface PowderCurve {
   intensity: Float64Array;
   peaks: { twoTheta: number; d: number; hkl: number[] | null; intensity: number }[];
   wavelength: number;
+  /** Kα2 line drawn in the profile (periodic cells), with its intensity ratio to the first line. */
+  wavelength2?: number;
+  ratio2?: number;
+  /** Warnings of the run (form-factor range, resolution, neutron absorption). */
+  warnings?: string[];
 }
 
 export interface SeriesRow {
@@ -64,8 +73,9 @@ export type JobRequest =
   | { kind: 'generate'; params: unknown }
   | { kind: 'estimate'; params: unknown }
   | { kind: 'zone'; structure: Structure; axis: string; qmax: number; slab: number; radiation: 'xray' | 'neutron' | 'electron' }
-  | { kind: 'powder'; structure: Structure; wavelength: number; radiation: 'xray' | 'neutron' | 'electron'; twoThetaMin: number; twoThetaMax: number; step: number; fwhm: number }
-  | { kind: 'series'; params: unknown };
+  | { kind: 'powder'; structure: Structure; wavelength: number; radiation: 'xray' | 'neutron' | 'electron'; twoThetaMin: number; twoThetaMax: number; step: number; fwhm: number; wavelength2?: number; ratio2?: number; dMin?: number }
+  | { kind: 'series'; params: unknown }
+  | { kind: 'fit'; measured: MeasuredPattern; lines: FitLine[]; options: FitPatternOptions };
 
 export interface JobResultMap {
   generate: { structure: Structure; summary: CutSummary };
@@ -73,6 +83,7 @@ export interface JobResultMap {
   zone: ZoneResult;
   powder: PowderCurve;
   series: { rows: SeriesRow[]; quasicrystalDensity?: number };
+  fit: CompareResult;
 }
 
 export type ToWorker = { id: number; job: JobRequest };

@@ -13,6 +13,11 @@ export interface SpotIndex {
   label: string;
   /** [h, h', k, k', l, l'] */
   hh: number[];
+  /**
+   * Six hyperlattice indices in the conventional cell: P and I as they are (I: Σ even); F in the doubled
+   * cell (2× the primitive reciprocal indices), so the F rule reads "all even or all odd".
+   */
+  hyper: number[];
   qPerp: number;
   /** |Q∥ − Q∥(index)|, Å⁻¹. */
   miss: number;
@@ -22,8 +27,23 @@ export function indexScale(aR: number): number {
   return Math.PI / (aR * Math.sqrt(2 + TAU));
 }
 
-/** Index Q∥ (Å⁻¹); tol in Å⁻¹ per component; lattice parity of the P hyperlattice (integer 6D indices). */
-export function indexIcosahedralSpot(q: [number, number, number], aR: number, tol: number, maxIndex = 12): SpotIndex | null {
+/**
+ * Does the CSG index belong to a reflection of the hyperlattice type (lib/models/icosahedral/hyperlattice.ts,
+ * item 4, dual lattices in the primitive reciprocal basis)? P: h ∈ Z⁶; F (D6 in real space): h ∈ Z⁶ or
+ * Z⁶ + ½(1,…,1); I: h ∈ Z⁶ with Σh even.
+ */
+function allowed(h: number[], lattice: 'P' | 'F' | 'I'): boolean {
+  const int = h.every(Number.isInteger);
+  if (lattice === 'P') return int;
+  if (lattice === 'I') return int && h.reduce((a, b) => a + b, 0) % 2 === 0;
+  return int || h.every((v) => Number.isInteger(v - 0.5));
+}
+
+/**
+ * Index Q∥ (Å⁻¹); tol in Å⁻¹ per component; only indices the hyperlattice type allows (the F superstructure
+ * reflections have half-integer primitive indices, odd ones in the conventional cell; I removes Σh odd).
+ */
+export function indexIcosahedralSpot(q: [number, number, number], aR: number, tol: number, maxIndex = 12, lattice: 'P' | 'F' | 'I' = 'P'): SpotIndex | null {
   const c = indexScale(aR);
   const per: { h: number; hp: number; perp: number; miss: number }[][] = q.map((qc) => {
     const v = qc / c;
@@ -40,9 +60,11 @@ export function indexIcosahedralSpot(q: [number, number, number], aR: number, to
     for (const y of per[1])
       for (const z of per[2]) {
         const hh = [x.h, x.hp, y.h, y.hp, z.h, z.hp];
-        if (!hyperFromCsg(hh).every(Number.isInteger)) continue;
+        const h = hyperFromCsg(hh);
+        if (!allowed(h, lattice)) continue;
         const qPerp = Math.hypot(x.perp, y.perp, z.perp);
-        if (!best || qPerp < best.qPerp) best = { label: csgFromHyper(hyperFromCsg(hh)).label, hh, qPerp, miss: Math.hypot(x.miss, y.miss, z.miss) };
+        const hyper = lattice === 'F' ? h.map((v) => 2 * v) : h;
+        if (!best || qPerp < best.qPerp) best = { label: csgFromHyper(h).label, hh, hyper, qPerp, miss: Math.hypot(x.miss, y.miss, z.miss) };
       }
   return best;
 }

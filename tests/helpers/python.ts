@@ -1,5 +1,5 @@
 /**
- * The one way tests call the reference libraries (numpy, scipy, spglib, ase, gemmi, xraylib) through
+ * The one way tests call the reference libraries (numpy, scipy, spglib, ase, gemmi, xraylib, pymatgen, periodictable) through
  * Debian's /usr/bin/python3, which `npm test` installs. A missing interpreter or module is a failure with
  * the package to install — a reference check never passes by skipping.
  */

@@ -9,7 +9,7 @@ import { groupAtoms } from '../../../lib/diffraction/scatterers';
 import { histogramSpec } from '../../../lib/diffraction/pair-histogram';
 import type { PairHistogram } from '../../../lib/diffraction/debye';
 import { DiffractionPool } from '../diffraction-pool/pool';
-import { parseWavelength, XRAY_LINES } from '../../../lib/diffraction/wavelengths';
+import { kalpha2Of, parseWavelength } from '../../../lib/diffraction/wavelengths';
 import { DIFFRACTION_UNITS, UNITS_COMMENT } from '../../../lib/diffraction/units';
 import { peakTableCsv } from '../../../lib/diffraction/peak-table';
 import { ENGINE_VERSION } from '../../../lib/version';
@@ -29,13 +29,7 @@ interface PowderFlags {
   monochromator?: number;
   kalpha2?: boolean;
   bin?: number;
-}
-
-function kalpha2Of(spec: string): number | undefined {
-  const m = /^(Cr|Co|Cu|Mo|Ag)\s*K(?:a|α|alpha)1?$/i.exec(spec.trim());
-  if (!m) return undefined;
-  const el = (m[1][0].toUpperCase() + m[1].slice(1).toLowerCase()) as keyof typeof XRAY_LINES;
-  return XRAY_LINES[el].ka2;
+  dMin?: number;
 }
 
 async function powderCommand(o: PowderFlags, cmd: Command): Promise<void> {
@@ -59,8 +53,8 @@ async function powderCommand(o: PowderFlags, cmd: Command): Promise<void> {
     range: [p.twoThetaMin, p.twoThetaMax],
   };
   if (s.cell) {
-    const lambda2 = p.kalpha2 ? kalpha2Of(String(p.wavelength)) : undefined;
-    if (p.kalpha2 && lambda2 === undefined) throw new CliError('--kalpha2: needs a Kα1 line name as --wavelength (e.g. CuKa1)');
+    const line2 = p.kalpha2 ? kalpha2Of(p.wavelength) : undefined;
+    if (p.kalpha2 && line2 === undefined) throw new CliError('--kalpha2: needs a Kα1 line name as --wavelength (e.g. CuKa1)');
     const res = compute(() =>
       braggPowder(s, {
         wavelength: lambda,
@@ -68,8 +62,9 @@ async function powderCommand(o: PowderFlags, cmd: Command): Promise<void> {
         twoThetaMin: p.twoThetaMin,
         twoThetaMax: p.twoThetaMax,
         monochromator2Theta: p.monochromator2Theta,
-        wavelength2: lambda2,
-        ratio2: 0.5,
+        wavelength2: line2?.wavelength,
+        ratio2: line2?.ratio,
+        dMin: o.dMin,
         profile: p.profile,
       }),
     );
@@ -80,12 +75,17 @@ async function powderCommand(o: PowderFlags, cmd: Command): Promise<void> {
       hkl: k.hkl,
       multiplicity: k.multiplicity,
       intensity: r(k.intensity, 4),
+      families: k.families.map((f) => ({ hkl: f.hkl, multiplicity: f.multiplicity })),
     }));
+    for (const w of res.warnings) process.stderr.write(`warning: ${w}\n`);
     const prof = res.profile!;
     if (o.format === 'json') {
       const out = {
         ...head,
         method: 'bragg',
+        dMin: r(res.dMin),
+        ...(line2 ? { kalpha2: { wavelength: line2.wavelength, ratio: line2.ratio } } : {}),
+        warnings: res.warnings,
         peaks,
         profile: { twoTheta: Array.from(prof.twoTheta, (x) => r(x)), intensity: Array.from(prof.intensity, (x) => r(x, 4)) },
       };
@@ -108,6 +108,7 @@ async function powderCommand(o: PowderFlags, cmd: Command): Promise<void> {
       binWidth: p.binWidth,
     }),
   );
+  for (const w of res.warnings) process.stderr.write(`warning: ${w}\n`);
   const peaks = res.maxima.map((k) => ({ twoTheta: r(k.twoTheta), d: r(k.d), q: r(k.q), hkl: null, multiplicity: null, intensity: r(k.intensity, 4) }));
   if (o.format === 'json') {
     const out = {
@@ -134,7 +135,7 @@ async function parallelHistogram(s: Parameters<typeof groupAtoms>[0], binWidth: 
   try {
     const hist = await pool.pairHistogram(s.positions, groupOf, weight, spec);
     const self = new Float64Array(groups.length);
-    for (let i = 0; i < groupOf.length; i++) self[groupOf[i]] += weight[i] * weight[i];
+    for (let i = 0; i < groupOf.length; i++) self[groupOf[i]] += weight[i];
     return { ...spec, hist, self, groups, atoms: groupOf.length };
   } finally {
     await pool.close();
@@ -157,7 +158,8 @@ export function registerDiffractPowder(d: Command): void {
     .option('--eta <eta>', 'pseudo-Voigt Lorentzian fraction', number)
     .option('--background <b0,b1,...>', 'background polynomial in 2θ', numbers)
     .option('--monochromator <deg>', 'monochromator angle 2θ_m (degrees)', number)
-    .option('--kalpha2', 'add the Kα2 line to the profile (ratio 0.5)')
+    .option('--kalpha2', 'add the Kα2 line to the profile (I(Kα2)/I(Kα1) of the element, about 0.51)')
+    .option('--d-min <Å>', 'resolution: leave out reflections with d below this (electrons default to 0.5 Å)', number)
     .option('--bin <Å>', 'pair-distance bin for finite patches (Å)', number)
     .action((o: PowderFlags, cmd: Command) => powderCommand(o, cmd));
 }

@@ -90,4 +90,20 @@ describe('diffract command line', () => {
     // A bad step is the user's to fix (exit 2, the schema's message), not a crash.
     expect(await fails(['diffract', 'compare', '--input', cuFile, '--measured', mf, '--step', '-1'])).toMatch(/step must be positive/);
   });
+
+  it('compare --fit: prints every fitted parameter with σ and R before/after; a zero shift of +0.06° comes back (plumbing check — the fit itself is tested against numpy + gemmi in tests/unit/diffraction/fit)', async () => {
+    const sim = JSON.parse(await cli(['diffract', 'powder', '--input', cuFile, '--range', '30:100', '--step', '0.01', '--U', '0', '--V', '0', '--W', '0.01']));
+    const lines = ['2theta counts'];
+    sim.profile.twoTheta.forEach((t: number, i: number) => lines.push(`${(t + 0.06).toFixed(4)} ${200 * sim.profile.intensity[i] + 50}`));
+    const mf = join(dir, 'shifted.xy');
+    writeFileSync(mf, lines.join('\n'));
+    const c = JSON.parse(await cli(['diffract', 'compare', '--input', cuFile, '--measured', mf, '--fit', '--U', '0', '--V', '0', '--W', '0.01', '--bg-terms', '2', '--no-lattice']));
+    expect(Object.keys(c.parameters).sort()).toEqual(['U', 'V', 'W', 'background0', 'background1', 'scale', 'zero']);
+    expect(c.parameters.zero.value).toBeCloseTo(0.06, 3);
+    expect(c.parameters.zero.sigma).toBeGreaterThan(0);
+    expect(c.before.rwp).toBeGreaterThan(0.2);
+    expect(c.rwp).toBeLessThan(0.01);
+    expect(c.peaks[0].label.hkl).toEqual([1, 1, 1]);
+    expect(await fails(['diffract', 'compare', '--input', cuFile, '--measured', mf, '--fit', '--bg-terms', '40'])).toMatch(/background: need 0 to 12/);
+  });
 });

@@ -114,10 +114,14 @@ describe('structure factors and powder pattern', () => {
     expect(checked).toBeGreaterThan(50);
   });
 
-  it('Lp (International Tables Vol. C §6.2.5) at 2θ = 60°, worked by hand: 10/√3 plain, 8/√3 for neutrons, 6.8/√3 behind a 2θ_m = 60° monochromator', () => {
+  it('Lp (International Tables Vol. C §6.2.5, polarization of ITC §6.2.2 / Azaroff 1955) at 2θ = 60°, worked by hand: 5/√3 plain, 8/√3 for neutrons, 6.8/√3 behind a 2θ_m = 60° monochromator', () => {
     // θ = 30°: sin²θ = 1/4, cosθ = √3/2, cos²2θ = 1/4, so the Lorentz part 1/(sin²θ cosθ) = 8/√3.
-    // X-rays, no monochromator: (1 + 1/4)·8/√3 = 10/√3 = 5.7735027.
-    expect(lorentzPolarization(60, 'xray')).toBeCloseTo(5.7735027, 7);
+    // X-rays, no monochromator: (1 + 1/4)/2·8/√3 = 5/√3 = 2.8867513.
+    expect(lorentzPolarization(60, 'xray')).toBeCloseTo(2.8867513, 7);
+    // (1 + cos²2θ_m cos²2θ)/(1 + cos²2θ_m) → (1 + cos²2θ)/2 as 2θ_m → 0: a monochromator at 0° is no
+    // monochromator (the old code halved here).
+    expect(lorentzPolarization(60, 'xray', 1e-6)).toBeCloseTo(lorentzPolarization(60, 'xray'), 9);
+    expect(lorentzPolarization(60, 'xray', 0.5)).toBeCloseTo(2.8867513, 3);
     // Neutrons and electrons carry no polarization factor: 8/√3 = 4.6188022.
     expect(lorentzPolarization(60, 'neutron')).toBeCloseTo(4.6188022, 7);
     expect(lorentzPolarization(60, 'electron')).toBeCloseTo(4.6188022, 7);
@@ -225,7 +229,7 @@ print(json.dumps(sorted([[d,100*i/m] for d,i in out], key=lambda t:-t[0])))`);
     }
     const s = crystal(cubic(5.64), sites);
     for (const [radiation, calc, lambda] of [['neutron', 'N', 1.5], ['electron', 'E', 0.7]] as const) {
-      const ours = byShell(braggPowder(s, { wavelength: lambda, radiation, twoThetaMin: 20, twoThetaMax: 140 }).peaks);
+      const ours = byShell(braggPowder(s, { wavelength: lambda, radiation, twoThetaMin: 20, twoThetaMax: 140, dMin: 0.3 }).peaks);
       const ref = gemmiPowder(5.64, 'F m -3 m', [['Na', 0, 0, 0], ['Cl', 0.5, 0.5, 0.5]], 0, lambda, calc);
       expect(ref.length).toBeGreaterThan(5);
       expect(ours.length).toBe(ref.length);

@@ -122,9 +122,57 @@ print(json.dumps(out))`,
     let max = 0;
     for (const v of exact) max = Math.max(max, Math.abs(v));
     for (let k = 0; k < q.length; k++) expect(Math.abs(binned[k] - exact[k]) / max).toBeLessThan(1e-3);
-    // forward scattering (Σ w f(0))² with 38 half-occupied Fe sites
+    // forward scattering: pairs give (Σ w f)² − Σ w² f², the self terms Σ w f² (Warren ch. 12), so
+    // I(0) = (Σ w f)² + Σ (w − w²) f² with 38 half-occupied Fe sites: (131 f)² + 38·0.25 f²
     const f0 = xrayFormFactor(26, 0);
-    expect(exact[0] / ((112 + 0.5 * 38) * f0) ** 2).toBeCloseTo(1, 9);
+    expect(exact[0] / ((131 * f0) ** 2 + 38 * 0.25 * f0 * f0)).toBeCloseTo(1, 9);
+  });
+
+  it('vacancies and mixed sites: the self term is w·Σ x_z f_z² (Warren ch. 12) — against numpy averaging the plain Debye sum over every occupation of the sites', () => {
+    // Five sites; each state is (species or vacancy) with its probability. Site classes give the mix and the occupancy.
+    const pos = [0, 0, 0, 2.6, 0.3, 0, 0.4, 2.5, 0.2, 1.9, 1.7, 2.2, -1.5, 0.8, 2.9];
+    const s = mk(pos, [13, 13, 26, 13, 46]);
+    s.site = Uint16Array.from([0, 1, 2, 3, 4]);
+    s.siteClasses = [
+      { name: 'Al', species: 13 },
+      { name: 'AlPd', species: 13, mix: { 13: 0.6, 46: 0.4 } },
+      { name: 'Fe half', species: 26, occupancy: 0.5 },
+      { name: 'AlMn + vacancy', species: 13, mix: { 13: 0.5, 25: 0.3 } },
+      { name: 'Pd 0.7', species: 46, occupancy: 0.7 },
+    ];
+    const states = [
+      [['Al', 1]],
+      [['Al', 0.6], ['Pd', 0.4]],
+      [['Fe', 0.5], [null, 0.5]],
+      [['Al', 0.5], ['Mn', 0.3], [null, 0.2]],
+      [['Pd', 0.7], [null, 0.3]],
+    ];
+    const q = Float64Array.from([0.01, 0.7, 1.5, 2.8, 4.1, 6.0]);
+    const ref = runPython<number[]>(
+      `import sys, json, itertools, numpy as np, gemmi
+d = json.load(sys.stdin)
+p = np.array(d["pos"]).reshape(-1, 3)
+out = []
+for q in d["q"]:
+    s2 = (q / (4 * np.pi)) ** 2
+    total = 0.0
+    for conf in itertools.product(*d["states"]):
+        prob = np.prod([c[1] for c in conf])
+        idx = [i for i, c in enumerate(conf) if c[0] is not None]
+        f = np.array([gemmi.Element(conf[i][0]).it92.calculate_sf(s2) for i in idx])
+        P = p[idx]
+        r = np.linalg.norm(P[:, None, :] - P[None, :, :], axis=-1)
+        total += prob * float((np.outer(f, f) * np.sinc(q * r / np.pi)).sum())
+    out.append(total)
+print(json.dumps(out))`,
+      JSON.stringify({ pos, states, q: Array.from(q) }),
+    );
+    const exact = debyeExact(s, q);
+    const binned = debyeFromHistogram(pairHistogram(s, 0.0001), q);
+    q.forEach((_, k) => {
+      expect(Math.abs(exact[k] - ref[k]) / ref[k]).toBeLessThan(1e-9);
+      expect(Math.abs(binned[k] - ref[k]) / ref[k]).toBeLessThan(1e-4);
+    });
   });
 
   it('balanced row ranges cover all pairs with about equal counts', () => {
