@@ -14,7 +14,7 @@
  * and Greengard & Lee, SIAM Review 46 (2004) 443, the same idea as sampling a Gaussian-blurred density and
  * dividing the blur out again, Ten Eyck, Acta Cryst. A33 (1977) 486.) Two errors remain, both bounded
  * relative to each atom's term: aliasing ĝ(N − K)/ĝ(K) = exp(−2π²c²(1 − 2K/N)) for the largest index K used,
- * and truncating g to P points, about exp(−P²/8c²). `tolerance` ε sets c and P so both are ≤ ε:
+ * and truncating g to P points, about exp(−P²/8c²). With ε = tolerance/10, c and P are set so both are ≤ ε:
  *   c² = ln(1/ε) / (2π²(1 − 2K/N)),  P = ⌈√(8c² ln(1/ε))⌉.
  * The FFT is pruned: N transforms along z, then one along y for each l that is kept.
  *
@@ -25,10 +25,15 @@
 import FFT from 'fft.js';
 
 export interface GridSumOptions {
-  /** Relative error bound per atom term (aliasing and truncation each ≤ this). Default 1e-7. */
+  /**
+   * Error bound: |ΔF| ≤ tolerance · Σ_j |w_j| for every reflection (tolerance/10 is used for aliasing and for
+   * truncation of each of the two gridded directions, which leaves room for the sum of the tails). Default 1e-5.
+   */
   tolerance?: number;
   /** Fraction of the planes done, 0..1. */
   onProgress?: (fraction: number) => void;
+  /** The largest |k| and |l| wanted in plane h (default kMax, lMax): fewer y transforms for the outer planes. */
+  planeExtent?: (h: number) => [number, number];
 }
 
 export interface GridPlan {
@@ -39,16 +44,35 @@ export interface GridPlan {
   p: number;
 }
 
-/** Grid size and Gaussian for indices |k|, |l| ≤ kMax at relative tolerance eps. */
-export function gridPlan(kMax: number, eps: number): GridPlan {
-  if (!(eps > 0 && eps < 0.1)) throw new Error(`tolerance: must be between 0 and 0.1, got ${eps}`);
-  // Oversampling about 2 (N ≥ 2(2K+1)) keeps 1 − 2K/N ≥ ½ and the kernel narrow; N must be a power of 2 for fft.js.
-  let n = 16;
-  while (n < 2 * (2 * kMax + 1)) n *= 2;
+/** Gaussian width c (grid steps) and spreading width P for an n-point grid, indices ≤ kMax, tolerance eps. */
+function gaussianFor(n: number, kMax: number, eps: number): GridPlan {
   const ln = Math.log(1 / eps);
   const c2 = ln / (2 * Math.PI ** 2 * (1 - (2 * kMax) / n));
   const p = Math.min(n, Math.ceil(Math.sqrt(8 * c2 * ln)));
   return { n, c: Math.sqrt(c2), p };
+}
+
+/**
+ * Grid size and Gaussian for indices |k|, |l| ≤ kMax at relative tolerance eps. The grid is a power of 2
+ * (fft.js) with n ≥ 2kMax + 2 and 1 − 2kMax/n ≥ 0.15; among those the one with the least estimated work per
+ * plane, atoms·P² (spreading) + 1.5·(n + 2kMax + 1)·n·log₂n (pruned FFT), is taken: a coarse grid needs a wider
+ * Gaussian, a fine one longer transforms.
+ */
+export function gridPlan(kMax: number, eps: number, atoms = 1000): GridPlan {
+  if (!(eps > 0 && eps < 0.1)) throw new Error(`tolerance: must be between 0 and 0.1, got ${eps}`);
+  let best: GridPlan | null = null;
+  let bestCost = Infinity;
+  for (let n = 16; n <= 1 << 14; n *= 2) {
+    if (n < 2 * kMax + 2 || 1 - (2 * kMax) / n < 0.15) continue;
+    const plan = gaussianFor(n, kMax, eps);
+    const cost = atoms * plan.p * plan.p + 1.5 * (n + 2 * kMax + 1) * n * Math.log2(n);
+    if (cost < bestCost) {
+      best = plan;
+      bestCost = cost;
+    }
+    if (n > 8 * (2 * kMax + 1)) break;
+  }
+  return best!;
 }
 
 /** Per-atom start index and P weights of the truncated Gaussian around fractional coordinate u. */
@@ -66,7 +90,7 @@ function spreadWeights(u: number, plan: GridPlan, at: number, w: Float64Array): 
 /**
  * Plane by plane, the sums G_g(h, k, l) for 0 ≤ h ≤ hMax and |k| ≤ kMax, |l| ≤ lMax. For each plane and
  * group, onPlane(h, g, values) gets values interleaved (re, im) at index 2·((k + kMax)(2 lMax + 1) + l + lMax);
- * the array is reused for the next call, so copy out what you keep.
+ * the array is reused for the next call, so copy out what you keep (only the planeExtent part is fresh).
  */
 export function gridPlaneSums(
   frac: Float64Array,
@@ -79,8 +103,10 @@ export function gridPlaneSums(
   onPlane: (h: number, g: number, values: Float64Array) => void,
   opts: GridSumOptions = {},
 ): GridPlan {
-  const eps = opts.tolerance ?? 1e-7;
-  const plan = gridPlan(Math.max(kMax, lMax), eps);
+  const tolerance = opts.tolerance ?? 1e-5;
+  if (!(tolerance > 0 && tolerance < 0.1)) throw new Error(`tolerance: must be between 0 and 0.1, got ${tolerance}`);
+  const eps = tolerance / 10;
+  const plan = gridPlan(Math.max(kMax, lMax), eps, groupOf.length);
   const { n, c, p } = plan;
   const mask = n - 1;
   const atoms = groupOf.length;
@@ -105,8 +131,9 @@ export function gridPlaneSums(
   const dl = Float64Array.from({ length: 2 * lMax + 1 }, (_, i) => decon(i - lMax));
   const nl = 2 * lMax + 1;
   const fft = new FFT(n);
-  const inp = fft.createComplexArray() as number[];
-  const out = fft.createComplexArray() as number[];
+  // Float64Arrays only (fft.js stays monomorphic), so a grid row can be transformed in place of a copy.
+  const inp = new Float64Array(2 * n);
+  const out = new Float64Array(2 * n);
   // Padded planes (n + p)², so a patch never wraps while spreading; the pad is folded back before the FFT.
   const wide = n + p;
   const grids = Array.from({ length: nGroups }, () => new Float64Array(2 * wide * wide));
@@ -148,13 +175,13 @@ export function gridPlaneSums(
         for (let i = 0; i < 2 * n; i++) grid[2 * (r - n) * wide + i] += grid[2 * r * wide + i];
       }
     }
+    const [kNeed, lNeed] = opts.planeExtent?.(h) ?? [kMax, lMax];
     for (let g = 0; g < nGroups; g++) {
       const grid = grids[g];
       // z transforms of every row; forward FFT gives Σ e^{−2πi m n/N}, so +l sits at index (−l) mod N.
       for (let gy = 0; gy < n; gy++) {
         const base = 2 * gy * wide;
-        for (let i = 0; i < 2 * n; i++) inp[i] = grid[base + i];
-        fft.transform(out, inp);
+        fft.transform(out, grid.subarray(base, base + 2 * n));
         for (let l = -lMax; l <= lMax; l++) {
           const src = 2 * ((n - l) & mask);
           const dst = 2 * (gy * nl + l + lMax);
@@ -163,13 +190,13 @@ export function gridPlaneSums(
         }
       }
       // y transforms of every kept l.
-      for (let li = 0; li < nl; li++) {
+      for (let li = lMax - Math.min(lNeed, lMax); li <= lMax + Math.min(lNeed, lMax); li++) {
         for (let gy = 0; gy < n; gy++) {
           inp[2 * gy] = mid[2 * (gy * nl + li)];
           inp[2 * gy + 1] = mid[2 * (gy * nl + li) + 1];
         }
         fft.transform(out, inp);
-        for (let k = -kMax; k <= kMax; k++) {
+        for (let k = -Math.min(kNeed, kMax); k <= Math.min(kNeed, kMax); k++) {
           const src = 2 * ((n - k) & mask);
           const s = dk[k + kMax] * dl[li];
           const dst = 2 * ((k + kMax) * nl + li);

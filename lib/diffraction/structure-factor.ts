@@ -85,11 +85,11 @@ export type StructureFactorMethod = 'auto' | 'direct' | 'grid';
 export interface StructureFactorOptions {
   /**
    * direct: the exact sum over atoms and reflections (the reference). grid: Gaussian gridding + FFT
-   * (sf-grid.ts), relative error per atom term ≤ tolerance. auto (default): grid for 3D cells when
+   * (sf-grid.ts), |ΔF| ≤ tolerance · Σ|w_j| (× the form factor). auto (default): grid for 3D cells when
    * atoms × reflections exceeds GRID_THRESHOLD, direct otherwise.
    */
   method?: StructureFactorMethod;
-  /** Relative error bound for the grid method (default 1e-7). */
+  /** Error bound of the grid method relative to Σ_j |w_j f_j| (default 1e-5, see sf-grid.ts). */
   tolerance?: number;
   onProgress?: (fraction: number) => void;
 }
@@ -165,6 +165,12 @@ function gridListSums(
   const fill = start.slice(0, hMax + 1);
   for (let i = 0; i < m; i++) order[fill[Math.abs(hkl[3 * i])]++] = i;
   const nl = 2 * lMax + 1;
+  const need = new Int32Array(2 * (hMax + 1));
+  for (let i = 0; i < m; i++) {
+    const h = Math.abs(hkl[3 * i]);
+    need[2 * h] = Math.max(need[2 * h], Math.abs(hkl[3 * i + 1]));
+    need[2 * h + 1] = Math.max(need[2 * h + 1], Math.abs(hkl[3 * i + 2]));
+  }
   gridPlaneSums(
     frac,
     groupOf,
@@ -184,7 +190,7 @@ function gridListSums(
         gim[g * m + i] = neg ? -v[at + 1] : v[at + 1];
       }
     },
-    opts,
+    { ...opts, planeExtent: (h) => [need[2 * h], need[2 * h + 1]] },
   );
 }
 
@@ -205,6 +211,14 @@ export function combineGroups(
   const g = [0, 1, 2].map((i) => [0, 1, 2].map((j) => recip[i][0] * recip[j][0] + recip[i][1] * recip[j][1] + recip[i][2] * recip[j][2]));
   const fac = new Float64Array(groups.length);
   let lastS2 = -1;
+  // Cubic metric: |G|² = n/a² with n = h² + k² + l², so the scattering factors are tabulated by the integer n.
+  const cubicMetric = g[0][1] === 0 && g[0][2] === 0 && g[1][2] === 0 && g[0][0] === g[1][1] && g[1][1] === g[2][2];
+  let table: Float64Array | null = null;
+  if (cubicMetric && m > 0) {
+    let nMax = 0;
+    for (let i = 0; i < 3 * m; i += 3) nMax = Math.max(nMax, hkl[i] * hkl[i] + hkl[i + 1] * hkl[i + 1] + hkl[i + 2] * hkl[i + 2]);
+    if (nMax < 1e7) table = new Float64Array((nMax + 1) * groups.length).fill(NaN);
+  }
   for (let i = 0; i < m; i++) {
     const h = hkl[3 * i];
     const k = hkl[3 * i + 1];
@@ -212,8 +226,12 @@ export function combineGroups(
     const G2 = g[0][0] * h * h + g[1][1] * k * k + g[2][2] * l * l + 2 * (g[0][1] * h * k + g[0][2] * h * l + g[1][2] * k * l);
     d[i] = 1 / Math.sqrt(G2);
     const s2 = G2 / 4;
-    // Scattering factors depend on |G| only: reuse them while consecutive reflections share it.
-    if (s2 !== lastS2) {
+    if (table) {
+      const at = (h * h + k * k + l * l) * groups.length;
+      if (Number.isNaN(table[at])) for (let c = 0; c < groups.length; c++) table[at + c] = groupFactor(groups[c], radiation, s2);
+      for (let c = 0; c < groups.length; c++) fac[c] = table[at + c];
+    } else if (s2 !== lastS2) {
+      // Scattering factors depend on |G| only: reuse them while consecutive reflections share it.
       for (let c = 0; c < groups.length; c++) fac[c] = groupFactor(groups[c], radiation, s2);
       lastS2 = s2;
     }

@@ -4,7 +4,7 @@
  * < 3 s, 8/5 Cu Kα1 < 5 s.
  *
  * Ours: every reflection with 2θ ≤ 120° (one of each Friedel pair), |F|² by the grid route (sf-grid.ts,
- * tolerance 1e-7), from the Structure to |F|² including the hkl list and form factors.
+ * tolerance 1e-5, default), from the Structure to |F|² including the hkl list and form factors.
  * gemmi (Debian python3-gemmi, /usr/bin/python3, OMP_NUM_THREADS=1): the same atoms in P1, its density route
  * DensityCalculatorX (d_min, rate 1.5, Refmac-compatible blur) → transform_map_to_f_phi → prepare_asu_data,
  * F scaled by reciprocal_space_multiplier — its fastest way to all F of a large cell. Its direct per-reflection

@@ -101,7 +101,7 @@ function errors(re: Float64Array, im: Float64Array, ref: [number, number][]): { 
 }
 
 describe('grid structure factors against gemmi', () => {
-  it('triclinic cell, three groups with occupancy and B, full list with ±h: |ΔF| ≤ 1e-6 of max |F|, strong |F|² within 1e-6 (gemmi direct sum)', () => {
+  it('triclinic cell, three groups with occupancy and B, full list with ±h: |ΔF| ≤ 1e-5 of max |F| (the default tolerance), strong |F|² (≥ 1 % of the largest, so |F| ≥ 0.1 max) within 2e-4 (gemmi direct sum)', () => {
     const s = triclinic();
     const hkl = enumerateHkl(s, 1.1);
     const ref = gemmiF(s, hkl);
@@ -111,25 +111,30 @@ describe('grid structure factors against gemmi', () => {
     const eg = errors(grid.re, grid.im, ref);
     const ed = errors(direct.re, direct.im, ref);
     expect(eg.strong).toBeGreaterThan(20);
-    expect(eg.dF).toBeLessThan(1e-6);
-    expect(eg.dF2strong).toBeLessThan(1e-6);
+    expect(eg.dF).toBeLessThan(1e-5);
+    expect(eg.dF2strong).toBeLessThan(2e-4);
+    // A tighter tolerance tightens the result in proportion.
+    const tight = structureFactorsHkl(s, hkl, 'xray', { method: 'grid', tolerance: 1e-8 });
+    const et = errors(tight.re, tight.im, ref);
+    expect(et.dF).toBeLessThan(1e-8);
+    expect(et.dF2strong).toBeLessThan(2e-7);
     // The exact route is the reference mode: rounding only.
     expect(ed.dF).toBeLessThan(1e-10);
   });
 
-  it('the 2/1 icosahedral approximant (Al), Friedel-unique list to d = 0.9 Å: strong |F|² within 1e-6 of gemmi, and a looser tolerance stays within its bound', () => {
+  it('the 2/1 icosahedral approximant (Al), Friedel-unique list to d = 0.9 Å: within the default tolerance of gemmi, and a looser tolerance stays within its bound', () => {
     const s = generate({ family: 'icosahedral', mode: 'approximant', order: '2/1', aR: 4.6, species: 'Al' } as never);
     const f = friedelUniqueFactors(s, 0.9, 'xray', { method: 'grid' });
     const ref = gemmiF(s, f.hkl);
     const e = errors(f.re, f.im, ref);
     expect(e.strong).toBeGreaterThan(50);
-    expect(e.dF).toBeLessThan(1e-6);
-    expect(e.dF2strong).toBeLessThan(1e-6);
-    const loose = friedelUniqueFactors(s, 0.9, 'xray', { method: 'grid', tolerance: 1e-4 });
+    expect(e.dF).toBeLessThan(1e-5);
+    expect(e.dF2strong).toBeLessThan(2e-4);
+    const loose = friedelUniqueFactors(s, 0.9, 'xray', { method: 'grid', tolerance: 1e-3 });
     const el = errors(loose.re, loose.im, ref);
-    // Error per atom term ≤ 2·1e-4 (aliasing + truncation); summed over N atoms ≤ 2e-4·Σ f ≈ 2e-4·max |F|.
-    expect(el.dF).toBeLessThan(2e-4);
-    expect(el.dF).toBeGreaterThan(1e-7); // the looser grid really is coarser
+    // |ΔF| ≤ tolerance · Σ f, and Σ f ≈ max |F| at the lowest angles of an approximant (most atoms in phase).
+    expect(el.dF).toBeLessThan(1e-3);
+    expect(el.dF).toBeGreaterThan(1e-6); // the looser grid really is coarser
     expect(f.multiplicity.every((m) => m === 2)).toBe(true);
   });
 });
