@@ -12,7 +12,8 @@
  *
  * (Poisson summation; this is the Gaussian gridding of Dutt & Rokhlin, SIAM J. Sci. Comput. 14 (1993) 1368,
  * and Greengard & Lee, SIAM Review 46 (2004) 443, the same idea as sampling a Gaussian-blurred density and
- * dividing the blur out again, Ten Eyck, Acta Cryst. A33 (1977) 486.) Two errors remain, both bounded
+ * dividing the blur out again, Ten Eyck, Acta Cryst. A33 (1977) 486; volumes and pages cited from memory.)
+ * Two errors remain, both bounded
  * relative to each atom's term: aliasing ĝ(N − K)/ĝ(K) = exp(−2π²c²(1 − 2K/N)) for the largest index K used,
  * and truncating g to P points, about exp(−P²/8c²). With ε = tolerance/10, c and P are set so both are ≤ ε:
  *   c² = ln(1/ε) / (2π²(1 − 2K/N)),  P = ⌈√(8c² ln(1/ε))⌉.
