@@ -5,6 +5,8 @@ export * from './scatterers';
 export * from './hkl-sum';
 export * from './cartesian-sum';
 export * from './structure-factor';
+export * from './sf-grid';
+export * from './sf-friedel';
 export * from './merge';
 export * from './lorentz-polarization';
 export * from './profile';

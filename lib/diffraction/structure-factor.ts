@@ -8,12 +8,13 @@
  * has |G| = 1/d and Q = 2π G; fractional x_i = r · b_i.
  */
 import { toFractional } from '../math/frac';
-import { reciprocal, vecMat, type Mat3 } from '../math/mat3';
+import { reciprocal, type Mat3 } from '../math/mat3';
 import { norm } from '../math/vec3';
 import type { Structure } from '../structure/types';
 import type { Radiation } from './form-factors';
 import { groupAtoms, groupFactor } from './scatterers';
 import { hklPartialSums, rowsFromSortedHkl } from './hkl-sum';
+import { gridPlaneSums, type GridSumOptions } from './sf-grid';
 
 export interface HklFactors {
   /** Packed h k l, sorted by h, k, l. */
@@ -31,6 +32,14 @@ export interface HklFactors {
  * the missing directions are held at 0 (the extra cell vectors are only padding there).
  */
 export function enumerateHkl(s: Structure, dMin: number): Int32Array {
+  return enumerateHklRange(s, dMin, false);
+}
+
+/**
+ * As enumerateHkl, or with `half` only one of each Friedel pair ±h: h > 0, or h = 0 and k > 0, or
+ * h = k = 0 and l > 0 (still sorted by h, k, l). Typed arrays and the metric tensor, two passes (count, fill).
+ */
+export function enumerateHklRange(s: Structure, dMin: number, half: boolean): Int32Array {
   if (!s.cell) throw new Error('cell: the structure is not periodic; use the Debye or zone-axis routes for patches');
   if (!(dMin > 0) || !Number.isFinite(dMin)) throw new Error(`dMin: must be a positive length in Å, got ${dMin}`);
   const recip = reciprocal(s.cell);
@@ -43,32 +52,146 @@ export function enumerateHkl(s: Structure, dMin: number): Int32Array {
   const lMax = dim >= 3 ? lim[2] : 0;
   const total = (2 * hMax + 1) * (2 * kMax + 1) * (2 * lMax + 1);
   if (total > 5e7) throw new Error(`dMin: ${dMin} Å asks for about ${total} reflections; use a larger dMin`);
-  const out: number[] = [];
+  // Metric tensor of the reciprocal cell: |G|² = Σ g_ij h_i h_j.
+  const g = [0, 1, 2].map((i) => [0, 1, 2].map((j) => recip[i][0] * recip[j][0] + recip[i][1] * recip[j][1] + recip[i][2] * recip[j][2]));
   const g2max = gMax * gMax * (1 + 1e-12);
-  for (let h = -hMax; h <= hMax; h++) {
-    for (let k = -kMax; k <= kMax; k++) {
-      for (let l = -lMax; l <= lMax; l++) {
-        if (h === 0 && k === 0 && l === 0) continue;
-        const g = vecMat([h, k, l], recip);
-        if (g[0] * g[0] + g[1] * g[1] + g[2] * g[2] <= g2max) out.push(h, k, l);
+  let out: Int32Array | null = null;
+  for (let pass = 0; pass < 2; pass++) {
+    let n = 0;
+    for (let h = half ? 0 : -hMax; h <= hMax; h++) {
+      for (let k = half && h === 0 ? 0 : -kMax; k <= kMax; k++) {
+        const base = g[0][0] * h * h + 2 * g[0][1] * h * k + g[1][1] * k * k;
+        const lin = 2 * (g[0][2] * h + g[1][2] * k);
+        for (let l = half && h === 0 && k === 0 ? 1 : -lMax; l <= lMax; l++) {
+          if (h === 0 && k === 0 && l === 0) continue;
+          if (base + l * (lin + g[2][2] * l) <= g2max) {
+            if (out) {
+              out[3 * n] = h;
+              out[3 * n + 1] = k;
+              out[3 * n + 2] = l;
+            }
+            n++;
+          }
+        }
       }
     }
+    if (!out) out = new Int32Array(3 * n);
   }
-  return Int32Array.from(out);
+  return out!;
+}
+
+export type StructureFactorMethod = 'auto' | 'direct' | 'grid';
+
+export interface StructureFactorOptions {
+  /**
+   * direct: the exact sum over atoms and reflections (the reference). grid: Gaussian gridding + FFT
+   * (sf-grid.ts), |ΔF| ≤ tolerance · Σ|w_j| (× the form factor). auto (default): grid for 3D cells when
+   * atoms × reflections exceeds GRID_THRESHOLD, direct otherwise.
+   */
+  method?: StructureFactorMethod;
+  /** Error bound of the grid method relative to Σ_j |w_j f_j| (default 1e-5, see sf-grid.ts). */
+  tolerance?: number;
+  onProgress?: (fraction: number) => void;
+}
+
+/** Atoms × reflections above which `auto` takes the grid route (a few tenths of a second of direct sums). */
+export const GRID_THRESHOLD = 5e7;
+
+/**
+ * Progress reporter of the structure-factor sums running inside `fn` (for callers that reach the sums
+ * through functions without an options argument, e.g. the powder pattern in the Web Worker).
+ */
+let scopedProgress: ((fraction: number) => void) | undefined;
+export function withStructureFactorProgress<T>(report: (fraction: number) => void, fn: () => T): T {
+  const before = scopedProgress;
+  scopedProgress = report;
+  try {
+    return fn();
+  } finally {
+    scopedProgress = before;
+  }
+}
+
+function chooseMethod(s: Structure, atoms: number, reflections: number, o: StructureFactorOptions): 'direct' | 'grid' {
+  const m = o.method ?? 'auto';
+  if (m !== 'auto') return m;
+  return (s.dim ?? 3) === 3 && atoms * reflections > GRID_THRESHOLD ? 'grid' : 'direct';
 }
 
 /** Structure factors for a sorted hkl list (see enumerateHkl). */
-export function structureFactorsHkl(s: Structure, hkl: Int32Array, radiation: Radiation): HklFactors {
+export function structureFactorsHkl(s: Structure, hkl: Int32Array, radiation: Radiation, opts: StructureFactorOptions = {}): HklFactors {
   if (!s.cell) throw new Error('cell: the structure is not periodic');
   const recip = reciprocal(s.cell);
   const frac = toFractional(s.cell, s.positions);
   const { groups, groupOf, weight } = groupAtoms(s);
-  const rows = rowsFromSortedHkl(hkl);
-  const m = rows.count;
+  const m = hkl.length / 3;
   const gre = new Float64Array(groups.length * m);
   const gim = new Float64Array(groups.length * m);
-  hklPartialSums(frac, groupOf, weight, rows, gre, gim);
+  const progress = opts.onProgress ?? scopedProgress;
+  if (chooseMethod(s, groupOf.length, m, opts) === 'grid') {
+    gridListSums(frac, groupOf, weight, groups.length, hkl, gre, gim, { tolerance: opts.tolerance, onProgress: progress });
+  } else {
+    const rows = rowsFromSortedHkl(hkl);
+    hklPartialSums(frac, groupOf, weight, rows, gre, gim, 0, groupOf.length, progress);
+  }
   return combineGroups(hkl, recip, groups, radiation, gre, gim);
+}
+
+/** Group sums for an arbitrary hkl list from the grid planes: −h reflections are the conjugates G(−h) = G(h)*. */
+function gridListSums(
+  frac: Float64Array,
+  groupOf: Uint16Array,
+  weight: Float64Array,
+  nGroups: number,
+  hkl: Int32Array,
+  gre: Float64Array,
+  gim: Float64Array,
+  opts: GridSumOptions,
+): void {
+  const m = hkl.length / 3;
+  let hMax = 0;
+  let kMax = 0;
+  let lMax = 0;
+  for (let i = 0; i < m; i++) {
+    hMax = Math.max(hMax, Math.abs(hkl[3 * i]));
+    kMax = Math.max(kMax, Math.abs(hkl[3 * i + 1]));
+    lMax = Math.max(lMax, Math.abs(hkl[3 * i + 2]));
+  }
+  // Reflections bucketed by |h| (counting sort).
+  const start = new Int32Array(hMax + 2);
+  for (let i = 0; i < m; i++) start[Math.abs(hkl[3 * i]) + 1]++;
+  for (let h = 0; h <= hMax; h++) start[h + 1] += start[h];
+  const order = new Int32Array(m);
+  const fill = start.slice(0, hMax + 1);
+  for (let i = 0; i < m; i++) order[fill[Math.abs(hkl[3 * i])]++] = i;
+  const nl = 2 * lMax + 1;
+  const need = new Int32Array(2 * (hMax + 1));
+  for (let i = 0; i < m; i++) {
+    const h = Math.abs(hkl[3 * i]);
+    need[2 * h] = Math.max(need[2 * h], Math.abs(hkl[3 * i + 1]));
+    need[2 * h + 1] = Math.max(need[2 * h + 1], Math.abs(hkl[3 * i + 2]));
+  }
+  gridPlaneSums(
+    frac,
+    groupOf,
+    weight,
+    nGroups,
+    hMax,
+    kMax,
+    lMax,
+    (h, g, v) => {
+      for (let t = start[h]; t < start[h + 1]; t++) {
+        const i = order[t];
+        const neg = hkl[3 * i] < 0;
+        const k = neg ? -hkl[3 * i + 1] : hkl[3 * i + 1];
+        const l = neg ? -hkl[3 * i + 2] : hkl[3 * i + 2];
+        const at = 2 * ((k + kMax) * nl + l + lMax);
+        gre[g * m + i] = v[at];
+        gim[g * m + i] = neg ? -v[at + 1] : v[at + 1];
+      }
+    },
+    { ...opts, planeExtent: (h) => [need[2 * h], need[2 * h + 1]] },
+  );
 }
 
 /** F = Σ_g g_g(s) G_g for each reflection, from group partial sums (also used by the worker path). */
@@ -85,16 +208,38 @@ export function combineGroups(
   const re = new Float64Array(m);
   const im = new Float64Array(m);
   const f2 = new Float64Array(m);
+  const g = [0, 1, 2].map((i) => [0, 1, 2].map((j) => recip[i][0] * recip[j][0] + recip[i][1] * recip[j][1] + recip[i][2] * recip[j][2]));
+  const fac = new Float64Array(groups.length);
+  let lastS2 = -1;
+  // Cubic metric: |G|² = n/a² with n = h² + k² + l², so the scattering factors are tabulated by the integer n.
+  const cubicMetric = g[0][1] === 0 && g[0][2] === 0 && g[1][2] === 0 && g[0][0] === g[1][1] && g[1][1] === g[2][2];
+  let table: Float64Array | null = null;
+  if (cubicMetric && m > 0) {
+    let nMax = 0;
+    for (let i = 0; i < 3 * m; i += 3) nMax = Math.max(nMax, hkl[i] * hkl[i] + hkl[i + 1] * hkl[i + 1] + hkl[i + 2] * hkl[i + 2]);
+    if (nMax < 1e7) table = new Float64Array((nMax + 1) * groups.length).fill(NaN);
+  }
   for (let i = 0; i < m; i++) {
-    const g = norm(vecMat(hkl.subarray(3 * i, 3 * i + 3), recip));
-    d[i] = 1 / g;
-    const s2 = (g * g) / 4;
+    const h = hkl[3 * i];
+    const k = hkl[3 * i + 1];
+    const l = hkl[3 * i + 2];
+    const G2 = g[0][0] * h * h + g[1][1] * k * k + g[2][2] * l * l + 2 * (g[0][1] * h * k + g[0][2] * h * l + g[1][2] * k * l);
+    d[i] = 1 / Math.sqrt(G2);
+    const s2 = G2 / 4;
+    if (table) {
+      const at = (h * h + k * k + l * l) * groups.length;
+      if (Number.isNaN(table[at])) for (let c = 0; c < groups.length; c++) table[at + c] = groupFactor(groups[c], radiation, s2);
+      for (let c = 0; c < groups.length; c++) fac[c] = table[at + c];
+    } else if (s2 !== lastS2) {
+      // Scattering factors depend on |G| only: reuse them while consecutive reflections share it.
+      for (let c = 0; c < groups.length; c++) fac[c] = groupFactor(groups[c], radiation, s2);
+      lastS2 = s2;
+    }
     let r = 0;
     let q = 0;
     for (let c = 0; c < groups.length; c++) {
-      const f = groupFactor(groups[c], radiation, s2);
-      r += f * gre[c * m + i];
-      q += f * gim[c * m + i];
+      r += fac[c] * gre[c * m + i];
+      q += fac[c] * gim[c * m + i];
     }
     re[i] = r;
     im[i] = q;

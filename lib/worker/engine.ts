@@ -8,6 +8,7 @@ import { composition } from '../structure/checks/composition';
 import { density } from '../structure/checks/density';
 import { braggPowder } from '../diffraction/powder';
 import { fitPattern, fitToComparison } from '../diffraction/fit/fit-pattern';
+import { withStructureFactorProgress } from '../diffraction/structure-factor';
 import { debyePowder } from '../diffraction/debye-powder';
 import { approximantLatticeConstant } from '../models/icosahedral/approximant';
 import { TAU } from '../math/golden';
@@ -176,6 +177,18 @@ export function zone(job: Extract<JobRequest, { kind: 'zone' }>): ZoneResult {
   return { spots: out, axisLabel, qmax: job.qmax };
 }
 
+/** Progress of the structure-factor sums mapped onto [from, to] of the job, at most one message per 1 %. */
+export function sumProgress(report: Report, stage: string, from: number, to: number): (fraction: number) => void {
+  let last = -1;
+  return (f) => {
+    const x = from + (to - from) * f;
+    if (x - last >= 0.01 || f === 1) {
+      last = x;
+      report(stage, x);
+    }
+  };
+}
+
 export function runJob<K extends JobRequest['kind']>(job: Extract<JobRequest, { kind: K }>, report: Report = () => {}): JobResultMap[K] {
   const j = job as JobRequest;
   switch (j.kind) {
@@ -189,10 +202,10 @@ export function runJob<K extends JobRequest['kind']>(job: Extract<JobRequest, { 
     }
     case 'zone':
       report('structure factors', 0.2);
-      return zone(j) as JobResultMap[K];
+      return withStructureFactorProgress(sumProgress(report, 'structure factors', 0.2, 0.9), () => zone(j)) as JobResultMap[K];
     case 'powder':
-      report('powder pattern', 0.2);
-      return powder(j) as JobResultMap[K];
+      report('powder pattern', 0.1);
+      return withStructureFactorProgress(sumProgress(report, 'structure factors', 0.1, 0.9), () => powder(j)) as JobResultMap[K];
     case 'series':
       return series(j.params, report) as JobResultMap[K];
     case 'fit':
