@@ -25,7 +25,7 @@ perp = np.array([[g(v) for v in r] for r in par])
 par /= np.linalg.norm(par, axis=1)[:, None]
 perp /= np.linalg.norm(perp, axis=1)[:, None]
 aR, lam = o['aR'], o['lambda']
-rng = range(-5, 6)
+rng = range(-4, 5)
 H = np.array(list(itertools.product(rng, repeat=6)), float)
 if o['lattice'] == 'F':
     H = np.vstack([H, H + 0.5])
