@@ -60,7 +60,9 @@ export function leastSquares(
     const dn = par.slice();
     up[k] += steps[k];
     dn[k] -= steps[k];
-    for (let i = 0; i < n; i++) J.set(i, k, (model(up, i) - model(dn, i)) / (2 * steps[k]));
+    // all points at one parameter set, then the other (models may cache per parameter set)
+    const fu = Float64Array.from({ length: n }, (_, i) => model(up, i));
+    for (let i = 0; i < n; i++) J.set(i, k, (fu[i] - model(dn, i)) / (2 * steps[k]));
   }
   const A = new Matrix(p, p);
   for (let a = 0; a < p; a++)

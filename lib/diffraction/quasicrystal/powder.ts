@@ -9,7 +9,6 @@
 import { lorentzPolarization, twoThetaOfQ } from '../lorentz-polarization';
 import { powderProfile, type ProfileShape } from '../profile';
 import { qcReflections, type QcModel, type QcOptions } from './structure-factor';
-import { starMultiplicity, starRepresentative } from './star';
 
 export interface QcStar {
   /** Representative indices (lexicographically largest member). */
@@ -56,15 +55,16 @@ export function qcPowderStars(model: QcModel, o: QcPowderOptions, lambda = o.wav
   }
   const qmax = (4 * Math.PI * Math.sin((Math.min(o.twoThetaMax, 179.999) * Math.PI) / 360)) / lambda;
   const { reflections, warnings } = qcReflections(model, { ...o, qmax, threshold: o.threshold ?? 1e-5 });
-  const groups = new Map<string, { star: QcStar; sum: number; count: number }>();
+  const groups = new Map<number, { star: QcStar; sum: number; count: number }>();
   for (const r of reflections) {
     if (r.qParNorm < 1e-9) continue;
-    const { rep, key } = starRepresentative(r.indices);
+    const rep = r.starIndices;
+    const key = r.star;
     let g = groups.get(key);
     if (!g) {
       const tt = twoThetaOfQ(r.qParNorm, lambda);
       g = {
-        star: { indices: rep, label: '', N: r.N, M: r.M, multiplicity: 0, qPar: r.qParNorm, qPerp: r.qPerpNorm, d: (2 * Math.PI) / r.qParNorm, twoTheta: tt, f2: 0, intensity: 0 },
+        star: { indices: rep, label: '', N: r.N, M: r.M, multiplicity: r.starSize, qPar: r.qParNorm, qPerp: r.qPerpNorm, d: (2 * Math.PI) / r.qParNorm, twoTheta: tt, f2: 0, intensity: 0 },
         sum: 0,
         count: 0,
       };
@@ -77,7 +77,7 @@ export function qcPowderStars(model: QcModel, o: QcPowderOptions, lambda = o.wav
   let partial = 0;
   for (const { star, sum, count } of groups.values()) {
     if (!(star.twoTheta >= o.twoThetaMin && star.twoTheta <= o.twoThetaMax)) continue;
-    const m = starMultiplicity(star.indices);
+    const m = star.multiplicity;
     // Members below the threshold are left out of the sum; the multiplicity is the full orbit size.
     if (count !== m) partial++;
     star.multiplicity = m;

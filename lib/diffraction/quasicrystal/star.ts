@@ -129,3 +129,36 @@ function lexGreater(a: ArrayLike<number>, b: ArrayLike<number>): boolean {
   for (let i = 0; i < 6; i++) if (a[i] !== b[i]) return a[i] > b[i];
   return false;
 }
+
+/**
+ * Star lookup for many reflections: the first member seen of a star expands its whole orbit (120 operations)
+ * into a table, so every further member is one hash lookup.
+ */
+export class StarIndex {
+  private readonly byMember = new Map<number, number>();
+  readonly reps: number[][] = [];
+  readonly sizes: number[] = [];
+
+  /** Integer key of h: 2h_i + 128 as six base-256 digits (|h_i| < 64, integers or half-integers; 48 bits, exact in a double). */
+  private static key(h: ArrayLike<number>): number {
+    let k = 0;
+    for (let i = 0; i < 6; i++) {
+      const v = 2 * h[i] + 128;
+      if (!(v >= 0 && v < 256 && Number.isInteger(v))) throw new Error(`star: index ${h[i]} out of range (|h| < 64, integer or half-integer)`);
+      k = k * 256 + v;
+    }
+    return k;
+  }
+
+  /** Star id of h (new ids count up from 0) and whether h opened a new star. */
+  idOf(h: ArrayLike<number>): { id: number; fresh: boolean } {
+    const known = this.byMember.get(StarIndex.key(h));
+    if (known !== undefined) return { id: known, fresh: false };
+    const id = this.reps.length;
+    const members = starOf(h);
+    for (const m of members) this.byMember.set(StarIndex.key(m), id);
+    this.reps.push(starRepresentative(h).rep);
+    this.sizes.push(members.length);
+    return { id, fresh: true };
+  }
+}

@@ -30,6 +30,7 @@ import { hyperlatticeCosets, reciprocalBasis, type HyperlatticeType } from '../.
 import { scatteringFactor, type Radiation } from '../form-factors';
 import { csgFromHyper } from '../indexing';
 import { domainTransform, type DomainTransform } from './domain-transform';
+import { StarIndex } from './star';
 
 export interface QcModel {
   aR: number;
@@ -146,8 +147,12 @@ export function moduleVectors(p: Pick<PreparedQc, 'rb'>, h: ArrayLike<number>): 
   return { qPar, qPerp };
 }
 
-/** F(H)/N as [re, im] for one module point h (with its Q vectors, when already known). */
-export function qcAmplitude(p: PreparedQc, h: ArrayLike<number>, vec = moduleVectors(p, h)): [number, number] {
+/**
+ * F(H)/N as [re, im] for one module point h (with its Q vectors, when already known). `domains`, when given,
+ * holds A_k(Q⊥) per class already computed (the windows are icosahedrally symmetric about their centres, so
+ * A_k is the same over a star).
+ */
+export function qcAmplitude(p: PreparedQc, h: ArrayLike<number>, vec = moduleVectors(p, h), domains?: ArrayLike<number>): [number, number] {
   const { qPar, qPerp } = vec;
   const qp2 = qPar[0] ** 2 + qPar[1] ** 2 + qPar[2] ** 2;
   const qq2 = qPerp[0] ** 2 + qPerp[1] ** 2 + qPerp[2] ** 2;
@@ -156,8 +161,9 @@ export function qcAmplitude(p: PreparedQc, h: ArrayLike<number>, vec = moduleVec
   const po = -(qPerp[0] * p.offset[0] + qPerp[1] * p.offset[1] + qPerp[2] * p.offset[2]);
   let re = 0;
   let im = 0;
-  for (const c of p.classes) {
-    const a = c.domain.at(qPerp);
+  for (let k = 0; k < p.classes.length; k++) {
+    const c = p.classes[k];
+    const a = domains ? domains[k] : c.domain.at(qPerp);
     if (a === 0) continue;
     let gr = c.occupancy * mixFactor(c.parts, p.radiation, s2);
     let gi = 0;
@@ -189,6 +195,10 @@ export function qcAmplitude(p: PreparedQc, h: ArrayLike<number>, vec = moduleVec
 }
 
 export interface QcReflection {
+  /** Star id within this run, its size (orbit under m-3-5) and representative. */
+  star: number;
+  starSize: number;
+  starIndices: number[];
   indices: number[];
   qPar: number[];
   qParNorm: number;
@@ -279,12 +289,19 @@ export function qcReflections(model: QcModel, o: QcOptions & ModuleWalk & { thre
   const f0 = Math.hypot(f0r, f0i);
   const thr = (o.threshold ?? 1e-5) * f0 * f0;
   const out: QcReflection[] = [];
+  const stars = new StarIndex();
+  const domains: Float64Array[] = [];
   forEachModulePoint(p.aR, p.lattice, o, (h, qPar, qPerp) => {
-    const [re, im] = qcAmplitude(p, h, { qPar, qPerp });
+    const { id, fresh } = stars.idOf(h);
+    if (fresh) domains[id] = Float64Array.from(p.classes, (c) => c.domain.at(qPerp));
+    const [re, im] = qcAmplitude(p, h, { qPar, qPerp }, domains[id]);
     const intensity = re * re + im * im;
     if (intensity < thr) return;
     const csg = csgFromHyper(h);
     out.push({
+      star: id,
+      starSize: stars.sizes[id],
+      starIndices: stars.reps[id],
       indices: Array.from(h, (v) => v + 0),
       qPar: Array.from(qPar),
       qParNorm: Math.hypot(qPar[0], qPar[1], qPar[2]),
