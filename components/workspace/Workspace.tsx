@@ -13,6 +13,7 @@ import { PerpView } from '@/components/perp/PerpView';
 import { TilingView } from '@/components/tiling2d/TilingView';
 import { SeriesTable } from '@/components/plots/SeriesTable';
 import { DiffractionPanel, type DatasetRef } from './DiffractionPanel';
+import { IndexingPanel } from './IndexingPanel';
 import { Progress } from './Progress';
 import { ViewBoundary } from './ViewBoundary';
 import { useJob } from './useJob';
@@ -349,6 +350,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
             ) : shownView === 'perp' ? (
               <PerpView structure={structure} fileBase={fileBase} />
             ) : (
+              <>
               <DiffractionPanel
                 structure={structure}
                 fileBase={fileBase}
@@ -356,6 +358,10 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
                 datasets={datasetList}
                 target={project && !lab ? { projectId: project.id, canEdit: project.canEdit, onStored: (d) => setDatasetList((l) => [d, ...l.filter((x) => x.id !== d.id)]) } : undefined}
               />
+              {params.family === 'icosahedral' ? (
+                <IndexingPanel scope={project && !lab ? project.id : 'scratch'} params={params as Record<string, unknown>} projectId={project && !lab ? project.id : undefined} canEdit={project?.canEdit} baseRevision={head?.id ?? null} onSaved={(next, rev) => { setParams(next as Params); setSaved(next as Params); setHead({ id: String(rev.id), number: rev.number }); router.refresh(); }} />
+              ) : null}
+              </>
             )}
             </ViewBoundary>
           </div>
