@@ -99,7 +99,7 @@ export function IndexingPanel({
   };
 
   return (
-    <section aria-label="Indexing" className="mt-3 space-y-2 rounded-md border border-rule bg-card p-3 text-sm" data-testid="indexing-panel">
+    <section aria-label="Indexing" className="space-y-2 rounded-md border border-rule bg-card p-3 text-sm" data-testid="indexing-panel">
       <div className="flex flex-wrap items-center gap-3">
         <h3 className="font-medium">Index the measured pattern (icosahedral)</h3>
         <label className="flex items-center gap-1 text-xs">
@@ -153,7 +153,7 @@ export function IndexingPanel({
               </span>
             ) : null}
           </div>
-          <div className="max-h-80 overflow-auto">
+          <div>
             <table className="w-full text-right text-xs tabular-nums" data-testid="indexing-table">
               <thead className="sticky top-0 bg-card">
                 <tr>
@@ -164,7 +164,7 @@ export function IndexingPanel({
                   <th className="px-1">N</th>
                   <th className="px-1">M</th>
                   <th className="px-1">|Q⊥| (Å⁻¹)</th>
-                  <th className="px-1">mult.</th>
+                  <th className="px-1" title="reflections with this N, M (one or more icosahedral stars)">m (N, M)</th>
                   <th className="px-1">FWHM</th>
                   <th className="px-1">area</th>
                 </tr>

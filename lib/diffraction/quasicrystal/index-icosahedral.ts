@@ -39,6 +39,7 @@ export interface RefLine {
   q1: number;
   qPerp1: number;
   strength: number;
+  /** Number of reflections with this N, M (one or more icosahedral stars of equal |Q∥| and |Q⊥|). */
   multiplicity: number;
   indices: number[];
 }
