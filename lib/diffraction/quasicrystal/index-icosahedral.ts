@@ -9,7 +9,7 @@
  *    |Q⊥|), with the vertex-model strength S = m·A(Q⊥)² (A: transform of the ball of the triacontahedron's volume).
  * 3. Trial aR: ratios of a strong reference line to one of the strongest measured peaks; each trial scored by
  *    (share of measured area explained by predicted lines) × (share of the predicted strength, with Lp and a generic
- *    exp(−B s²) fall-off, that is observed). The τ³-related solutions index the same positions; the score prefers
+ *    exp(−B s²) fall-off with B = 6 Å², a stand-in for form factor and thermal motion, that is observed). The τ³-related solutions index the same positions; the score prefers
  *    the one whose strong measured peaks have small |Q⊥| and whose strong predicted lines are all seen. The best few
  *    trials and the best one times τ^k (k = −3…3, inside the range) are refined (step 5), and the solution with
  *    the largest score × exp(−½·misfit²) wins, the misfit being the RMS of ln(measured area / vertex-model strength):
