@@ -4,8 +4,9 @@
  * partly occupied one, a phason offset) is summed atom by atom in numpy, F = Σ_j w_j g_j e^{iQ·r_j} / N, at the
  * Q∥ of the strongest reflections, and compared with the formula of structure-factor.ts for P, F and I.
  * The scattering factors per atom come from form-factors.ts (tables checked elsewhere); the sum is numpy's.
- * Agreement measured: |F|² within 12 % for the 10 strongest reflections at patch radius 36 Å (about 3 000–7 000
- * atoms); the complex amplitudes within 0.05·|F(0)|.
+ * Agreement measured when written, patch radius 36 Å, 10 strongest reflections: P (3 549 atoms) |F|² direct/formula
+ * − 1 = +2.0…+2.7 %, I (7 020 atoms) +2.2…+2.7 %, F (1 705 atoms) +7.7…+8.1 %; complex amplitudes within
+ * 0.009–0.022·|F(0)|. The tests allow 12 % and 0.05·|F(0)| (finite-patch fluctuation of the class shares).
  */
 import { describe, expect, it } from 'vitest';
 import { runPython } from '../../../helpers/python';
@@ -60,7 +61,6 @@ describe('decorated occupation-domain amplitudes against direct sums over a patc
       strong.forEach((x, i) => {
         const [re, im] = direct[i];
         const I = re * re + im * im;
-        if (process.env.QC_REPORT) console.log(lattice, n, x.indices.join(" "), (I / x.intensity - 1).toFixed(4), (Math.hypot(re - x.re, im - x.im) / f0).toFixed(4));
         expect(Math.abs(I / x.intensity - 1)).toBeLessThan(0.12);
         expect(Math.hypot(re - x.re, im - x.im)).toBeLessThan(0.05 * f0);
       });
