@@ -10,6 +10,8 @@ import { parseWavelength } from '@/lib/diffraction/wavelengths';
 import { indexIcosahedralPattern, type IndexResult } from '@/lib/diffraction/quasicrystal/index-icosahedral';
 import type { MeasuredPattern } from '@/lib/formats/measured';
 import { send } from '@/components/ui/api';
+import { QcOverlay } from './QcOverlay';
+import type { QcModel } from '@/lib/diffraction/quasicrystal/structure-factor';
 
 const btn = 'rounded-md bg-tide px-3 py-1 text-sm font-medium text-white hover:bg-tide-deep disabled:opacity-50';
 const DEG = 180 / Math.PI;
@@ -24,6 +26,11 @@ function toTwoTheta(m: MeasuredPattern, lambda: number): { x: Float64Array; y: F
   const tt = Array.from(m.x, (v) => (m.axis === '2theta' ? v : m.axis === 'q' ? 2 * DEG * Math.asin((v * lambda) / (4 * Math.PI)) : 2 * DEG * Math.asin(lambda / (2 * v))));
   const order = tt.map((_, i) => i).filter((i) => Number.isFinite(tt[i])).sort((a, b) => tt[a] - tt[b]);
   return { x: Float64Array.from(order, (i) => tt[i]), y: Float64Array.from(order, (i) => m.intensity[i]) };
+}
+
+function median(v: number[]): number {
+  const s = v.slice().sort((a, b) => a - b);
+  return s.length ? s[Math.floor(s.length / 2)] : 0.1;
 }
 
 const fmt = (v: number | null, d: number) => (v === null || !Number.isFinite(v) ? '—' : v.toFixed(d));
@@ -153,6 +160,14 @@ export function IndexingPanel({
               </span>
             ) : null}
           </div>
+          {measured && lambda !== null ? (
+            <QcOverlay
+              model={{ aR: result.aR, lattice: (params.lattice as QcModel['lattice']) ?? 'P', offset: params.offset as number[] | undefined, species: params.species as string | undefined, decoration: params.decoration as QcModel['decoration'] }}
+              {...toTwoTheta(measured.data, lambda)}
+              lambda={lambda}
+              fwhm={median(result.peaks.map((p) => p.fwhm))}
+            />
+          ) : null}
           <div>
             <table className="w-full text-right text-xs tabular-nums" data-testid="indexing-table">
               <thead className="sticky top-0 bg-card">

@@ -6,7 +6,7 @@ import { registerDiffractHyperspace } from './diffract-hyperspace';
 import { registerDiffractCompare } from './diffract-compare';
 import { registerDiffractIndex } from './diffract-index';
 
-/** diffract powder | at | zone | hyperspace | compare | index. */
+/** diffract powder | at | zone | hyperspace (+ qc-powder) | compare | index. */
 export function registerDiffract(program: Command): void {
   const d = program.command('diffract').description('Simulate diffraction of a structure file or an ideal quasicrystal.');
   registerDiffractPowder(d);
