@@ -13,6 +13,7 @@ import { PerpView } from '@/components/perp/PerpView';
 import { TilingView } from '@/components/tiling2d/TilingView';
 import { SeriesTable } from '@/components/plots/SeriesTable';
 import { DiffractionPanel, type DatasetRef } from './DiffractionPanel';
+import { IndexingPanel } from './IndexingPanel';
 import { Progress } from './Progress';
 import { ViewBoundary } from './ViewBoundary';
 import { useJob } from './useJob';
@@ -353,6 +354,8 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
             ) : shownView === 'perp' ? (
               <PerpView structure={structure} fileBase={fileBase} />
             ) : (
+              <div className="flex h-full min-h-0 flex-col gap-2">
+              <div className="min-h-0 flex-1">
               <DiffractionPanel
                 structure={structure}
                 fileBase={fileBase}
@@ -360,6 +363,13 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
                 datasets={datasetList}
                 target={project && !lab ? { projectId: project.id, canEdit: project.canEdit, onStored: (d) => setDatasetList((l) => [d, ...l.filter((x) => x.id !== d.id)]) } : undefined}
               />
+              </div>
+              {params.family === 'icosahedral' ? (
+                <div className="max-h-[55%] shrink-0 overflow-auto">
+                <IndexingPanel scope={project && !lab ? project.id : 'scratch'} params={params as Record<string, unknown>} projectId={project && !lab ? project.id : undefined} canEdit={project?.canEdit} baseRevision={head?.id ?? null} onSaved={(next, rev) => { setParams(next as Params); setSaved(next as Params); setHead({ id: String(rev.id), number: rev.number }); router.refresh(); }} />
+                </div>
+              ) : null}
+              </div>
             )}
             </ViewBoundary>
           </div>

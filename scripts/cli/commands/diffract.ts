@@ -4,8 +4,9 @@ import { registerDiffractAt } from './diffract-at';
 import { registerDiffractZone } from './diffract-zone';
 import { registerDiffractHyperspace } from './diffract-hyperspace';
 import { registerDiffractCompare } from './diffract-compare';
+import { registerDiffractIndex } from './diffract-index';
 
-/** diffract powder | at | zone | hyperspace | compare. */
+/** diffract powder | at | zone | hyperspace (+ qc-powder) | compare | index. */
 export function registerDiffract(program: Command): void {
   const d = program.command('diffract').description('Simulate diffraction of a structure file or an ideal quasicrystal.');
   registerDiffractPowder(d);
@@ -13,4 +14,5 @@ export function registerDiffract(program: Command): void {
   registerDiffractZone(d);
   registerDiffractHyperspace(d);
   registerDiffractCompare(d);
+  registerDiffractIndex(d);
 }
