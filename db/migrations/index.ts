@@ -6,6 +6,7 @@ import type { Knex } from 'knex';
 import * as m20261201000000 from './20261201000000_initial_schema';
 import * as m20261201010000 from './20261201010000_accounts_and_sharing';
 import * as m20261202120000 from './20261202120000_fork_point';
+import * as m20261202200000 from './20261202200000_jobs';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -16,6 +17,7 @@ export const migrations: [string, Migration][] = [
   ['20261201000000_initial_schema.ts', m20261201000000],
   ['20261201010000_accounts_and_sharing.ts', m20261201010000],
   ['20261202120000_fork_point.ts', m20261202120000],
+  ['20261202200000_jobs.ts', m20261202200000],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

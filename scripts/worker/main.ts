@@ -1,0 +1,30 @@
+/**
+ * Entry of a queue worker process, built by scripts/worker/build.mjs to dist/worker/main.mjs (plain
+ * JavaScript: production never loads TypeScript at run time). Needs REDIS_URL (or the local Redis port)
+ * and the TAUFORGE_DB_* settings. SIGTERM / SIGINT: finish the BullMQ handshake, close and exit.
+ */
+import { startWorker } from '../../lib/server/queue/worker';
+import { closeQueue } from '../../lib/server/queue/connection';
+import { closeDb } from '../../lib/server/db';
+
+async function main() {
+  const handle = await startWorker(new URL('./thread.mjs', import.meta.url));
+  let stopping = false;
+  const stop = async () => {
+    if (stopping) return;
+    stopping = true;
+    const force = setTimeout(() => process.exit(0), 5000);
+    force.unref();
+    await handle.close().catch(() => {});
+    await closeQueue().catch(() => {});
+    await closeDb().catch(() => {});
+    process.exit(0);
+  };
+  process.on('SIGTERM', () => void stop());
+  process.on('SIGINT', () => void stop());
+}
+
+main().catch((e: unknown) => {
+  console.error(`tauforge worker: ${e instanceof Error ? e.message : e}`);
+  process.exit(1);
+});
