@@ -162,18 +162,18 @@ describe('limits', () => {
   });
 
   it('stop a job over its time limit and one over its memory limit, with errors that say so', async () => {
-    const w = await worker({ TAUFORGE_JOB_TIME_DIFFRACTION: '1', TAUFORGE_JOB_MEMORY_MB: '48' });
+    const w = await worker({ TAUFORGE_JOB_TIME_DIFFRACTION: '1', TAUFORGE_JOB_MEMORY_MB: '16' });
     const slow = await (await startJob({ kind: 'diffraction', revision: ico32, ...POWDER, twoThetaMax: 120, step: 0.01 })).json();
     const s = await finished(slow.id);
     expect(s.state).toBe('failed');
     expect(s.error.code).toBe('timed_out');
     expect(s.error.message).toMatch(/1 s limit/);
-    const big = await addRevision(ICO('8/5'), 5);
+    const big = await addRevision(ICO('13/8'), 5);
     const huge = await (await startJob({ kind: 'export', revision: big, format: 'extxyz' })).json();
     const h = await finished(huge.id, 120_000);
     expect(h.state).toBe('failed');
     expect(h.error.code).toBe('out_of_memory');
-    expect(h.error.message).toMatch(/48 MB memory limit/);
+    expect(h.error.message).toMatch(/16 MB memory limit/);
     await w.kill();
   });
 });
