@@ -38,8 +38,8 @@ export function SweepForm({ datasets, onStart }: { datasets: DatasetRef[]; onSta
       <div className="space-y-1.5">
         {axes.map((a, i) => (
           <div key={i} className="flex gap-2">
-            <input aria-label={`Axis ${i + 1} parameter`} className={`${inputClass} w-40 py-1 font-mono text-xs`} value={a.path} placeholder="aR, offset.0, order, decoration…" onChange={(e) => setAxes(axes.map((x, k) => (k === i ? { ...x, path: e.target.value } : x)))} />
-            <input aria-label={`Axis ${i + 1} values`} className={`${inputClass} flex-1 py-1 font-mono text-xs`} value={a.values} placeholder="from:to:step or a, b, c" onChange={(e) => setAxes(axes.map((x, k) => (k === i ? { ...x, values: e.target.value } : x)))} />
+            <input aria-label={`Axis ${i + 1} parameter`} className="w-44 shrink-0 rounded-md border border-rule bg-card px-2 py-1 font-mono text-xs text-ink focus:border-tide" value={a.path} placeholder="aR, offset.0, order, decoration…" onChange={(e) => setAxes(axes.map((x, k) => (k === i ? { ...x, path: e.target.value } : x)))} />
+            <input aria-label={`Axis ${i + 1} values`} className="min-w-0 flex-1 rounded-md border border-rule bg-card px-2 py-1 font-mono text-xs text-ink focus:border-tide" value={a.values} placeholder="from:to:step or a, b, c" onChange={(e) => setAxes(axes.map((x, k) => (k === i ? { ...x, values: e.target.value } : x)))} />
             <button type="button" aria-label={`Remove axis ${i + 1}`} className="px-2 text-ink-soft hover:text-clay" onClick={() => setAxes(axes.filter((_, k) => k !== i))}>
               ×
             </button>
