@@ -3,11 +3,20 @@
  * JavaScript: production never loads TypeScript at run time). Needs REDIS_URL (or the local Redis port)
  * and the TAUFORGE_DB_* settings. SIGTERM / SIGINT: finish the BullMQ handshake, close and exit.
  */
+import { setPriority } from 'node:os';
 import { startWorker } from '../../lib/server/queue/worker';
 import { closeQueue } from '../../lib/server/queue/connection';
 import { closeDb } from '../../lib/server/db';
 
 async function main() {
+  // Below the web server in the CPU scheduler (nice 10 by default), so heavy jobs on the same machine do
+  // not slow requests down. Set before the task thread starts: Linux threads inherit their creator's nice.
+  const nice = Number(process.env.TAUFORGE_WORKER_NICE ?? 10);
+  try {
+    if (nice) setPriority(nice);
+  } catch {
+    /* not permitted here: run at normal priority */
+  }
   const handle = await startWorker(new URL('./thread.mjs', import.meta.url));
   let stopping = false;
   const stop = async () => {

@@ -161,6 +161,24 @@ describe('limits', () => {
     }
   });
 
+  it('run one user\'s jobs one at a time when the per-user running limit is 1, even with two idle workers', async () => {
+    const ws = [await worker({ TAUFORGE_JOBS_MAX_RUNNING: '1' }), await worker({ TAUFORGE_JOBS_MAX_RUNNING: '1' })];
+    const body = (fwhm: number) => ({ kind: 'diffraction', revision: ico32, ...POWDER, fwhm });
+    const ids = [(await (await startJob(body(0.21))).json()).id, (await (await startJob(body(0.22))).json()).id];
+    let both = 0;
+    let seen = 0;
+    await until('both jobs', async () => {
+      const states = await Promise.all(ids.map(async (id) => (await getJob(id)).state));
+      if (states.every((x) => x === 'running')) both += 1;
+      if (states.some((x) => x === 'running')) seen += 1;
+      return states.every((x) => x === 'done');
+    }, 120_000, 50);
+    expect(seen).toBeGreaterThan(0);
+    expect(both).toBe(0);
+    await Promise.all(ws.map((w) => w.kill()));
+    workers.splice(0);
+  });
+
   it('stop a job over its time limit and one over its memory limit, with errors that say so', async () => {
     const w = await worker({ TAUFORGE_JOB_TIME_DIFFRACTION: '1', TAUFORGE_JOB_MEMORY_MB: '16' });
     const slow = await (await startJob({ kind: 'diffraction', revision: ico32, ...POWDER, twoThetaMax: 120, step: 0.01 })).json();
