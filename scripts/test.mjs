@@ -1,14 +1,15 @@
-// `npm test`: the same bootstrap as `npm start`, on a throwaway MariaDB (a fresh data directory and
-// database every run), then lint, typecheck, vitest (unit + integration against the real MariaDB),
+// `npm test`: the same bootstrap as `npm start`, on a throwaway MariaDB and Redis (a fresh data directory
+// and database every run; REDIS_URL uses an external Redis instead), with one queue worker, then lint, typecheck, vitest (unit + integration against the real MariaDB),
 // a production build served on a free port, and the browser tests in Debian's Chromium.
 // The last line is a plain summary: `tests: N passed, N failed`.
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { ensureDebian, ensureMariadb, ensureNodeModules } from './lib/install.mjs';
+import { ensureRedis } from './lib/redis.mjs';
 import { loadEnv, root, settings } from './lib/env.mjs';
 import { UserError, step } from './lib/log.mjs';
 import { capture, freePort, stopAllChildren, which } from './lib/proc.mjs';
-import { bringUpDatabase, dbEnv, migrate, serve, startMailFake } from './lib/services.mjs';
+import { bringUpDatabase, bringUpRedis, dbEnv, migrate, serve, startMailFake, startWorkers } from './lib/services.mjs';
 import { spawnSync } from 'node:child_process';
 
 const cleanups = [];
@@ -67,6 +68,7 @@ async function main() {
   ensureNodeModules();
   loadEnv();
   ensureMariadb();
+  ensureRedis();
   ensureDebian(['chromium'], () => existsSync('/usr/bin/chromium'), 'the browser tests');
   // A system font with Greek and symbols for glyphs our shipped Latin subsets lack (τ, θ, ⊥, Å in plots).
   ensureDebian(['fonts-dejavu-core'], () => existsSync('/usr/share/fonts/truetype/dejavu'), 'the browser tests');
@@ -87,6 +89,13 @@ async function main() {
   const db = { port: await freePort(), name: 'tauforge_test', user: s.dbUser, password: s.dbPassword };
   const handle = await bringUpDatabase({ dataDir, ...db, fresh: true });
   cleanups.push(() => handle.stop());
+  const redisDir = join(root, '.data', `test-redis-${process.pid}`);
+  const redis = await bringUpRedis({ dataDir: redisDir, port: await freePort(), persist: false, fresh: true });
+  cleanups.push(async () => {
+    await redis.stop();
+    rmSync(redisDir, { recursive: true, force: true });
+    rmSync(`${redisDir}-run`, { recursive: true, force: true });
+  });
   const smtpPort = await freePort();
   const appPort = await freePort();
   const env = {
@@ -99,6 +108,9 @@ async function main() {
     SMTP_PORT: String(smtpPort),
     TAUFORGE_MAIL_FAKE: '1',
     TAUFORGE_TEST: '1',
+    REDIS_URL: redis.url,
+    // A killed worker's job moves to another worker after 4 s instead of 30 s.
+    TAUFORGE_JOB_LOCK_MS: process.env.TAUFORGE_JOB_LOCK_MS ?? '4000',
   };
   migrate(env, { seed: true });
   const mail = await startMailFake(env, smtpPort);
@@ -114,6 +126,12 @@ async function main() {
   if (phases.has('types')) {
     const typesOk = runPhase('typecheck (tsc)', join(root, 'node_modules', '.bin', 'tsc'), ['--noEmit', '-p', 'tsconfig.json'], env);
     if (!typesOk) tally.failed += 1;
+  }
+
+  // One queue worker for the integration and browser tests (uploads and exports go through it).
+  if (phases.has('integration') || phases.has('e2e')) {
+    const workers = await startWorkers(env, Number(process.env.TAUFORGE_WORKERS ?? 1));
+    cleanups.push(() => workers.stop());
   }
 
   // Unit tests are pure and run two files at a time; integration tests share one database and run in turn.

@@ -2,11 +2,12 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { saveAs } from 'file-saver';
-import { getBlob, send } from '@/components/ui/api';
+import { getBlob } from '@/components/ui/api';
 import { buttonClass, quietButtonClass } from '@/components/ui/buttons';
 import { inputClass } from '@/components/ui/fields';
 import { Notice } from '@/components/ui/messages';
 import { forkProject } from './fork';
+import { exportNow } from '@/components/workspace/jobs-client';
 
 export function ForkButton({ projectId, revision, signedIn }: { projectId: number; revision?: number; signedIn: boolean }) {
   const router = useRouter();
@@ -68,7 +69,7 @@ export function ExportPanel({ projectId, revision, revisionNumber }: { projectId
             setBusy(true);
             setState(null);
             try {
-              const e = await send<{ id: number; filename: string; sha256: string; reused: boolean }>('POST', `/api/projects/${projectId}/exports`, { revision, format });
+              const e = await exportNow(projectId, revision, format);
               await downloadExport(e.id, e.filename);
               setState({ tone: 'ok', text: `${e.filename} (sha256 ${e.sha256.slice(0, 12)}…)${e.reused ? ', the stored copy' : ''}` });
             } catch (err) {

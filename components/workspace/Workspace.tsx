@@ -21,6 +21,7 @@ import { engineMessage, overCapReason } from './cut-limits';
 import { FORMAT_NAMES, formatUnavailable, saveStructure, slug, type StructureFormat } from './downloads';
 import { SaveDialog, postRevision, type RevisionRef } from './SavePanel';
 import { CheckPanel } from './CheckPanel';
+import { JobsPanel } from './JobsPanel';
 import { forkProject as postFork } from '@/components/projects/fork';
 import { SpaceGroupFacts } from './SpaceGroupFacts';
 
@@ -33,9 +34,9 @@ export interface WorkspaceProps {
   lab?: boolean;
 }
 
-type View = '3d' | 'tiling' | 'perp' | 'diffraction' | 'series';
+type View = '3d' | 'tiling' | 'perp' | 'diffraction' | 'series' | 'jobs';
 
-const VIEW_NAMES: Record<View, string> = { '3d': '3D model', tiling: 'Tiling', perp: 'Perpendicular space', diffraction: 'Diffraction', series: 'Series' };
+const VIEW_NAMES: Record<View, string> = { '3d': '3D model', tiling: 'Tiling', perp: 'Perpendicular space', diffraction: 'Diffraction', series: 'Series', jobs: 'Jobs' };
 
 const stable = (v: unknown) => JSON.stringify(v);
 
@@ -116,8 +117,9 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
     else v.push('tiling');
     v.push('perp', 'diffraction');
     if (params.family === 'icosahedral') v.push('series');
+    if (project && !lab) v.push('jobs');
     return v;
-  }, [dim, params.family]);
+  }, [dim, params.family, project, lab]);
   const shownView = views.includes(view) ? view : views[0];
 
   const save = async (message: string, overBase?: string) => {
@@ -310,7 +312,9 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
           <CheckPanel structure={structure} />
           <div className="min-h-0 flex-1 rounded-lg border border-rule bg-card p-2">
             <ViewBoundary name={VIEW_NAMES[shownView]} resetKeys={[shownView, structure, seriesJob.result]}>
-            {shownView === 'series' ? (
+            {shownView === 'jobs' && project ? (
+              <JobsPanel projectId={project.id} headRevision={head?.id ?? null} datasets={datasetList} canEdit={project.canEdit} />
+            ) : shownView === 'series' ? (
               <div className="h-full overflow-y-auto">
                 <div className="mb-2 flex items-center gap-2">
                   <button type="button" disabled={!ok || seriesJob.running} className="rounded-md bg-tide px-3 py-1 text-sm text-white disabled:opacity-50" onClick={() => void seriesJob.start({ kind: 'series', params: validationInput(params) })}>

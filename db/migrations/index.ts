@@ -7,6 +7,7 @@ import * as m20261201000000 from './20261201000000_initial_schema';
 import * as m20261201010000 from './20261201010000_accounts_and_sharing';
 import * as m20261202120000 from './20261202120000_fork_point';
 import * as m20261202200000 from './20261202200000_session_version_token_scope';
+import * as m20261202210000 from './20261202210000_jobs';
 
 interface Migration {
   up(knex: Knex): Promise<void>;
@@ -18,6 +19,7 @@ export const migrations: [string, Migration][] = [
   ['20261201010000_accounts_and_sharing.ts', m20261201010000],
   ['20261202120000_fork_point.ts', m20261202120000],
   ['20261202200000_session_version_token_scope.ts', m20261202200000],
+  ['20261202210000_jobs.ts', m20261202210000],
 ];
 
 export const migrationSource: Knex.MigrationSource<[string, Migration]> = {

@@ -7,11 +7,15 @@ import { z } from 'zod';
 import { db } from './db';
 import { ApiError } from './errors';
 import { access, type Actor } from './authz';
-import { runExportJob } from './jobs';
+import { renderExport } from './export-worker';
+import { estimateCount } from '../models';
 import { MAX_DATASET_BYTES } from './datasets';
 import { readStructure } from '../formats/read';
 import { checkStructure, type CheckReport } from '../structure/checks/report';
 import { DEFAULT_MAX_POINTS } from '../models/point-cap';
+
+/** Revisions up to this many estimated atoms are checked in the request. */
+const INLINE_CHECK_POINTS = 20_000;
 
 export const checkRequestSchema = z.union(
   [
@@ -30,9 +34,18 @@ export async function checkForProject(actor: Actor | null, projectId: number, in
     const rev = await db()('revisions').where({ id: input.revision, project_id: projectId }).first('id', 'params');
     if (!rev) throw new ApiError('not_found', 'No such revision in this project.');
     const params = typeof rev.params === 'string' ? JSON.parse(rev.params) : rev.params;
-    // The export worker's 'check' format: generate + check in a child process, bounded in time and size.
-    const bytes = await runExportJob(params, 'check');
-    return { revision: Number(rev.id), report: JSON.parse(bytes.toString('utf8')) as CheckReport };
+    // Small cuts are checked here (a few hundred ms at most); larger ones belong on the job queue, where every
+    // export carries the same check in its comment line.
+    let estimate: number;
+    try {
+      estimate = estimateCount(params);
+    } catch (e) {
+      throw new ApiError('unprocessable', (e as Error).message);
+    }
+    if (estimate > INLINE_CHECK_POINTS) {
+      throw new ApiError('unprocessable', `This revision cuts about ${Math.round(estimate).toLocaleString('en-US')} atoms; the API checks up to ${INLINE_CHECK_POINTS.toLocaleString('en-US')} directly. Start an export job: every export carries the check's verdict.`);
+    }
+    return { revision: Number(rev.id), report: JSON.parse(renderExport(params, 'check')) as CheckReport };
   }
   let s;
   try {

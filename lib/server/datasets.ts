@@ -1,18 +1,20 @@
 /**
  * Datasets: measured patterns (two or three columns) and structure files (XYZ, extended XYZ, CIF,
- * Tauforge JSON) uploaded to a project. Every file is parsed on upload by lib/formats; a file that
- * is empty, too large, binary or unreadable gets a clear error and nothing is stored.
+ * Tauforge JSON) uploaded to a project. Every file is parsed on upload by lib/formats in a queue worker
+ * (a `parse` job with a time limit, so a hostile file cannot stall the server); a file that is empty,
+ * too large, binary or unreadable gets a clear error and nothing is stored.
  */
 import { z } from 'zod';
 import { db } from './db';
-import { ApiError } from './errors';
+import { ApiError, type ErrorCode } from './errors';
 import { access, type Actor } from './authz';
 import { audit } from './audit';
-import { sha256Hex } from './crypto';
 import { iso, listQuery, type Page, contains } from './paging';
 import { FormatError, readStructure, sniffFormat } from '../formats';
 import { readMeasured } from '../formats/measured';
 import { symbolOf } from '../structure/elements';
+import { enqueue, getJob, type JobInfo } from './queue/service';
+import { timeLimitMs } from './queue/limits';
 
 export const MAX_DATASET_BYTES = 20 * 1024 * 1024;
 export const datasetListQuery = listQuery(['created_at', 'filename', 'size', 'kind'] as const, 'created_at');
@@ -111,7 +113,25 @@ export interface UploadFile {
   bytes: Uint8Array;
 }
 
-export async function uploadDataset(actor: Actor | null, projectId: number, file: UploadFile | null, kind: 'auto' | 'pattern' | 'structure'): Promise<DatasetInfo> {
+const API_CODES = new Set<ErrorCode>(['bad_request', 'validation_failed', 'not_found', 'conflict', 'too_large', 'unsupported_media_type', 'unprocessable']);
+
+/** Wait for a job row to leave the queue (the upload's answer), at most `ms`. */
+async function settled(jobId: number, ms: number) {
+  const until = Date.now() + ms;
+  for (let delay = 25; ; delay = Math.min(250, delay * 1.5)) {
+    const r = await db()('jobs').where({ id: jobId }).first('state', 'result', 'error');
+    if (r.state !== 'queued' && r.state !== 'running') return r;
+    if (Date.now() > until) return r;
+    await new Promise((res) => setTimeout(res, delay));
+  }
+}
+
+/**
+ * Check access, then queue the parse. Answers the stored dataset when the worker is done in time, the
+ * pending job when it is not, and the reader's error (nothing stored) when the file is refused.
+ * Callers check access before they read the body; it is checked again here for other callers.
+ */
+export async function uploadDataset(actor: Actor | null, projectId: number, file: UploadFile | null, kind: 'auto' | 'pattern' | 'structure'): Promise<DatasetInfo | { job: JobInfo }> {
   await access(actor, projectId, 'edit');
   if (!file) throw new ApiError('validation_failed', 'Attach the file in the form field "file".', { fields: { file: 'required' } });
   if (file.bytes.length > MAX_DATASET_BYTES) throw new ApiError('too_large', `The file is ${(file.bytes.length / 1048576).toFixed(1)} MB; the limit is 20 MB.`);
@@ -119,24 +139,19 @@ export async function uploadDataset(actor: Actor | null, projectId: number, file
   const filename = file.name.replace(/[\\/]/g, '_').replace(/[\u0000-\u001f]/g, '').slice(0, 255) || 'upload.txt';
   const text = decodeText(file.bytes);
   if (text.trim() === '') throw new ApiError('unprocessable', 'The file holds only blank space.');
-  const parsed = parseUpload(text, filename, kind);
-  const id = await db().transaction(async (trx) => {
-    const [id] = await trx('datasets').insert({
-      project_id: projectId,
-      kind: parsed.kind,
-      filename,
-      format: parsed.format,
-      media_type: (file.type || 'text/plain').slice(0, 100),
-      bytes: Buffer.from(file.bytes),
-      sha256: sha256Hex(file.bytes),
-      size: file.bytes.length,
-      summary: JSON.stringify(parsed.summary),
-      uploaded_by: actor!.id,
-    });
-    await audit({ actorId: actor!.id, action: 'dataset.upload', targetType: 'dataset', targetId: id, details: { project: projectId, filename, kind: parsed.kind } }, trx);
-    return Number(id);
-  });
-  return getDataset(actor, projectId, id);
+  const mediaType = (file.type || 'text/plain').slice(0, 100);
+  const { job } = await enqueue(actor!, projectId, 'parse', { filename, kind, mediaType, size: file.bytes.length }, { extra: { text } });
+  const r = await settled(job.id, timeLimitMs('parse') + 20_000);
+  if (r.state === 'done') {
+    const result = typeof r.result === 'string' ? JSON.parse(r.result) : r.result;
+    return getDataset(actor, projectId, Number(result.dataset));
+  }
+  if (r.state === 'failed' || r.state === 'cancelled') {
+    const e = r.error ? JSON.parse(r.error) : { code: 'unprocessable', message: 'The file could not be read.', details: null };
+    const code: ErrorCode = API_CODES.has(e.code) ? e.code : 'unprocessable';
+    throw new ApiError(code, e.code === 'timed_out' ? `This file took too long to read (over ${timeLimitMs('parse') / 1000} s) and was refused; nothing was stored.` : e.message, e.details ?? null);
+  }
+  return { job: await getJob(actor, job.id) };
 }
 
 function dsQuery() {

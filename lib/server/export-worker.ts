@@ -1,9 +1,6 @@
 /**
- * The export job, run in its own process so a large cut never blocks the server's event loop:
- *   node --import tsx lib/server/export-worker.ts   (stdin: {"params": …, "format": "xyz"}; stdout: file bytes)
- * A child process (rather than worker_threads) because the Next.js server bundles lib/ into its own
- * chunks; a child loads the TypeScript sources directly through tsx, the same way in `next dev`,
- * `next start` and the tests. Exit code 0 = bytes on stdout; 2 = bad params (message on stderr).
+ * What an export writes: the structure formats of lib/formats (writeStructure), or the powder peak list.
+ * Runs inside a queue worker's task thread (lib/server/queue/tasks.ts), never on the request thread.
  */
 import type { Structure } from '../structure/types';
 import { exportFile, type WriteFormat } from '../formats/write';
@@ -29,22 +26,7 @@ function render(s: Structure, job: string): string {
   return peakTableCsv(braggPowder(s, PEAKS).peaks, PEAKS);
 }
 
-async function main() {
-  const chunks: Buffer[] = [];
-  for await (const c of process.stdin) chunks.push(c as Buffer);
-  const job = JSON.parse(Buffer.concat(chunks).toString('utf8')) as { params: unknown; format: string };
-  let text: string;
-  try {
-    // generate() records the validated params and the engine version as the file's provenance.
-    text = render(generate(job.params), job.format);
-  } catch (e) {
-    process.stderr.write(e instanceof Error ? e.message : String(e));
-    process.exit(2);
-  }
-  process.stdout.write(text, () => process.exit(0));
+/** The bytes of one export: generate() records the validated params and the engine version as provenance. */
+export function renderExport(params: unknown, format: string): string {
+  return render(generate(params), format);
 }
-
-main().catch((e: unknown) => {
-  process.stderr.write(e instanceof Error ? e.message : String(e));
-  process.exit(1);
-});

@@ -8,6 +8,8 @@ import { restoreSchema, saveRevisionSchema } from './revisions';
 import { changeRoleSchema, inviteSchema, acceptSchema } from './members';
 import { createExportSchema } from './exports';
 import { checkRequestSchema } from './check';
+import { startJobSchema } from './queue/kinds';
+import { savePointSchema } from './queue/service';
 import { createTokenSchema } from './tokens';
 import { resetRequestSchema, resetSchema, signUpSchema, updateUserSchema, verifySchema } from './users';
 
@@ -81,18 +83,29 @@ const PATHS: Record<string, Record<string, Op>> = {
   },
   '/api/projects/{id}/exports': {
     get: { summary: 'Stored exports', query: list, ok: 200 },
-    post: { summary: 'Export a revision (201 new, 200 when the stored one is reused)', body: createExportSchema, ok: 201 },
+    post: { summary: 'Export a revision: 200 with the stored file, or 202 with the export job (Location: the job; identical requests join it)', body: createExportSchema, ok: 202 },
   },
   '/api/exports/{id}/download': { get: { summary: 'The export’s bytes', ok: 200 } },
   '/api/projects/{id}/check': { post: { summary: 'The Check step’s report (distances, density, composition, warnings) for a revision or a structure file’s text', body: checkRequestSchema, ok: 200 } },
   '/api/projects/{id}/datasets': {
     get: { summary: 'Uploaded datasets', query: list, ok: 200 },
-    post: { summary: 'Upload a measured pattern or structure file (≤ 20 MB)', multipart: true, ok: 201 },
+    post: { summary: 'Upload a measured pattern or structure file (≤ 20 MB), parsed by a queue worker: 201 with the dataset, 202 with the parse job when the queue is busy', multipart: true, ok: 201 },
   },
   '/api/projects/{id}/datasets/{did}': {
     get: { summary: 'The dataset file', ok: 200 },
     delete: { summary: 'Delete a dataset (editors, owners)', ok: 204 },
   },
+  '/api/projects/{id}/jobs': {
+    get: { summary: 'The project’s jobs, newest first, with state and progress', query: list, ok: 200 },
+    post: { summary: 'Start a job (diffraction, index, sweep, export): 202 with the job (Location: its URL); identical pending requests join one job', body: startJobSchema, ok: 202 },
+  },
+  '/api/jobs/{id}': {
+    get: { summary: 'A job: state, progress, timings, result or error', ok: 200 },
+    delete: { summary: 'Cancel a job (the one who started it, or an editor); 409 when it has finished', ok: 200 },
+  },
+  '/api/jobs/{id}/cancel': { post: { summary: 'Cancel a job (same as DELETE /api/jobs/{id})', ok: 200 } },
+  '/api/jobs/{id}/points': { get: { summary: 'A sweep’s grid points ranked by R_wp, best first', query: ['page', 'pageSize'], ok: 200 } },
+  '/api/jobs/{id}/save': { post: { summary: 'Save a sweep point (the best unless named) as a new revision', body: savePointSchema, ok: 201 } },
   '/api/invitations': {
     get: { summary: 'What an invitation token is for', query: ['token'], ok: 200, auth: false },
     post: { summary: 'Accept an invitation', body: acceptSchema, ok: 200 },

@@ -112,7 +112,7 @@ export function mergeClose(s: Structure, tol: number): MergeResult {
  * integer, so float noise on a cell face does not send an atom to the far face). Returns the structure and how
  * many atoms moved; a structure without a cell is returned as it is.
  */
-export function wrapIntoCell(s: Structure): { structure: Structure; count: number } {
+export function wrapCounting(s: Structure): { structure: Structure; count: number } {
   if (!s.cell) return { structure: s, count: 0 };
   const f = toFractional(s.cell, s.positions);
   const moved = new Uint8Array(f.length / 3);

@@ -53,5 +53,7 @@ export function settings() {
     dataDir: e.TAUFORGE_DATA_DIR ?? join(root, '.data', 'mariadb'),
     appPort: Number(e.PORT ?? 3000),
     smtpPort: Number(e.SMTP_PORT ?? 2525),
+    redisPort: Number(e.TAUFORGE_REDIS_PORT ?? 6380),
+    redisDir: e.TAUFORGE_REDIS_DIR ?? join(root, '.data', 'redis'),
   };
 }

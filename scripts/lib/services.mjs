@@ -1,4 +1,5 @@
 // The pieces both `npm start` and `npm test` bring up: database, schema, mail fake, Next.js server.
+import { availableParallelism } from 'node:os';
 import { join } from 'node:path';
 import { createDatabase, initialise, start as startMariadb } from '../../db/server/mariadb.mjs';
 import { root } from './env.mjs';
@@ -54,4 +55,32 @@ export async function serve(env, port) {
   });
   await waitForPort(port, '127.0.0.1', 120_000, child);
   return { child, stop: () => stopChild(child) };
+}
+
+/** The queue's Redis: ours on 127.0.0.1 (stopped on exit), or the external one REDIS_URL names. */
+export async function bringUpRedis({ dataDir, port, persist, fresh }) {
+  if (process.env.REDIS_URL) {
+    step(`using the external Redis in REDIS_URL (${new URL(process.env.REDIS_URL).host}); none is started`);
+    return { url: process.env.REDIS_URL, stop: async () => {} };
+  }
+  const { startRedis } = await import('./redis.mjs');
+  return startRedis({ dataDir, port, persist, fresh });
+}
+
+/** How many worker processes: TAUFORGE_WORKERS, else one per core but one (for the web server), at least 1. */
+export function workerCount() {
+  const set = Number(process.env.TAUFORGE_WORKERS);
+  if (Number.isInteger(set) && set >= 0) return set;
+  return Math.max(1, availableParallelism() - 1);
+}
+
+/** Build the worker into plain JavaScript and start `count` worker processes. */
+export async function startWorkers(env, count) {
+  const { buildWorker } = await import('../worker/build.mjs');
+  step('building the queue worker (esbuild → dist/worker)');
+  const { main } = await buildWorker();
+  const children = [];
+  for (let i = 0; i < count; i++) children.push(startChild(process.execPath, [main], { cwd: root, env }));
+  if (count) step(`started ${count} queue worker process${count === 1 ? '' : 'es'}`);
+  return { children, stop: () => Promise.all(children.map((c) => stopChild(c))) };
 }

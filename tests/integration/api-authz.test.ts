@@ -11,6 +11,7 @@ import { join, relative } from 'node:path';
 import { closeDb, db } from '../../lib/server/db';
 import { resetRateLimits } from '../../lib/server/ratelimit';
 import { forgetUser } from '../../lib/server/actor';
+import { closeQueue } from '../../lib/server/queue/connection';
 import { bearerFor, call, FIB, makeInvitation, makeLink, makeProject, makeUser, type ProjectFixture, type TestUser } from './api-fixtures';
 
 const ACTORS = ['anonymous', 'viewer', 'editor', 'owner', 'other', 'admin', 'bearer'] as const;
@@ -46,6 +47,21 @@ function patternForm(): FormData {
   f.set('file', new File(['2theta intensity\n10.0 5\n20.0 7\n30.0 2\n'], 'measured.xy', { type: 'text/plain' }));
   return f;
 }
+
+/** A queued job of the project's owner, straight into the table (no worker needs to see it). */
+async function queuedJob(c: Ctx): Promise<number> {
+  const [id] = await db()('jobs').insert({ project_id: c.p.id, user_id: c.users.owner.id, kind: 'diffraction', input: JSON.stringify({ revision: c.p.rev2 }) });
+  return Number(id);
+}
+
+/** A finished one-point sweep whose point holds the fixture's params. */
+async function finishedSweep(c: Ctx): Promise<number> {
+  const [id] = await db()('jobs').insert({ project_id: c.p.id, user_id: c.users.owner.id, kind: 'sweep', state: 'done', progress: 1, total: 1, done: 1, input: JSON.stringify({ revision: c.p.rev2 }) });
+  await db()('sweep_points').insert({ job_id: id, idx: 0, params: JSON.stringify(FIB), rwp: 0.1, rp: 0.1, atoms: 8, runs: 1, finished_at: new Date() });
+  return Number(id);
+}
+
+const jobCall = (id: number, tail: string) => ({ url: `/api/jobs/${id}${tail}`, params: { id: String(id) } });
 
 const TABLE: Row[] = [
   { route: 'me', method: 'GET', make: () => ({ url: '/api/me' }), expect: SIGNED_IN(200) },
@@ -88,6 +104,15 @@ const TABLE: Row[] = [
   { route: 'projects/[id]/datasets', method: 'POST', make: (c) => ({ url: `/api/projects/${c.p.id}/datasets`, params: pid(c), form: patternForm() }), expect: EDIT(201) },
   { route: 'projects/[id]/datasets/[did]', method: 'GET', make: (c) => ({ url: `/api/projects/${c.p.id}/datasets/${c.p.datasetId}`, params: { id: String(c.p.id), did: String(c.p.datasetId) } }), expect: READ },
   { route: 'projects/[id]/datasets/[did]', method: 'DELETE', make: (c) => ({ url: `/api/projects/${c.p.id}/datasets/${c.p.datasetId}`, params: { id: String(c.p.id), did: String(c.p.datasetId) } }), expect: EDIT(204) },
+  { route: 'projects/[id]/jobs', method: 'GET', make: (c) => ({ url: `/api/projects/${c.p.id}/jobs`, params: pid(c) }), expect: READ },
+  // Indexing a measured pattern is a read-only job any signed-in reader may start (identical requests join one job).
+  { route: 'projects/[id]/jobs', method: 'POST', make: (c) => ({ url: `/api/projects/${c.p.id}/jobs`, params: pid(c), body: { kind: 'index', dataset: c.p.datasetId } }), expect: [404, 202, 202, 202, 404, 202, 202] },
+  { route: 'jobs/[id]', method: 'GET', make: async (c) => jobCall(await queuedJob(c), '') , expect: READ },
+  // Cancel: the one who started it (the owner here) or an editor.
+  { route: 'jobs/[id]', method: 'DELETE', make: async (c) => jobCall(await queuedJob(c), ''), expect: EDIT(200) },
+  { route: 'jobs/[id]/cancel', method: 'POST', make: async (c) => ({ ...jobCall(await queuedJob(c), '/cancel'), body: {} }), expect: EDIT(200) },
+  { route: 'jobs/[id]/points', method: 'GET', make: async (c) => jobCall(await finishedSweep(c), '/points'), expect: READ },
+  { route: 'jobs/[id]/save', method: 'POST', make: async (c) => ({ ...jobCall(await finishedSweep(c), '/save'), body: {} }), expect: EDIT(201) },
   { route: 'invitations', method: 'GET', make: async (c) => ({ url: `/api/invitations?token=${encodeURIComponent(await makeInvitation(c.p.id, c.users.other.email, c.users.owner))}` }), expect: ANYONE(200) },
   // Sent to "other"'s address: only that account may accept it.
   { route: 'invitations', method: 'POST', make: async (c) => ({ url: '/api/invitations', body: { token: await makeInvitation(c.p.id, c.users.other.email, c.users.owner) } }), expect: [401, 403, 403, 403, 200, 403, 403] },
@@ -143,7 +168,10 @@ beforeAll(async () => {
   };
   bearer = await bearerFor(users.owner);
 });
-afterAll(closeDb);
+afterAll(async () => {
+  await closeQueue();
+  await closeDb();
+});
 
 describe('authorization matrix', () => {
   it('has a row for every handler of every route under app/api', async () => {

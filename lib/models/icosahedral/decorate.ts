@@ -14,7 +14,7 @@ import { checkPointCap } from '../point-cap';
 import type { CutClass } from './cut';
 import { vertexClass } from './cut';
 import { CLUSTER_PRESETS, clusterSize, placeClusters, type ClusterTemplate } from './clusters';
-import { mergeClose, wrapIntoCell } from '../../structure/merge';
+import { mergeClose, wrapCounting } from '../../structure/merge';
 import { TOO_CLOSE_FRACTION, tooCloseThreshold } from '../../structure/radii';
 import { forEachPairWithin } from '../../math/cell-list';
 
@@ -140,7 +140,7 @@ export function applyClusters<S extends Structure>(s: S, decoration?: Decoration
     }
   }
   if (out.cell) {
-    const w = wrapIntoCell(out);
+    const w = wrapCounting(out);
     out = w.structure;
     if (w.count > 0) notes.push(`wrapped ${w.count} cluster atoms that fell outside the cell back into it`);
   }

@@ -44,10 +44,10 @@ const GOLDEN: Record<string, Record<string, string>> = {
     'json': 'b3d3e4d563b51414d8b25b0835f6edbeff20130ef50541b2cec52f9958150645'
   },
   'starter:icosahedral': {
-    'xyz': 'e8adb4409b00712789c89354e9b2b8407c3f6356a290f2b621e1694b41654074',
-    'cif': '1b85d8560f291bc1ce9f0c7d4b91698a9b26c9a97ff25ba92a6453b8d50c7522',
-    'extxyz': '1b895acc0878c41dad04651252f429e6a45a8351a86dd66120317df518eceb53',
-    'json': '45a89cf38ff7c9f9051dd1ecaf7f1e4a36584374ef536a65ffd1ee8f71da75ee'
+    'xyz': '0e1413f9d4b8cb3fd9366eff9d0f16e19f8e42049276e5b0f15f585a4e875ca6',
+    'cif': '0658c3573660983b579436c02198a2a5b327ef2e4f6961ab43da1da7a6ae0ce9',
+    'extxyz': '08a0db159b255f1fa0a71977343fe548f16fa9b48ed1df276ede749680ffb1b8',
+    'json': '31f447f334a03a89324319dffd9e5378731206eb070688358792cc24a48307a3'
   },
   'starter:decagonal': {
     'xyz': '15d7f3351f138d207f8a73e21fed954b1b61282957c8888a45871fd654d9c8cc',
@@ -83,16 +83,16 @@ const GOLDEN: Record<string, Record<string, string>> = {
     'json': '0bab77742519c26526444e50022d400463556bf13fb43d1bafb63e82800043cc'
   },
   'icosahedral-approximant-1/1-decorated': {
-    'xyz': '495ee6bbdd46a46ed998ca143c3c79dc2eb10e3516a3010aa64b7169549b1b8b',
-    'cif': '73453d04b029b5bd6b84cd39ba5a758ccb789352b3061dc7cbdce9cbedb70c1d',
-    'extxyz': 'ecaeb7d9d5c3e5b20a9ca892a7110df94909abe7ee7d1e02ee18a991f7d680aa',
-    'json': '8159ce9a347b61a04b0f3803b521e43ff1ed5101b49cc3f06306382b468e3d93'
+    'xyz': '86d173dfa127b377c20ebe1ba614e15690782e5f8a19e28e3ffb2cb5713d9ff4',
+    'cif': 'a2baaffb306ae5406d15ef7606b31ef7e5981db3d19187fd829697dcd3436df2',
+    'extxyz': 'de5ee2ad21a5ab59aa76dbe39458fff013f79dc9f0b1db903e0b95f020f76838',
+    'json': '8eedc08d16b7b3a48b4c5f8e521e32b08da446bb04eb717a513e93c48c9a1fcd'
   },
   'icosahedral-approximant-1/1-F': {
-    'xyz': 'dfa4b46e96655a26bc915394adc80d563112af95221ce737dea895f59cc681d4',
-    'cif': 'cae22adadf10328c4fb4f388789dc807b088096ec20931bff2113919e44a29b8',
-    'extxyz': '6292ba6b85ab550a3d6632d5c28727e7a84dd09bd7c5333eeafe65b1feb60d8d',
-    'json': '55ad4980a86e03b5dc67374fcf6abf2168bab5d116a5a75e73d5bf06a176b273'
+    'xyz': '4ae162776028909fcdacf616b35a7cc1dbbe2614558e10ae8d9bcdb8ae133e0e',
+    'cif': 'd11704df9d7f85fbb8c4c9c626842af5ac9fd5cdab0e7a7b47e7f3292a1b3949',
+    'extxyz': '439d31980f0c5c0cc9dd7eacf66300f527d5ad47f441c95a869cc67231b107aa',
+    'json': 'e118000da87891ca8170d7d45a33f176e992168bad82c98a26764f5dc2050b0b'
   },
   'icosahedral-approximant-1/1-tsai': {
     'xyz': 'b18178b6422474bce9207b7dff5ee0afa2070dac883ce25cb47131ce559581a5',

@@ -5,8 +5,12 @@ type P = { id: string };
 
 export const GET = route<P>(async (req, actor, p) => json(await listExports(actor, routeId(p.id), readQuery(req, exportListQuery))));
 
-/** {revision, format}: 201 with a new export, 200 with the stored one when it already exists. */
+/**
+ * {revision, format}: 200 with the stored export when it exists; otherwise 202 with the export job
+ * (Location: the job's URL; poll it, its result names the export).
+ */
 export const POST = route<P>(async (req, actor, p) => {
   const r = await createExport(actor, routeId(p.id), await readJson(req, createExportSchema));
-  return json({ ...r.export, reused: r.reused }, r.reused ? 200 : 201);
+  if ('export' in r) return json({ ...r.export, reused: true }, 200);
+  return json({ job: r.job, coalesced: r.coalesced }, 202, { location: r.job.url });
 });

@@ -1,0 +1,47 @@
+/**
+ * The one Redis queue of Tauforge. Redis holds only the queue (BullMQ); MariaDB holds the durable
+ * record of every job (lib/server/queue/service.ts). REDIS_URL points at any Redis; without it,
+ * the one `npm start` / `npm test` runs on 127.0.0.1 (TAUFORGE_REDIS_PORT, 6380 by default).
+ */
+import { Queue } from 'bullmq';
+import { Redis } from 'ioredis';
+
+/** The queue's name; TAUFORGE_QUEUE lets tests (or a second site on one Redis) keep their own. */
+export const queueName = () => process.env.TAUFORGE_QUEUE || 'tauforge';
+/** Pub/sub channel a cancel is announced on; every worker process listens. */
+export const cancelChannel = () => `${queueName()}:cancel`;
+
+export function redisUrl(): string {
+  return process.env.REDIS_URL || `redis://127.0.0.1:${process.env.TAUFORGE_REDIS_PORT ?? 6380}`;
+}
+
+/** A new connection; BullMQ needs maxRetriesPerRequest null on the ones that block. */
+export function redis(): Redis {
+  return new Redis(redisUrl(), { maxRetriesPerRequest: null, lazyConnect: false });
+}
+
+const g = globalThis as unknown as { __tauforgeQueue?: Queue; __tauforgeRedis?: Redis };
+
+export function queue(): Queue {
+  if (!g.__tauforgeQueue) g.__tauforgeQueue = new Queue(queueName(), { connection: redis() });
+  return g.__tauforgeQueue;
+}
+
+/** A shared connection for plain commands (publish). */
+export function plainRedis(): Redis {
+  if (!g.__tauforgeRedis) g.__tauforgeRedis = new Redis(redisUrl(), { maxRetriesPerRequest: 3 });
+  return g.__tauforgeRedis;
+}
+
+export async function closeQueue(): Promise<void> {
+  const q = g.__tauforgeQueue;
+  const r = g.__tauforgeRedis;
+  g.__tauforgeQueue = undefined;
+  g.__tauforgeRedis = undefined;
+  await q?.close();
+  r?.disconnect();
+}
+
+/** BullMQ ids must not be plain integers: a job row's BullMQ id, and a sweep point's. */
+export const bullId = (jobId: number) => `j${jobId}`;
+export const pointId = (sweepId: number, idx: number) => `s${sweepId}-p${idx}`;

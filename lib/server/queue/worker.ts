@@ -1,0 +1,270 @@
+/**
+ * A queue worker process (`npm run worker`, built to dist/worker/main.mjs). It takes jobs from Redis one
+ * at a time, runs each heavy part in a task thread with time and memory limits (runner.ts), and writes
+ * the durable record in MariaDB. Needs only REDIS_URL and the TAUFORGE_DB_* settings, so any machine
+ * that reaches both can add workers. Start one per core.
+ */
+import { DelayedError, Worker, type Job } from 'bullmq';
+import { db } from '../db';
+import { audit } from '../audit';
+import { paramsHash, sha256Hex } from '../crypto';
+import { ENGINE_VERSION } from '../../version';
+import { cancelChannel, pointId, queueName, queue, redis } from './connection';
+import { limits, timeLimitMs } from './limits';
+import { TaskError, TaskThread } from './runner';
+import { gridPoint, gridSize, type Axis } from './grid';
+import type { JobKind, PowderSettings, SweepJob } from './kinds';
+import type { Parsed } from '../datasets';
+
+/** Exports are stored in pieces of this size: far below max_allowed_packet even hex-escaped (tests set it small). */
+const CHUNK_BYTES = Number(process.env.TAUFORGE_EXPORT_CHUNK_BYTES) > 0 ? Number(process.env.TAUFORGE_EXPORT_CHUNK_BYTES) : 4 * 1024 * 1024;
+
+const parseJson = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
+const now = () => db().fn.now(3);
+
+function errJson(code: string, message: string, details: unknown = null): string {
+  return JSON.stringify({ code, message, details });
+}
+
+async function finish(id: number, result: unknown): Promise<void> {
+  await db()('jobs').where({ id, state: 'running' }).update({ state: 'done', progress: 1, stage: null, result: JSON.stringify(result), active_key: null, finished_at: now() });
+}
+
+async function failJob(id: number, code: string, message: string, details: unknown = null): Promise<void> {
+  await db()('jobs').where({ id }).whereIn('state', ['queued', 'running']).update({ state: 'failed', stage: null, error: errJson(code, message, details), active_key: null, finished_at: now() });
+}
+
+function settingsOf(input: Record<string, unknown>): PowderSettings {
+  const { radiation, wavelength, twoThetaMin, twoThetaMax, step, fwhm } = input as unknown as PowderSettings;
+  return { radiation, wavelength, twoThetaMin, twoThetaMax, step, fwhm };
+}
+
+export interface WorkerHandle {
+  worker: Worker;
+  close(): Promise<void>;
+}
+
+export async function startWorker(threadFile: URL, o: { log?: (m: string) => void } = {}): Promise<WorkerHandle> {
+  const log = o.log ?? ((m: string) => console.log(`[worker ${process.pid}] ${m}`));
+  const L = limits();
+  const thread = new TaskThread(threadFile, L.memoryMb);
+  /** Which job row the thread works for now (a sweep's id while it runs one of its points). */
+  let running: number | null = null;
+  const measuredCache = new Map<number, string>();
+
+  const sub = redis();
+  await sub.subscribe(cancelChannel());
+  sub.on('message', (_ch: string, msg: string) => {
+    if (running !== null && Number(msg) === running) thread.cancel();
+  });
+
+  async function task<T>(id: number, kind: Exclude<JobKind, 'sweep'>, input: unknown, progress = true): Promise<T> {
+    let last = 0;
+    running = id;
+    try {
+      return await thread.run<T>(kind, input, {
+        timeMs: timeLimitMs(kind),
+        onProgress: progress
+          ? (fraction, stage) => {
+              const t = Date.now();
+              if (t - last < 500) return;
+              last = t;
+              void db()('jobs').where({ id, state: 'running' }).update({ progress: Math.min(0.99, fraction), stage: stage.slice(0, 200) }).catch(() => {});
+            }
+          : undefined,
+      });
+    } finally {
+      running = null;
+    }
+  }
+
+  /** Claim a job row: queued → running, unless its owner already runs their share of jobs. */
+  async function claim(row: { id: number; user_id: number | null }): Promise<boolean> {
+    return db().transaction(async (trx) => {
+      if (row.user_id != null) {
+        await trx('users').where({ id: row.user_id }).forUpdate().first('id');
+        const [{ n }] = await trx('jobs').where({ user_id: row.user_id, state: 'running' }).whereNot({ id: row.id }).count({ n: '*' });
+        if (Number(n) >= L.maxRunningPerUser) return false;
+      }
+      const u = await trx('jobs').where({ id: row.id }).whereIn('state', ['queued', 'running'])
+        .update({ state: 'running', started_at: trx.raw('COALESCE(started_at, CURRENT_TIMESTAMP(3))'), attempts: trx.raw('attempts + 1'), stage: 'starting' });
+      return u > 0;
+    });
+  }
+
+  async function runExport(id: number, input: { revision: number; format: string }, userId: number | null, projectId: number) {
+    const rev = await db()('revisions').where({ id: input.revision }).first('params');
+    if (!rev) return failJob(id, 'not_found', 'The revision was deleted before the export ran.');
+    const params = parseJson(rev.params);
+    const stored = await db()('exports').where({ revision_id: input.revision, format: input.format, engine_version: ENGINE_VERSION }).first('id');
+    if (stored) return finish(id, { export: Number(stored.id) });
+    const { bytes } = await task<{ bytes: Uint8Array }>(id, 'export', { params, format: input.format });
+    const buf = Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+    await db()('jobs').where({ id }).update({ stage: 'storing', progress: 0.95 });
+    const exportId = await db().transaction(async (trx) => {
+      const chunks = Math.ceil(buf.length / CHUNK_BYTES);
+      const [eid] = await trx('exports').insert({
+        revision_id: input.revision, format: input.format, bytes: Buffer.alloc(0), chunks, sha256: sha256Hex(buf),
+        params_hash: paramsHash(params), engine_version: ENGINE_VERSION, size: buf.length, created_by: userId,
+      });
+      for (let i = 0; i < chunks; i++) {
+        await trx('export_chunks').insert({ export_id: eid, seq: i, bytes: buf.subarray(i * CHUNK_BYTES, (i + 1) * CHUNK_BYTES) });
+      }
+      await audit({ actorId: userId, action: 'export.create', targetType: 'export', targetId: Number(eid), details: { project: projectId, revision: input.revision, format: input.format, job: id } }, trx);
+      return Number(eid);
+    });
+    await finish(id, { export: exportId, size: buf.length });
+  }
+
+  async function runParse(id: number, input: { filename: string; kind: 'auto' | 'pattern' | 'structure'; mediaType: string }, text: string, userId: number | null, projectId: number) {
+    const parsed = await task<Parsed>(id, 'parse', { text, filename: input.filename, kind: input.kind });
+    const bytes = Buffer.from(text, 'utf8');
+    const datasetId = await db().transaction(async (trx) => {
+      const [did] = await trx('datasets').insert({
+        project_id: projectId, kind: parsed.kind, filename: input.filename, format: parsed.format, media_type: input.mediaType,
+        bytes, sha256: sha256Hex(bytes), size: bytes.length, summary: JSON.stringify(parsed.summary), uploaded_by: userId,
+      });
+      await audit({ actorId: userId, action: 'dataset.upload', targetType: 'dataset', targetId: Number(did), details: { project: projectId, filename: input.filename, kind: parsed.kind } }, trx);
+      return Number(did);
+    });
+    await finish(id, { dataset: datasetId });
+  }
+
+  async function measured(datasetId: number): Promise<string> {
+    let text = measuredCache.get(datasetId);
+    if (text === undefined) {
+      const ds = await db()('datasets').where({ id: datasetId }).first('bytes');
+      if (!ds) throw new TaskError('not_found', 'The measured dataset was deleted.');
+      text = Buffer.from(ds.bytes).toString('utf8');
+      if (measuredCache.size > 20) measuredCache.clear();
+      measuredCache.set(datasetId, text);
+    }
+    return text;
+  }
+
+  /** A sweep fans out: one record and one queued child job per grid point, both keyed by the point index. */
+  async function runSweep(id: number, input: SweepJob) {
+    const rev = await db()('revisions').where({ id: input.revision }).first('params');
+    if (!rev) return failJob(id, 'not_found', 'The revision was deleted before the sweep ran.');
+    const base = parseJson(rev.params);
+    const axes = input.axes as Axis[];
+    const total = gridSize(axes);
+    for (let start = 0; start < total; start += 500) {
+      const rows = [];
+      for (let i = start; i < Math.min(total, start + 500); i++) rows.push({ job_id: id, idx: i, params: JSON.stringify(gridPoint(base, axes, i)) });
+      await db()('sweep_points').insert(rows).onConflict(['job_id', 'idx']).ignore();
+    }
+    await db()('jobs').where({ id }).update({ total, stage: `0 of ${total} points` });
+    const pending = await db()('sweep_points').where({ job_id: id }).whereNull('finished_at').pluck('idx');
+    // Re-adding a point that is still queued is a no-op: BullMQ keeps one job per id.
+    for (let s = 0; s < pending.length; s += 500) {
+      await queue().addBulk(pending.slice(s, s + 500).map((idx: number) => ({ name: 'point', data: { sweep: id, idx: Number(idx) }, opts: { jobId: pointId(id, Number(idx)), removeOnComplete: true, removeOnFail: 1000 } })));
+    }
+    await settle(id);
+  }
+
+  /** Count finished points (each row once, however often it ran) and close the sweep when all are in. */
+  async function settle(sweepId: number) {
+    const s = await db()('jobs').where({ id: sweepId }).first('state', 'total');
+    if (!s || s.state !== 'running' || s.total == null) return;
+    const [{ n }] = await db()('sweep_points').where({ job_id: sweepId }).whereNotNull('finished_at').count({ n: '*' });
+    const done = Number(n);
+    const total = Number(s.total);
+    await db()('jobs').where({ id: sweepId, state: 'running' }).update({ done, progress: total ? done / total : 1, stage: `${done} of ${total} points` });
+    if (done < total) return;
+    const best = await db()('sweep_points').where({ job_id: sweepId }).whereNotNull('rwp').orderBy('rwp', 'asc').orderBy('idx', 'asc').first();
+    const [{ f }] = await db()('sweep_points').where({ job_id: sweepId }).whereNull('rwp').count({ f: '*' });
+    await finish(sweepId, { best: best ? { point: Number(best.idx), rwp: Number(best.rwp), params: parseJson(best.params) } : null, failedPoints: Number(f), points: total });
+  }
+
+  async function runPoint(data: { sweep: number; idx: number }) {
+    const s = await db()('jobs').where({ id: data.sweep }).first('state', 'input');
+    if (!s || s.state !== 'running') return; // cancelled, failed or gone: nothing to do
+    const p = await db()('sweep_points').where({ job_id: data.sweep, idx: data.idx }).first('params', 'finished_at');
+    if (!p) return;
+    if (p.finished_at) return settle(data.sweep);
+    const input = parseJson(s.input) as SweepJob;
+    const where = () => db()('sweep_points').where({ job_id: data.sweep, idx: data.idx }).whereNull('finished_at');
+    try {
+      const r = await task<{ atoms: number; rwp: number; rp: number }>(data.sweep, 'point', { params: parseJson(p.params), measured: await measured(input.dataset), settings: settingsOf(input) }, false);
+      await where().update({ rwp: Number.isFinite(r.rwp) ? r.rwp : null, rp: Number.isFinite(r.rp) ? r.rp : null, atoms: r.atoms, error: Number.isFinite(r.rwp) ? null : 'R_wp is not defined for this point', runs: db().raw('runs + 1'), finished_at: now() });
+    } catch (e) {
+      if (e instanceof TaskError && e.code === 'cancelled') return;
+      if (!(e instanceof TaskError)) throw e;
+      await where().update({ error: e.message.slice(0, 2000), runs: db().raw('runs + 1'), finished_at: now() });
+    }
+    await settle(data.sweep);
+  }
+
+  async function processTop(job: Job, token: string | undefined) {
+    const id = Number(job.data.jobId);
+    const row = await db()('jobs').where({ id }).first();
+    if (!row || !['queued', 'running'].includes(row.state)) return; // cancelled before it started
+    if (!(await claim(row))) {
+      // The owner runs their share already: try again in a moment, without counting an attempt.
+      await job.moveToDelayed(Date.now() + 1000 + Math.floor(Math.random() * 500), token);
+      throw new DelayedError();
+    }
+    const input = parseJson(row.input);
+    log(`job ${id} (${row.kind}) started`);
+    try {
+      switch (row.kind as JobKind) {
+        case 'export':
+          await runExport(id, input, row.user_id, Number(row.project_id));
+          break;
+        case 'parse':
+          await runParse(id, input, String(job.data.text ?? ''), row.user_id, Number(row.project_id));
+          break;
+        case 'diffraction': {
+          const rev = await db()('revisions').where({ id: input.revision }).first('params');
+          if (!rev) return failJob(id, 'not_found', 'The revision was deleted before the job ran.');
+          await finish(id, await task(id, 'diffraction', { params: parseJson(rev.params), settings: settingsOf(input) }));
+          break;
+        }
+        case 'index':
+          await finish(id, await task(id, 'index', { text: await measured(Number(input.dataset)) }));
+          break;
+        case 'sweep':
+          await runSweep(id, input);
+          break;
+        default:
+          await failJob(id, 'internal', `Unknown job kind ${row.kind}.`);
+      }
+      log(`job ${id} (${row.kind}) handed on`);
+    } catch (e) {
+      if (e instanceof TaskError) {
+        if (e.code !== 'cancelled') await failJob(id, e.code, e.message, e.details);
+        log(`job ${id} (${row.kind}): ${e.code}`);
+        return;
+      }
+      throw e;
+    }
+  }
+
+  const worker = new Worker(
+    queueName(),
+    async (job, token) => (job.name === 'point' ? runPoint(job.data) : processTop(job, token)),
+    { connection: redis(), concurrency: 1, lockDuration: L.lockMs, stalledInterval: Math.max(1000, Math.floor(L.lockMs / 2)), maxStalledCount: 3 },
+  );
+  // Jobs that fail outside a task (the database went away, or the workers running it died three times).
+  worker.on('failed', (job, err) => {
+    if (!job) return;
+    const stalled = /stalled/i.test(err.message);
+    const msg = stalled ? 'The worker running this job stopped (crashed or was killed) several times; the job was given up.' : `The job failed on the worker: ${err.message}`;
+    if (job.name === 'point') {
+      void db()('sweep_points').where({ job_id: job.data.sweep, idx: job.data.idx }).whereNull('finished_at')
+        .update({ error: msg, runs: db().raw('runs + 1'), finished_at: now() }).then(() => settle(job.data.sweep)).catch(() => {});
+    } else void failJob(Number(job.data.jobId), stalled ? 'worker_lost' : 'worker_error', msg).catch(() => {});
+  });
+  worker.on('error', (e) => log(`queue error: ${e.message}`));
+  await worker.waitUntilReady();
+  log(`ready (Redis ${new URL(process.env.REDIS_URL || 'redis://127.0.0.1').host || 'local'}, heap limit ${L.memoryMb} MB per task)`);
+  return {
+    worker,
+    async close() {
+      await worker.close();
+      await thread.close();
+      sub.disconnect();
+    },
+  };
+}
