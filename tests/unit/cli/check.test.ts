@@ -54,7 +54,8 @@ describe('tauforge check', () => {
 });
 
 describe('approximant --format poscar|lammps --supercell', () => {
-  const base = ['approximant', '--family', 'icosahedral', '--order', '1/1', '--aR', '4.6', '--species', 'Al'];
+  // A generic phason offset: the symmetric 1/1 has fractional boundary sites, which POSCAR and LAMMPS cannot hold.
+  const base = ['approximant', '--family', 'icosahedral', '--order', '1/1', '--aR', '4.6', '--species', 'Al', '--offset', '0.31,0.17,0.05'];
 
   it('POSCAR of a 1×1×2 supercell reads in ASE as the 1/1 cell repeated (ase.Atoms.repeat), warnings on stderr and line 1', async () => {
     const one = await cli([...base, '--format', 'poscar']);

@@ -180,7 +180,7 @@ Mg1 Mg 0.333333 0.666667 0.25
   });
 
   it('approximant: the 1/1 cubic approximant of the icosahedral model (32 Al, a = 12.66 Å), every line above 1', () => {
-    const p = icosahedralModelSchema.parse({ family: 'icosahedral', mode: 'approximant', order: '1/1', aR: 4.6, species: 'Al' } as never);
+    const p = icosahedralModelSchema.parse({ family: 'icosahedral', mode: 'approximant', order: '1/1', aR: 4.6, species: 'Al', offset: [0.31, 0.17, 0.05] } as never); // generic offset: 32 whole atoms
     const s = generateIcosahedral(p);
     expect(s.species.length).toBe(32);
     const { ours, worst, sameM } = compareLines(s, CU_KA1, [10, 90], { rel: 0.03, abs: 0.1 }, true);
