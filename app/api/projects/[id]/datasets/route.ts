@@ -1,5 +1,5 @@
 import { ApiError } from '@/lib/server/errors';
-import { json, parseWith, readQuery, route, routeId } from '@/lib/server/http';
+import { json, parseWith, readFormCapped, readQuery, route, routeId } from '@/lib/server/http';
 import { datasetListQuery, listDatasets, MAX_DATASET_BYTES, uploadDataset, uploadFieldsSchema } from '@/lib/server/datasets';
 import { access } from '@/lib/server/authz';
 
@@ -21,12 +21,8 @@ export const POST = route<P>(async (req, actor, p) => {
   if (!/^multipart\/form-data/i.test(req.headers.get('content-type') ?? '')) {
     throw new ApiError('unsupported_media_type', 'Send the file as multipart/form-data in a field called "file".');
   }
-  let form: FormData;
-  try {
-    form = await req.formData();
-  } catch {
-    throw new ApiError('bad_request', 'The multipart body could not be read.');
-  }
+  // The body is read with a cap (a missing or false content-length cannot make it read more).
+  const form = await readFormCapped(req, MAX_DATASET_BYTES + 64 * 1024);
   const fields = parseWith(uploadFieldsSchema, { kind: form.get('kind') ?? undefined }, 'upload form');
   const f = form.get('file');
   const file = f && typeof f !== 'string' ? { name: f.name, type: f.type, bytes: new Uint8Array(await f.arrayBuffer()) } : null;
