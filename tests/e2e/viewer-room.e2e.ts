@@ -210,11 +210,15 @@ async function brassAlong(page: Page, a: Pt, b: Pt): Promise<number> {
       const sx = img.width / rect.width;
       const sy = img.height / rect.height;
       let hits = 0;
+      let inside = 0;
       const samples = 21;
       for (let k = 0; k < samples; k++) {
         const t = 0.25 + (0.5 * k) / (samples - 1);
         const x = Math.round((a.x + t * (b.x - a.x) - rect.x) * sx);
         const y = Math.round((a.y + t * (b.y - a.y) - rect.y) * sy);
+        // Only the part of the segment that lies on the canvas can be seen (the partner's image may be outside).
+        if (x < 2 || y < 2 || x > img.width - 3 || y > img.height - 3) continue;
+        inside++;
         const px = g.getImageData(x - 2, y - 2, 5, 5).data;
         let found = false;
         for (let i = 0; i < px.length; i += 4) {
@@ -222,7 +226,7 @@ async function brassAlong(page: Page, a: Pt, b: Pt): Promise<number> {
         }
         if (found) hits++;
       }
-      return hits / samples;
+      return inside >= 5 ? hits / inside : 0;
     },
     { url: (await page.evaluate(`${HOOK}.snapshot()`)) as string, a, b, rect },
   )) as number;

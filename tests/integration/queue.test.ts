@@ -180,12 +180,16 @@ describe('limits', () => {
   });
 
   it('stop a job over its time limit and one over its memory limit, with errors that say so', async () => {
-    const w = await worker({ TAUFORGE_JOB_TIME_DIFFRACTION: '1', TAUFORGE_JOB_MEMORY_MB: '16' });
+    // One limit per worker, so neither can trip the other (the fast structure-factor path of a 3/2 cell
+    // needs more than 16 MB).
+    const wt = await worker({ TAUFORGE_JOB_TIME_DIFFRACTION: '1' });
     const slow = await (await startJob({ kind: 'diffraction', revision: ico32, ...POWDER, twoThetaMax: 120, step: 0.01 })).json();
     const s = await finished(slow.id);
     expect(s.state).toBe('failed');
     expect(s.error.code).toBe('timed_out');
     expect(s.error.message).toMatch(/1 s limit/);
+    await wt.kill();
+    const w = await worker({ TAUFORGE_JOB_MEMORY_MB: '16' });
     const big = await addRevision(ICO('13/8'), 5);
     const huge = await (await startJob({ kind: 'export', revision: big, format: 'extxyz' })).json();
     const h = await finished(huge.id, 120_000);
@@ -208,7 +212,7 @@ describe('sweeps', () => {
     const wA = await worker();
     const wB = await worker();
     const up = await call(datasetsRoute, 'POST', `/api/projects/${p.id}/datasets`, { params: { id: String(p.id) }, form, cookie: owner.cookie });
-    expect(up.status).toBe(201);
+    expect(up.status, await up.clone().text()).toBe(201);
     const dataset = (await up.json()).id;
     const aRs = [4.3, 4.4, 4.5, 4.55, 4.6, 4.65, 4.7, 4.8, 4.9, 5.0];
     const r = await startJob({ kind: 'sweep', revision: ico11, dataset, axes: [{ path: 'aR', values: aRs }, { path: 'species', values: ['Al', 'Cu', 'Pd'] }], ...POWDER });
