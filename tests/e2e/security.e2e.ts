@@ -174,6 +174,11 @@ describe('security in the browser', () => {
     const missing = await ctx.request.get(`${baseUrl}/api/no/such/thing`);
     expect(missing.status()).toBe(404);
     expect((await missing.json()).error.code).toBe('not_found');
+    // The bare /api path too (an optional catch-all claims it), not Next's HTML 404 page.
+    const bare = await ctx.request.get(`${baseUrl}/api`);
+    expect(bare.status()).toBe(404);
+    expect(bare.headers()['content-type']).toContain('application/json');
+    expect((await bare.json()).error.code).toBe('not_found');
     const put = await ctx.request.put(`${baseUrl}/api/projects`, { data: {} });
     expect(put.status()).toBe(405);
     expect(put.headers()['allow']).toBe('GET, HEAD, OPTIONS, POST');

@@ -132,7 +132,7 @@ const TABLE: Row[] = [
 const EXEMPT: Record<string, string> = {
   health: 'foundation health check, tested in health.test.ts',
   'auth/[...nextauth]': 'next-auth’s own sign-in endpoints; exercised by the browser test',
-  '[...rest]': 'the JSON 404 for unknown /api paths; tested in security.test.ts',
+  '[[...rest]]': 'the JSON 404 for unknown /api paths; tested in security.test.ts',
   'account/sessions': 'ends every session of the caller (its cookie would end mid-table); tested in security.test.ts',
 };
 

@@ -35,7 +35,7 @@ import * as forkRoute from '../../app/api/projects/[id]/fork/route';
 import * as datasetRoute from '../../app/api/projects/[id]/datasets/[did]/route';
 import * as tokensRoute from '../../app/api/tokens/route';
 import * as healthRoute from '../../app/api/health/route';
-import * as restRoute from '../../app/api/[...rest]/route';
+import * as restRoute from '../../app/api/[[...rest]]/route';
 
 let owner: TestUser;
 let stranger: TestUser;
