@@ -24,15 +24,6 @@ export interface MergeResult {
   conflicts: number;
 }
 
-/**
- * Merge atoms closer than tol (Å), periodic images included (cell-list search, O(N)).
- * Deterministic: atoms are visited by increasing index; atom j is removed when some lower-index atom
- * that is itself kept lies within tol, and it merges into the lowest such index. The kept atom keeps
- * its position by default (option `position: 'mean'` moves it to the mean of its group instead). When the two disagree on
- * site class (or species), the one with the earlier site class wins — in placeClusters output the
- * inner shells and the input's own classes come first — ties going to the kept atom; the record
- * reports the conflict. Tiles are remapped onto the kept atoms.
- */
 export interface MergeOptions {
   /**
    * Where the merged atom sits: 'kept' (default) keeps the kept atom's position; 'mean' puts it at the mean of
@@ -43,6 +34,15 @@ export interface MergeOptions {
   position?: 'kept' | 'mean';
 }
 
+/**
+ * Merge atoms closer than tol (Å), periodic images included (cell-list search, O(N)).
+ * Deterministic: atoms are visited by increasing index; atom j is removed when some lower-index atom
+ * that is itself kept lies within tol, and it merges into the lowest such index. The kept atom keeps
+ * its position by default (option `position: 'mean'` moves it to the mean of its group instead). When the two disagree on
+ * site class (or species), the one with the earlier site class wins — in placeClusters output the
+ * inner shells and the input's own classes come first — ties going to the kept atom; the record
+ * reports the conflict. Tiles are remapped onto the kept atoms.
+ */
 export function mergeClose(s: Structure, tol: number, opts: MergeOptions = {}): MergeResult {
   validateStructure(s);
   const n = s.species.length;
