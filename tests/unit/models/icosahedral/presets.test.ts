@@ -135,6 +135,17 @@ print(json.dumps({'hole': float(dist[dc > 3.0].max()), 'rAl': float(Element('Al'
   });
 });
 
+describe('a placement that finds no centre is not silent', () => {
+  it('a centre window scaled by 1/τ³ keeps no vertex of the 2/1: no cluster, and a warning says so', () => {
+    const s = generate({
+      family: 'icosahedral', mode: 'approximant', order: '2/1', aR: 4.61,
+      decoration: { classes: [{ name: 'c', position: 'node', window: { kind: 'hypercube', scale: 1 / TAU ** 3 }, species: 'Mn' }], clusters: [{ at: 'c', preset: 'mackay' }] },
+    });
+    expect(s.species.length).toBe(0);
+    expect(s.notes?.join('\n')).toMatch(/warning: no point of site class "c" lies in its window here, so no Mackay cluster was placed/);
+  });
+});
+
 describe('decorated atoms count against the estimate and the point cap', () => {
   const p = { family: 'icosahedral', mode: 'approximant', order: '1/1', aR: aROf(PHASES.tsai.a), decoration: presetDecoration('tsai') } as const;
 
