@@ -24,16 +24,26 @@ export interface MergeResult {
   conflicts: number;
 }
 
+export interface MergeOptions {
+  /**
+   * Where the merged atom sits: 'kept' (default) keeps the kept atom's position; 'mean' puts it at the mean of
+   * the atoms merged into it (minimum image), which is what a symmetric model needs: two atoms that are images of
+   * each other under a symmetry operation merge onto the symmetry element, so the result keeps the group, while
+   * keeping one of the two would break it (the 1/1 Bergman and Tsai decorations came out R3 and P23).
+   */
+  position?: 'kept' | 'mean';
+}
+
 /**
  * Merge atoms closer than tol (Å), periodic images included (cell-list search, O(N)).
  * Deterministic: atoms are visited by increasing index; atom j is removed when some lower-index atom
  * that is itself kept lies within tol, and it merges into the lowest such index. The kept atom keeps
- * its position (no averaging, so the result does not depend on merge order). When the two disagree on
+ * its position by default (option `position: 'mean'` moves it to the mean of its group instead). When the two disagree on
  * site class (or species), the one with the earlier site class wins — in placeClusters output the
  * inner shells and the input's own classes come first — ties going to the kept atom; the record
  * reports the conflict. Tiles are remapped onto the kept atoms.
  */
-export function mergeClose(s: Structure, tol: number): MergeResult {
+export function mergeClose(s: Structure, tol: number, opts: MergeOptions = {}): MergeResult {
   validateStructure(s);
   const n = s.species.length;
   const partners: { i: number; j: number; d: number }[] = [];
@@ -91,12 +101,13 @@ export function mergeClose(s: Structure, tol: number): MergeResult {
   if (site) out.site = new Uint16Array(m);
   if (s.occupancy) out.occupancy = new Float64Array(m);
   if (s.perp) out.perp = new Float64Array(d * m);
+  const pos = opts.position === 'mean' && merged.length > 0 ? meanPositions(s, into) : s.positions;
   for (let i = 0; i < n; i++) {
     if (!keep(i)) continue;
     const q = newIndex[i];
-    out.positions[3 * q] = s.positions[3 * i];
-    out.positions[3 * q + 1] = s.positions[3 * i + 1];
-    out.positions[3 * q + 2] = s.positions[3 * i + 2];
+    out.positions[3 * q] = pos[3 * i];
+    out.positions[3 * q + 1] = pos[3 * i + 1];
+    out.positions[3 * q + 2] = pos[3 * i + 2];
     out.species[q] = species[i];
     if (site) out.site![q] = site[i];
     if (s.occupancy) out.occupancy![q] = s.occupancy[i];
@@ -104,6 +115,39 @@ export function mergeClose(s: Structure, tol: number): MergeResult {
   }
   if (s.tiles) out.tiles = { ...s.tiles, corners: Uint32Array.from(s.tiles.corners, (c) => newIndex[c]) };
   return { structure: out, merged, count: merged.length, conflicts };
+}
+
+/**
+ * Positions with each kept atom moved to the mean of itself and the atoms merged into it. Periodic: each
+ * partner enters by its minimum image relative to the kept atom (fractional difference rounded to the nearest
+ * lattice vector — exact for the short merge distances in cells much longer than the tolerance).
+ */
+function meanPositions(s: Structure, into: Int32Array): Float64Array {
+  const n = s.species.length;
+  const sum = new Float64Array(3 * n);
+  const cnt = new Uint32Array(n);
+  const frac = s.cell ? toFractional(s.cell, s.positions) : undefined;
+  for (let j = 0; j < n; j++) {
+    const i = into[j] < 0 ? j : into[j];
+    cnt[i]++;
+    if (!frac || i === j) {
+      for (let c = 0; c < 3; c++) sum[3 * i + c] += s.positions[3 * j + c] - (frac ? s.positions[3 * i + c] : 0);
+      continue;
+    }
+    const df = [0, 1, 2].map((c) => {
+      const d = frac[3 * j + c] - frac[3 * i + c];
+      return d - Math.round(d);
+    });
+    const cart = toCartesian(s.cell!, df);
+    for (let c = 0; c < 3; c++) sum[3 * i + c] += cart[c];
+  }
+  const out = Float64Array.from(s.positions);
+  for (let i = 0; i < n; i++) {
+    if (into[i] >= 0 || cnt[i] < 2) continue;
+    // Periodic: sum holds displacements from atom i (its own is 0); finite: absolute positions.
+    for (let c = 0; c < 3; c++) out[3 * i + c] = frac ? s.positions[3 * i + c] + sum[3 * i + c] / cnt[i] : sum[3 * i + c] / cnt[i];
+  }
+  return out;
 }
 
 /**
@@ -121,7 +165,14 @@ export function wrapCounting(s: Structure): { structure: Structure; count: numbe
     for (let q = 0; q < 3; q++) {
       const x = f[i + q];
       const k = Math.floor(x + 1e-9);
-      if (k === 0) continue;
+      if (k === 0) {
+        // Within 1e-9 below 0 (float noise, e.g. the mean of ±x): that is 0 itself.
+        if (x < 0) {
+          f[i + q] = 0;
+          moved[i / 3] = 1;
+        }
+        continue;
+      }
       let w = x - k;
       if (w < 0 || w >= 1) w = 0;
       f[i + q] = w;

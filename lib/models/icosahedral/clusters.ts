@@ -32,6 +32,20 @@ export interface ClusterTemplate {
   aR?: number;
   /** Presets: the crystal the cluster is modelled on. */
   phase?: ReferencePhase;
+  /** Presets: site classes of atoms between the clusters ("glue") that the preset's default decoration adds. */
+  companions?: PresetCompanion[];
+}
+
+/** A site class offered with a preset: atoms the published phase has between its clusters. */
+export interface PresetCompanion {
+  name: string;
+  position: 'node' | 'body';
+  /** Window: the canonical (triacontahedral) occupation domain scaled by this factor. */
+  windowScale: number;
+  /** Element symbol. */
+  species: string;
+  /** What it models, where from, and what is still missing. */
+  note: string;
 }
 
 const TAU = (1 + Math.sqrt(5)) / 2;
@@ -57,9 +71,20 @@ export interface PresetSite {
   /** Suggested class name. */
   name: string;
   position: 'node' | 'body';
-  /** Sphere window radius in perpendicular-space Å: small, so only the cluster centres are kept. */
-  sphereRadius: number;
+  /** Window: the canonical (triacontahedral) occupation domain scaled by this factor. */
+  windowScale: number;
 }
+
+/**
+ * The cluster-centre site of every preset: the vertices (position node) whose perpendicular image lies in the
+ * canonical window shrunk by τ² — a window scaled with a_R, so it keeps the same vertices at every a_R (a fixed
+ * sphere radius in Å did not: at the 2/1's symmetric window position the origin lies 2.0 Å (Bergman) and 2.2 Å
+ * (Tsai) from the window centre, and a 2 Å sphere kept no centre at all). The vertices it keeps have all twelve
+ * five-fold neighbours at a_R (the icosahedral star around a cluster centre) and lie at least 2.384·a_R apart — the
+ * three-fold linkage of the canonical cells (Henley, PRB 43 (1991) 993, from memory): 2 per cell in the 1/1 (the
+ * bcc sites), 8 in the 2/1, 32 in the 3/2 — checked in tests/unit/models/icosahedral/presets.test.ts.
+ */
+export const CLUSTER_CENTRE_SITE: PresetSite = { name: 'cluster centre', position: 'node', windowScale: 1 / (TAU * TAU) };
 
 /**
  * Mackay-type cluster as in α-(Al,Mn)Si (cP138, Pm-3, a = 12.68 Å): an Al icosahedron, an Al
@@ -70,8 +95,26 @@ export interface PresetSite {
  * (1998) for the shells of the α-phase (the Mn icosahedron about as wide as the icosidodecahedron).
  * Radii from memory: inner Al icosahedron 2.45 Å, Al icosidodecahedron 4.5 Å, Mn icosahedron 4.8 Å, chosen so
  * every contact is at least 0.85 of the CN-12 metallic-radius sum (the published inner shell is partly
- * occupied and slightly larger). The α-phase holds 30 more "glue" atoms per cell than two clusters (138 vs 108).
+ * occupied and slightly larger).
+ *
+ * Atom count of the α-phase (138 per cell, from memory) = 2 Mackay clusters (2 × 54 = 108: the clusters at the
+ * origin and the body centre are 10.98 Å apart and share no atom) + 30 "glue" atoms. The glue lies in the outer
+ * shells of the double-Mackay cluster around the origin only — a complex Al shell and an icosahedral Al/Si shell
+ * (Steurer & Deloudi, Acta Cryst. A64 (2008) 1, Fig. 4, after Sugiyama et al. 1998). A cluster preset alone
+ * therefore gives 108 atoms (−22 % in density), whatever its radii: the shortfall is glue, not shell geometry.
+ * The preset's companion class adds the glue the cut itself provides (MACKAY_GLUE); the rest of the published
+ * glue has no place left between these clusters (tests/unit/models/icosahedral/presets.test.ts measures the
+ * largest hole) and is not modelled.
  */
+const MACKAY_GLUE: PresetCompanion = {
+  name: 'glue',
+  position: 'body',
+  windowScale: 1 / TAU,
+  species: 'Al',
+  note:
+    'Al on the 6D body-centre site, canonical window scaled by 1/τ: in the 1/1 the 12 vertices per cell of the rhombic faces that neighbouring cluster triacontahedra share along the cube axes (6.79 and 7.45 Å from the centres), with no contact below 0.8 of the metallic-radius sum. 12 of the α-phase’s 30 glue atoms per cell: the model has 120 of its 138 atoms (density 13 % low); the double-Mackay outer shells are not modelled.',
+};
+
 export const MACKAY: ClusterTemplate = {
   name: 'Mackay',
   reference:
@@ -81,9 +124,10 @@ export const MACKAY: ClusterTemplate = {
     { name: 'icosidodecahedron', polyhedron: 'icosidodecahedron', radius: 4.5, species: 13 },
     { name: 'Mn icosahedron', polyhedron: 'icosahedron', radius: 4.8, species: 25 },
   ],
-  site: { name: 'cluster centre', position: 'node', sphereRadius: 2 },
+  site: CLUSTER_CENTRE_SITE,
   aR: aROf11(12.68),
   phase: { name: 'α-AlMnSi (cP138)', a: 12.68, atomsPerCell: 138, source: 'Cooper & Robinson, Acta Cryst. 20 (1966) 614 — from memory' },
+  companions: [MACKAY_GLUE],
 };
 
 /**
@@ -105,7 +149,7 @@ export const BERGMAN: ClusterTemplate = {
     { name: 'truncated icosahedron', polyhedron: 'truncated-icosahedron', radius: 6.7, species: 30, mix: { 13: 0.5, 30: 0.5 } },
     { name: 'Mg icosahedron', polyhedron: 'icosahedron', radius: 7.9, species: 12 },
   ],
-  site: { name: 'cluster centre', position: 'node', sphereRadius: 2 },
+  site: CLUSTER_CENTRE_SITE,
   aR: aROf11(14.16),
   phase: { name: 'R-phase Mg32(Al,Zn)49 (cI162)', a: 14.16, atomsPerCell: 162, source: 'Bergman, Waugh & Pauling, Acta Cryst. 10 (1957) 254 — from memory' },
 };
@@ -134,7 +178,7 @@ export const TSAI: ClusterTemplate = {
     // Edge a_R = 15.64/2.7528 Å; circumradius (five-fold vertices) τ·a_R.
     { name: 'Cd triacontahedron', polyhedron: 'rhombic-triacontahedron-92', radius: TAU * aROf11(15.64), species: 48 },
   ],
-  site: { name: 'cluster centre', position: 'node', sphereRadius: 2 },
+  site: CLUSTER_CENTRE_SITE,
   aR: aROf11(15.64),
   phase: { name: 'YbCd6 (cI168)', a: 15.64, atomsPerCell: 168, source: 'Gómez & Lidin, Angew. Chem. Int. Ed. 40 (2001) 4037 (a = 15.638 Å, Yb24Cd144) — from memory' },
 };

@@ -92,13 +92,17 @@ export function decoratedCount(classCounts: ReadonlyMap<string, number>, total: 
 
 /**
  * A decoration that puts a preset on the site it is meant for: one site class of cluster centres (the
- * preset's position and small sphere window) and the preset with its usual species, every field editable.
+ * preset's position and window), the preset with its usual species, and the preset's companion classes (glue
+ * atoms of the published phase, e.g. the Mackay preset's), every field editable.
  */
 export function presetDecoration(preset: ClusterPlacementParams['preset'] & string): DecorationParams {
   const t = CLUSTER_PRESETS[preset];
   const site = t.site!;
   return {
-    classes: [{ name: site.name, position: site.position, window: { kind: 'sphere', radius: site.sphereRadius } }],
+    classes: [
+      { name: site.name, position: site.position, window: { kind: 'hypercube', scale: site.windowScale } },
+      ...(t.companions ?? []).map((c) => ({ name: c.name, position: c.position, window: { kind: 'hypercube' as const, scale: c.windowScale }, species: c.species })),
+    ],
     clusters: [{ at: site.name, preset }],
     mergeTolerance: DEFAULT_MERGE_TOLERANCE,
   };
@@ -133,6 +137,11 @@ export function applyClusters<S extends Structure>(s: S, decoration?: Decoration
     }
     out = placeClusters(out, template, (i) => site !== undefined && site[i] === target);
     notes.push(`${template.name} clusters on "${c.at}": ${centres} placed, ${centres * size} atoms added`);
+    if (centres === 0) {
+      notes.push(
+        `warning: no point of site class "${c.at}" lies in its window here, so no ${template.name} cluster was placed — widen the class's window or move its position`,
+      );
+    }
     if (template.aR !== undefined && opts.aR !== undefined && Math.abs(opts.aR / template.aR - 1) > 0.02) {
       notes.push(
         `warning: the ${template.name} preset is sized for a_R = ${template.aR.toFixed(2)} Å (${template.phase?.name ?? 'its phase'}); this cut has a_R = ${opts.aR} Å, so neighbouring clusters will not share their atoms — expect close pairs`,
@@ -146,10 +155,21 @@ export function applyClusters<S extends Structure>(s: S, decoration?: Decoration
   }
   const tol = decoration.mergeTolerance;
   if (tol > 0) {
-    const m = mergeClose(out, tol);
-    out = m.structure;
+    // Mean positions: two cluster atoms that are symmetry images of each other merge onto the symmetry
+    // element, so the decorated cell keeps the cut's space group (keeping one of them would break it).
+    // A mean can land within the tolerance of a third atom: merge again until no pair is left (a few rounds).
+    let count = 0;
+    let conflicts = 0;
+    for (let round = 0; round < 8; round++) {
+      const m = mergeClose(out, tol, { position: 'mean' });
+      out = m.structure;
+      if (out.cell) out = wrapCounting(out).structure;
+      count += m.count;
+      conflicts += m.conflicts;
+      if (m.count === 0) break;
+    }
     notes.push(
-      `merged ${m.count} atoms closer than ${tol} Å${out.cell ? ' (across the cell boundary too, minimum image)' : ''} (${m.conflicts} with differing species or site class)`,
+      `merged ${count} atoms closer than ${tol} Å${out.cell ? ' (across the cell boundary too, minimum image)' : ''} (${conflicts} with differing species or site class)`,
     );
   }
   const close = closePairs(out);

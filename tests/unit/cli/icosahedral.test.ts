@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { cli } from '../../helpers/cli';
 import { TAU } from '../../../lib/math/golden';
+import { runPython } from '../../helpers/python';
 
 describe('CLI: approximant and patch', () => {
   it('approximant 2/1 as JSON: exact key order, 136 vertices as X, Elser–Henley cell (PRL 55 (1985) 2883); space group on stderr', async () => {
@@ -38,5 +39,20 @@ describe('CLI: approximant and patch', () => {
     const j = JSON.parse(r.out) as { cell: number[][] | null; species: string[] };
     expect(j.cell).not.toBeNull();
     expect(new Set(j.species)).toEqual(new Set(['Al']));
+  });
+
+  it('--preset tsai: the 1/1 YbCd6 model as a POSCAR that ASE reads (168 atoms, Yb24Cd144 as published: Gómez & Lidin 2001, from memory); --preset with --decoration is refused', async () => {
+    const aR = (15.64 * Math.sqrt(2 + TAU)) / (2 * (TAU + 1));
+    const r = await cli(['approximant', '--family', 'icosahedral', '--order', '1/1', '--aR', String(aR), '--preset', 'tsai', '--format', 'poscar']);
+    expect(r.code).toBe(0);
+    const back = runPython<{ n: number; a: number; counts: Record<string, number> }>(
+      "import sys, io, json\nfrom ase.io import read\na = read(io.StringIO(sys.stdin.read()), format='vasp')\ns = a.get_chemical_symbols()\nprint(json.dumps({'n': len(a), 'a': a.cell.cellpar()[0], 'counts': {x: s.count(x) for x in set(s)}}))",
+      r.out,
+    );
+    expect(back).toEqual({ n: 168, a: expect.closeTo(15.64, 6), counts: { Yb: 24, Cd: 144 } });
+    expect(r.err).toMatch(/^# space group I 2 3 \(No\. 197\)$/m);
+    const both = await cli(['approximant', '--family', 'icosahedral', '--order', '1/1', '--aR', '5.68', '--preset', 'tsai', '--decoration', 'x.json']);
+    expect(both.code).not.toBe(0);
+    expect(both.err).toMatch(/--preset and --decoration: give one/);
   });
 });
