@@ -92,6 +92,10 @@ export function overlayJob(job: Omit<OverlayJob, 'kind'>, report: Report = () =>
   if (!(job.fwhm > 0) || !Number.isFinite(job.fwhm)) throw new Error(`fwhm: the peak width must be positive, got ${job.fwhm}`);
   const { x, y, sigma } = sortedTwoTheta(job.measured, job.wavelength);
   if (x.length < 10) throw new Error(`measured: ${x.length} points on the 2θ axis; need at least 10 to fit`);
+  // Checked before the (seconds-long) pattern, with the fit's own words (fit.ts).
+  sigma?.forEach((v, i) => {
+    if (!(v > 0)) throw new Error(`sigma: point ${i + 1} has σ = ${v}; every σ must be positive`);
+  });
   const progress = staged(report, [
     [OVERLAY_PATTERN_SHARE, 'the model’s reflections'],
     [1, 'fitting scale, zero shift and background'],
