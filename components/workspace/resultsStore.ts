@@ -63,8 +63,9 @@ export interface ResultsState {
 }
 
 /**
- * Which measured pattern a result was computed from: its name, length, ends and intensity sum (the same file
- * opened again gives the same id; another file, or the same name with other data, another).
+ * Which measured pattern a result was computed from: its name, axis, length, ends and a position-weighted
+ * intensity sum (the same file opened again gives the same id; another file, or the same name with other data,
+ * another — up to a coincidence of that sum).
  */
 export function measuredId(m: MeasuredRef): string {
   const { x, intensity } = m.data;
