@@ -109,5 +109,12 @@ export function overlayJob(job: Omit<OverlayJob, 'kind'>, report: Report = () =>
   });
   const lines = p.stars.map((s) => ({ twoTheta: s.twoTheta, intensity: s.intensity }));
   const fit = fitLinesToPattern(x, y, lines, shape, { sigma, onProgress: (f) => progress(OVERLAY_PATTERN_SHARE + (1 - OVERLAY_PATTERN_SHARE) * f) });
-  return { fit, warnings: [...p.warnings, ...fit.warnings], aR: job.model.aR, stars: p.stars.length, x, y };
+  const warnings = [...p.warnings, ...fit.warnings];
+  // The same test as the periodic fit (lib/diffraction/fit/refine.ts): a fit far outside the noise is said so.
+  if (fit.rwp > 2 * fit.rexp) {
+    warnings.push(
+      `fit: R_wp = ${(fit.rwp * 100).toFixed(2)} % is more than twice R_exp = ${(fit.rexp * 100).toFixed(2)} %; the model’s pattern does not describe the measured one within its noise (only scale, zero shift and background are fitted, not the decoration or B factors), and the σ understate the error`,
+    );
+  }
+  return { fit, warnings, aR: job.model.aR, stars: p.stars.length, x, y };
 }

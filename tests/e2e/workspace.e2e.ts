@@ -122,6 +122,8 @@ describe('workspace', () => {
     const table = page.locator('[data-testid=indexing-table] tbody tr');
     await indexing.getByRole('button', { name: 'Index peaks' }).click();
     await indexing.getByRole('progressbar', { name: 'Indexing' }).waitFor({ timeout: 10_000 });
+    // For the picture: a fifth of the way (or done, if the machine is quick).
+    await page.waitForFunction(() => Number(document.querySelector('[role=progressbar][aria-label="Indexing"]')?.getAttribute('aria-valuenow') ?? 100) >= 20, null, { timeout: 90_000 });
     await screenshot(page, 'workspace-indexing-running');
     await page.getByRole('tab', { name: '3D model' }).click();
     await page.getByRole('tab', { name: 'Diffraction' }).click();
@@ -152,6 +154,8 @@ describe('workspace', () => {
     // The model's own pattern over the measured one: progress, then the fit, kept across a tab switch too.
     await indexing.getByRole('button', { name: /Overlay the model’s own pattern/ }).click();
     await indexing.getByRole('progressbar', { name: 'Model’s pattern' }).waitFor({ timeout: 10_000 });
+    await page.waitForFunction(() => Number(document.querySelector('[role=progressbar][aria-label="Model’s pattern"]')?.getAttribute('aria-valuenow') ?? 100) >= 20, null, { timeout: 120_000 });
+    await screenshot(page, 'workspace-qc-running');
     await page.getByRole('tab', { name: '3D model' }).click();
     await page.getByRole('tab', { name: 'Diffraction' }).click();
     await page.getByTestId('qc-fit').waitFor({ timeout: 120_000 });
