@@ -249,6 +249,7 @@ export function forEachModulePoint(aR: number, lattice: HyperlatticeType, w: Mod
   const qPerp = new Float64Array(3);
   const qm2 = w.qmax * w.qmax * (1 + 1e-12);
   const qq2max = qperpMax * qperpMax;
+  // The walk's bounds for one index, given what is left of r² (as in rec below).
   const range = (left: number, c: number): [number, number] => {
     const m = Math.sqrt(Math.max(left, 0)) + 1e-9;
     return [Math.ceil(-m - c), Math.floor(m - c)];
@@ -292,7 +293,9 @@ export function forEachModulePoint(aR: number, lattice: HyperlatticeType, w: Mod
         visit(h, qPar, qPerp);
         return;
       }
-      const [lo, hi] = range(left, c);
+      const m = Math.sqrt(Math.max(left, 0)) + 1e-9;
+      const lo = Math.ceil(-m - c);
+      const hi = Math.floor(m - c);
       for (let v = lo; v <= hi; v++) {
         const x = v + c;
         h[i] = x;
