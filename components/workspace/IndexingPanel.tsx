@@ -3,29 +3,23 @@
  * Indexing of the measured pattern opened in the diffraction panel as an icosahedral quasicrystal: six indices,
  * N and M per peak, the refined quasilattice constant aR and zero shift with their standard uncertainties, the
  * residuals and the phason-strain trend; "Use this aR" saves a new revision of the model with it (REST API, one client).
+ * The indexing runs in the engine worker (lib/worker/qc-jobs.ts, lane "indexing") with progress and Cancel, and
+ * its result is kept in the results store under the measured file, wavelength and hyperlattice, so leaving the
+ * Diffraction tab (even mid-run) and coming back shows it again.
  */
 import { useState } from 'react';
-import { useResultsStore } from './resultsStore';
+import { measuredId, resultKey, slotOf, useResultsStore } from './resultsStore';
+import { Progress } from './Progress';
 import { parseWavelength } from '@/lib/diffraction/wavelengths';
-import { indexIcosahedralPattern, type IndexResult } from '@/lib/diffraction/quasicrystal/index-icosahedral';
-import type { MeasuredPattern } from '@/lib/formats/measured';
 import { send } from '@/components/ui/api';
 import { QcOverlay } from './QcOverlay';
 import type { QcModel } from '@/lib/diffraction/quasicrystal/structure-factor';
 
 const btn = 'rounded-md bg-tide px-3 py-1 text-sm font-medium text-white hover:bg-tide-deep disabled:opacity-50';
-const DEG = 180 / Math.PI;
 
 export interface SavedRevision {
   id: string | number;
   number?: number;
-}
-
-/** 2θ axis of a measured pattern (Q and d files converted with λ), sorted ascending. */
-function toTwoTheta(m: MeasuredPattern, lambda: number): { x: Float64Array; y: Float64Array } {
-  const tt = Array.from(m.x, (v) => (m.axis === '2theta' ? v : m.axis === 'q' ? 2 * DEG * Math.asin((v * lambda) / (4 * Math.PI)) : 2 * DEG * Math.asin(lambda / (2 * v))));
-  const order = tt.map((_, i) => i).filter((i) => Number.isFinite(tt[i])).sort((a, b) => tt[a] - tt[b]);
-  return { x: Float64Array.from(order, (i) => tt[i]), y: Float64Array.from(order, (i) => m.intensity[i]) };
 }
 
 function median(v: number[]): number {
@@ -52,12 +46,12 @@ export function IndexingPanel({
   onSaved: (next: Record<string, unknown>, rev: SavedRevision) => void;
 }) {
   const scoped = useResultsStore((st) => st.scopes[scope]);
+  const slots = useResultsStore((st) => st.slots);
+  const chosen = useResultsStore((st) => st.indexLattice[scope]);
+  const store = useResultsStore.getState;
   const measured = scoped?.measured ?? null;
   const wl = scoped?.form.wl ?? 'CuKa1';
-  const [lattice, setLattice] = useState<'P' | 'F'>(params.lattice === 'F' ? 'F' : 'P');
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const [result, setResult] = useState<(IndexResult & { name: string }) | null>(null);
+  const lattice: 'P' | 'F' = chosen ?? (params.lattice === 'F' ? 'F' : 'P');
   const [saving, setSaving] = useState<{ busy?: boolean; ok?: string; error?: string }>({});
 
   let lambda: number | null = null;
@@ -67,24 +61,20 @@ export function IndexingPanel({
     lambda = null;
   }
 
+  // The result shown is the one for exactly this file, wavelength and hyperlattice (or none).
+  const key = measured && lambda !== null ? resultKey(scope, 'measured', { kind: 'qc-index', measured: measuredId(measured), wavelength: lambda, lattice }) : null;
+  const job = slotOf<'qc-index'>(slots, key ?? '');
+  const result = job.result && measured ? { ...job.result, name: measured.name } : null;
+  const error = job.error?.message ?? null;
+  const busy = job.running;
+
   const run = () => {
-    if (!measured || lambda === null) return;
-    setBusy(true);
-    setError(null);
+    if (!measured || lambda === null || !key) return;
     setSaving({});
-    // Let the "Indexing…" state paint before the (one to a few seconds) computation.
-    setTimeout(() => {
-      try {
-        const { x, y } = toTwoTheta(measured.data, lambda!);
-        const r = indexIcosahedralPattern(x, y, { wavelength: lambda!, lattice });
-        setResult({ ...r, name: measured.name });
-      } catch (e) {
-        setResult(null);
-        setError((e as Error).message);
-      } finally {
-        setBusy(false);
-      }
-    }, 30);
+    void store().run(key, 'indexing', { kind: 'qc-index', measured: measured.data, wavelength: lambda, lattice });
+  };
+  const cancel = () => {
+    if (key) store().cancel(key);
   };
 
   const saveAR = async () => {
@@ -111,7 +101,7 @@ export function IndexingPanel({
         <h3 className="font-medium">Index the measured pattern (icosahedral)</h3>
         <label className="flex items-center gap-1 text-xs">
           Hyperlattice
-          <select aria-label="Hyperlattice for indexing" className="rounded-md border border-rule bg-card px-2 py-1 text-sm" value={lattice} onChange={(e) => setLattice(e.target.value as 'P' | 'F')}>
+          <select aria-label="Hyperlattice for indexing" className="rounded-md border border-rule bg-card px-2 py-1 text-sm" value={lattice} onChange={(e) => store().setIndexLattice(scope, e.target.value as 'P' | 'F')}>
             <option value="P">P — simple</option>
             <option value="F">F — face-centred (half-integer indices)</option>
           </select>
@@ -122,6 +112,7 @@ export function IndexingPanel({
         {!measured ? <span className="text-xs text-ink-soft">Open a measured pattern above first.</span> : null}
         {lambda === null ? <span className="text-xs text-clay">Set a valid wavelength above.</span> : null}
       </div>
+      {busy ? <Progress label="Indexing" running={busy} stage={job.stage} fraction={job.fraction} startedAt={job.startedAt} onCancel={cancel} /> : null}
       {error ? (
         <p className="text-xs text-clay" role="alert">
           {error}
@@ -162,8 +153,9 @@ export function IndexingPanel({
           </div>
           {measured && lambda !== null ? (
             <QcOverlay
+              scope={scope}
               model={{ aR: result.aR, lattice: (params.lattice as QcModel['lattice']) ?? 'P', offset: params.offset as number[] | undefined, species: params.species as string | undefined, decoration: params.decoration as QcModel['decoration'] }}
-              {...toTwoTheta(measured.data, lambda)}
+              measured={measured}
               lambda={lambda}
               fwhm={median(result.peaks.map((p) => p.fwhm))}
             />

@@ -2,36 +2,30 @@
 /**
  * The icosahedral model's own powder pattern (occupation-domain amplitudes, lib/diffraction/quasicrystal) laid over
  * the measured one, with scale, zero shift and a linear background fitted (our own small fit, fit.ts), R_wp and χ²,
- * and the difference curve underneath.
+ * and the difference curve underneath. Computed in the engine worker (lib/worker/qc-jobs.ts, lane "qc") with
+ * progress and Cancel; the result is kept in the results store under the model, the measured file, λ and the peak
+ * width, so it survives leaving the Diffraction tab.
  */
-import { useState } from 'react';
 import type { QcModel } from '@/lib/diffraction/quasicrystal/structure-factor';
-import { qcPowder } from '@/lib/diffraction/quasicrystal/powder';
-import { fitLinesToPattern, type PatternFit } from '@/lib/diffraction/quasicrystal/fit';
+import { measuredId, resultKey, slotOf, useResultsStore, type MeasuredRef } from './resultsStore';
+import { Progress } from './Progress';
 
 const btn = 'rounded-md border border-tide px-3 py-1 text-sm text-tide hover:bg-tide-pale disabled:opacity-50';
 
-export function QcOverlay({ model, x, y, lambda, fwhm }: { model: QcModel; x: Float64Array; y: Float64Array; lambda: number; fwhm: number }) {
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const [fit, setFit] = useState<(PatternFit & { warnings: string[]; aR: number }) | null>(null);
+export function QcOverlay({ scope, model, measured, lambda, fwhm }: { scope: string; model: QcModel; measured: MeasuredRef; lambda: number; fwhm: number }) {
+  const slots = useResultsStore((st) => st.slots);
+  const store = useResultsStore.getState;
+  const key = resultKey(scope, 'qc-model', { kind: 'qc-overlay', model, measured: measuredId(measured), wavelength: lambda, fwhm });
+  const job = slotOf<'qc-overlay'>(slots, key);
+  const busy = job.running;
+  const error = job.error?.message ?? null;
+  const done = job.result;
+  const fit = done ? { ...done.fit, warnings: done.warnings, aR: done.aR } : null;
+  const x = done?.x ?? new Float64Array(0);
+  const y = done?.y ?? new Float64Array(0);
 
   const run = () => {
-    setBusy(true);
-    setError(null);
-    setTimeout(() => {
-      try {
-        const shape = { U: 0, V: 0, W: fwhm * fwhm, eta: 0.5 };
-        const p = qcPowder(model, { wavelength: lambda, twoThetaMin: Math.max(1, x[0] - 1), twoThetaMax: Math.min(179, x[x.length - 1] + 1) });
-        const f = fitLinesToPattern(x, y, p.stars.map((s) => ({ twoTheta: s.twoTheta, intensity: s.intensity })), shape);
-        setFit({ ...f, warnings: [...p.warnings, ...f.warnings], aR: model.aR });
-      } catch (e) {
-        setFit(null);
-        setError((e as Error).message);
-      } finally {
-        setBusy(false);
-      }
-    }, 30);
+    void store().run(key, 'qc', { kind: 'qc-overlay', model, measured: measured.data, wavelength: lambda, fwhm });
   };
 
   const W = 900;
@@ -72,6 +66,7 @@ export function QcOverlay({ model, x, y, lambda, fwhm }: { model: QcModel; x: Fl
           </span>
         ) : null}
       </div>
+      {busy ? <Progress label="Model’s pattern" running={busy} stage={job.stage} fraction={job.fraction} startedAt={job.startedAt} onCancel={() => store().cancel(key)} /> : null}
       {error ? (
         <p className="text-xs text-clay" role="alert">
           {error}

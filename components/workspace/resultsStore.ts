@@ -52,11 +52,26 @@ export type Runner = (lane: Lane, job: JobRequest, progress: (stage: string, fra
 export interface ResultsState {
   scopes: Record<string, ScopeState>;
   slots: Record<string, Slot>;
+  /** Per scope: the hyperlattice the measured pattern is indexed with (IndexingPanel), kept like the form. */
+  indexLattice: Record<string, 'P' | 'F'>;
+  setIndexLattice(scope: string, lattice: 'P' | 'F'): void;
   setForm(scope: string, defaults: DiffractionForm, patch: Partial<DiffractionForm>): void;
   setMeasured(scope: string, defaults: DiffractionForm, m: MeasuredRef | null | ((old: MeasuredRef | null) => MeasuredRef | null)): void;
   /** Start `job` under `key`; a running job on another key of the same lane is cancelled by the worker lane. */
   run(key: string, lane: Lane, job: JobRequest): Promise<unknown>;
   cancel(key: string): void;
+}
+
+/**
+ * Which measured pattern a result was computed from: its name, axis, length, ends and a position-weighted
+ * intensity sum (the same file opened again gives the same id; another file, or the same name with other data,
+ * another — up to a coincidence of that sum).
+ */
+export function measuredId(m: MeasuredRef): string {
+  const { x, intensity } = m.data;
+  let sum = 0;
+  for (let i = 0; i < intensity.length; i++) sum += intensity[i] * (1 + (i % 7));
+  return `${m.name}:${x.length}:${x[0]}:${x[x.length - 1]}:${m.data.axis}:${sum}`;
 }
 
 /** The key of one result: where, for which model, with which settings (canonical JSON, so key order does not matter). */
@@ -76,6 +91,8 @@ export function createResultsStore(runner: Runner = defaultRunner): ResultsStore
     return {
       scopes: {},
       slots: {},
+      indexLattice: {},
+      setIndexLattice: (scope, lattice) => set((st) => ({ indexLattice: { ...st.indexLattice, [scope]: lattice } })),
       setForm: (scope, defaults, patch) =>
         set((st) => {
           const sc = scopeOf(st, scope, defaults);

@@ -21,3 +21,9 @@ export * from './hyperspace';
 export * from './zone-axis';
 export * from './compare';
 export * from './peak-table';
+// The quasicrystal's own pattern, indexing and aR (quasicrystal/). Its peak finder (fitted positions with σ,
+// widths and areas) shares a name with the comparison's simple one in compare.ts: that one keeps the plain name,
+// this one is re-exported as findFittedPeaks.
+export * from './quasicrystal';
+export { findPeaks } from './compare';
+export { findPeaks as findFittedPeaks } from './quasicrystal/peak-find';

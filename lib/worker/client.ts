@@ -1,11 +1,12 @@
 /**
- * Main-thread side of the engine worker. Each "lane" (cut, estimate, diffraction, series) has its own worker,
+ * Main-thread side of the engine worker. Each "lane" (cut, estimate, diffraction, series, indexing, qc) has its own worker,
  * so a slow powder pattern never holds up the atom-count estimate. A new job on a lane cancels the one running
  * there; cancel() terminates the worker outright and the next job starts a fresh one.
  */
 import type { FromWorker, JobRequest, JobResultMap } from './protocol';
 
-export type Lane = 'cut' | 'estimate' | 'diffraction' | 'series';
+/** 'indexing' and 'qc' (the quasicrystal's own pattern) have lanes of their own, so neither cancels a powder run. */
+export type Lane = 'cut' | 'estimate' | 'diffraction' | 'series' | 'indexing' | 'qc';
 
 export class JobCancelled extends Error {
   constructor() {

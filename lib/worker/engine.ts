@@ -15,6 +15,7 @@ import { TAU } from '../math/golden';
 import { estimateCount, generate } from '../models';
 import { parseAxis, zoneFrame, zonePattern } from '../diffraction/zone-axis';
 import { indexIcosahedralSpot, indexOctagonalSpot } from './zone-index';
+import { indexJob, overlayJob } from './qc-jobs';
 import type { CutSummary, JobRequest, JobResultMap, PowderCurve, SeriesRow, ZoneResult } from './protocol';
 
 export type Report = (stage: string, fraction?: number) => void;
@@ -211,5 +212,9 @@ export function runJob<K extends JobRequest['kind']>(job: Extract<JobRequest, { 
     case 'fit':
       report('least squares', 0.1);
       return fitToComparison(fitPattern(j.measured, j.lines, j.options)) as JobResultMap[K];
+    case 'qc-index':
+      return indexJob(j, report) as JobResultMap[K];
+    case 'qc-overlay':
+      return overlayJob(j, report) as JobResultMap[K];
   }
 }

@@ -7,6 +7,7 @@ import type { FitLine } from '../diffraction/fit/model';
 import type { FitPatternOptions } from '../diffraction/fit/fit-pattern';
 import type { CompareResult } from '../diffraction/compare';
 import type { Structure } from '../structure/types';
+import type { IndexJob, IndexJobResult, OverlayJob, OverlayJobResult } from './qc-jobs';
 
 export interface CutSummary {
   count: number;
@@ -75,7 +76,9 @@ export type JobRequest =
   | { kind: 'zone'; structure: Structure; axis: string; qmax: number; slab: number; radiation: 'xray' | 'neutron' | 'electron' }
   | { kind: 'powder'; structure: Structure; wavelength: number; radiation: 'xray' | 'neutron' | 'electron'; twoThetaMin: number; twoThetaMax: number; step: number; fwhm: number; wavelength2?: number; ratio2?: number; dMin?: number }
   | { kind: 'series'; params: unknown }
-  | { kind: 'fit'; measured: MeasuredPattern; lines: FitLine[]; options: FitPatternOptions };
+  | { kind: 'fit'; measured: MeasuredPattern; lines: FitLine[]; options: FitPatternOptions }
+  | IndexJob
+  | OverlayJob;
 
 export interface JobResultMap {
   generate: { structure: Structure; summary: CutSummary };
@@ -84,6 +87,8 @@ export interface JobResultMap {
   powder: PowderCurve;
   series: { rows: SeriesRow[]; quasicrystalDensity?: number };
   fit: CompareResult;
+  'qc-index': IndexJobResult;
+  'qc-overlay': OverlayJobResult;
 }
 
 export type ToWorker = { id: number; job: JobRequest };

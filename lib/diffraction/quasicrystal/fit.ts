@@ -9,6 +9,7 @@
  * Our own small fit (scale, zero, linear background) for the quasicrystal; periodic patterns have their own.
  */
 import { cagliotiFwhm, pseudoVoigt, type ProfileShape } from '../profile';
+import type { OnProgress } from './progress';
 
 export interface LineList {
   twoTheta: number;
@@ -34,7 +35,7 @@ export function fitLinesToPattern(
   y: Float64Array,
   lines: LineList[],
   shape: ProfileShape,
-  opts: { sigma?: Float64Array; zeroStart?: number; fitZero?: boolean } = {},
+  opts: { sigma?: Float64Array; zeroStart?: number; fitZero?: boolean; onProgress?: OnProgress } = {},
 ): PatternFit {
   const n = x.length;
   if (n < 10) throw new Error(`measured: ${n} points; need at least 10 to fit`);
@@ -46,7 +47,13 @@ export function fitLinesToPattern(
     w[i] = opts.sigma ? 1 / (s! * s!) : 1 / Math.max(y[i], 1);
   }
   const widths = lines.map((l) => cagliotiFwhm(l.twoTheta, shape));
+  // Progress (progress.ts): the profile evaluations are the work; about 80 with the zero shift fitted (61 + 2
+  // on the coarse scan, 11 + 2 on the fine one, the final profile and two for the curvature), 2 without.
+  const expected = opts.fitZero === false ? 2 : 80;
+  let evaluations = 0;
   const profileAt = (zero: number): Float64Array => {
+    if (evaluations > 0) opts.onProgress?.(Math.min(0.99, evaluations / expected));
+    evaluations++;
     const out = new Float64Array(n);
     lines.forEach((l, j) => {
       const c = l.twoTheta + zero;
@@ -132,6 +139,7 @@ export function fitLinesToPattern(
   const rexp = Math.sqrt((n - nPar) / wd);
   const warnings: string[] = [];
   if (Math.abs(zero) > 0.5) warnings.push(`zero shift ${zero.toFixed(3)}° is large: check the wavelength and the quasilattice constant`);
+  opts.onProgress?.(1);
   return {
     scale,
     scaleSigma: res.sigma[0],

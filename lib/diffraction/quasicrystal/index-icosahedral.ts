@@ -29,6 +29,7 @@ import { domainTransform } from './domain-transform';
 import { starRepresentative } from './star';
 import { findPeaks, type FoundPeak, type PeakFindOptions } from './peak-find';
 import { leastSquares } from './least-squares';
+import { progressRange, type OnProgress } from './progress';
 
 const DEG = Math.PI / 180;
 
@@ -51,7 +52,7 @@ export interface RefLine {
  * balls are the module points; the hyperlattice parity (P: every hyperFromCsg index an integer; F: all integers
  * or all half-integers) picks the allowed ones.
  */
-export function icosahedralReferenceLines(lattice: 'P' | 'F', q1max: number, qperpLimit = 4.5): RefLine[] {
+export function icosahedralReferenceLines(lattice: 'P' | 'F', q1max: number, qperpLimit = 4.5, onProgress?: OnProgress): RefLine[] {
   if (!(q1max > 0) || !Number.isFinite(q1max)) throw new Error(`qmax: must be positive, got ${q1max}`);
   const c1 = Math.PI / Math.sqrt(2 + TAU);
   const R = q1max / c1;
@@ -71,7 +72,9 @@ export function icosahedralReferenceLines(lattice: 'P' | 'F', q1max: number, qpe
   const rb = reciprocalBasis(1);
   const groups = new Map<string, RefLine>();
   const qq = new Float64Array(3);
-  for (const x of pairs) {
+  for (let ix = 0; ix < pairs.length; ix++) {
+    const x = pairs[ix];
+    if (ix > 0) onProgress?.(ix / pairs.length);
     for (const y of pairs) {
       const a2 = x.a2 + y.a2;
       const b2 = x.b2 + y.b2;
@@ -107,6 +110,7 @@ export function icosahedralReferenceLines(lattice: 'P' | 'F', q1max: number, qpe
     l.indices = starRepresentative(l.indices).rep;
     l.strength = l.multiplicity * ballTransform(l.qPerp1, rEq) ** 2;
   }
+  onProgress?.(1);
   return lines.sort((a, b) => a.q1 - b.q1);
 }
 
@@ -121,6 +125,12 @@ export interface IndexOptions {
   peaks?: PeakFindOptions;
   /** Radiation for Lp in the score (default X-ray). */
   radiation?: 'xray' | 'neutron' | 'electron';
+  /**
+   * Progress (progress.ts), in shares of the time measured on a synthetic Cu Kα pattern. indexPeaks: up to 0.7
+   * while the reference lines are listed, up to 0.8 over the trial aR values, up to 0.98 over the refinements,
+   * 1 when done. indexIcosahedralPattern: peak finding takes the first half, indexPeaks the second.
+   */
+  onProgress?: OnProgress;
 }
 
 export interface IndexedPeak {
@@ -205,7 +215,8 @@ export function indexPeaks(found: FoundPeak[], o: IndexOptions): IndexResult {
   const qObs = peaks.map((p) => tt2q(p.twoTheta, lambda));
   const qLo = qObs[0];
   const qHi = qObs[qObs.length - 1];
-  const ref = icosahedralReferenceLines(o.lattice, qHi * aRMax * 1.02 + 0.5);
+  const report = o.onProgress;
+  const ref = icosahedralReferenceLines(o.lattice, qHi * aRMax * 1.02 + 0.5, 4.5, progressRange(report, 0, 0.7));
   const totalArea = peaks.reduce((s, p) => s + p.area, 0);
   const tolOf = (p: FoundPeak, extra: number) => Math.max(0.02, 0.5 * p.fwhm) + extra;
 
@@ -246,15 +257,20 @@ export function indexPeaks(found: FoundPeak[], o: IndexOptions): IndexResult {
   const refStrong = ref.filter((l) => l.strength / l.multiplicity >= 0.25);
   let best = { aR: NaN, s: -1 };
   const trials: { aR: number; s: number }[] = [];
+  const trialCount = strongObs.length * refStrong.length;
+  let tried = 0;
   for (const { k } of strongObs) {
     for (const l of refStrong) {
+      tried++;
       const aR = l.q1 / qObs[k];
       if (aR < aRMin || aR > aRMax) continue;
       const s = score(aR, 0, 0.12);
       trials.push({ aR, s });
       if (s > best.s + 1e-9) best = { aR, s };
+      report?.(0.7 + (0.1 * tried) / trialCount);
     }
   }
+  report?.(0.8);
   if (!Number.isFinite(best.aR)) throw new Error(`indexing: no quasilattice constant in ${aRMin.toFixed(3)}–${aRMax.toFixed(3)} Å fits the strongest peaks; widen the aR range or check the wavelength`);
 
   // Assign, refine, repeat with a tighter tolerance.
@@ -312,9 +328,10 @@ export function indexPeaks(found: FoundPeak[], o: IndexOptions): IndexResult {
     if (k !== 0 && a >= aRMin && a <= aRMax) starts.push(a);
   }
   let sol: NonNullable<ReturnType<typeof refine>> | null = null;
-  for (const a of starts) {
-    const r = refine(a);
+  for (let i = 0; i < starts.length; i++) {
+    const r = refine(starts[i]);
     if (r && (!sol || r.merit > sol.merit)) sol = r;
+    report?.(0.8 + (0.18 * (i + 1)) / starts.length);
   }
   if (!sol) throw new Error('indexing: fewer than 3 peaks could be indexed at any trial aR');
   const { aR, zero, sigmaA, sigmaZ, assigned, rms } = sol;
@@ -354,6 +371,7 @@ export function indexPeaks(found: FoundPeak[], o: IndexOptions): IndexResult {
   if (notes.length === 0) notes.push('no significant trend of shift or width with |Q⊥| (within 3σ)');
   const finalScore = sol.score;
   if (finalScore < 0.5) warnings.push(`weak indexing (score ${finalScore.toFixed(2)} of 1): the pattern may not be icosahedral ${o.lattice}, or the aR range is wrong`);
+  report?.(1);
   return {
     aR,
     aRSigma: sigmaA,
@@ -391,9 +409,13 @@ function trend(x: number[], y: number[]): LinearTrend | null {
   return { slope: b, slopeSigma: Math.sqrt(ss / (n - 2) / sxx), intercept: a, points: n };
 }
 
+/** Share of the progress range that peak finding takes in indexIcosahedralPattern (about its share of the time). */
+const PEAK_SHARE = 0.5;
+
 /** Find the peaks of a measured 2θ pattern and index them. */
 export function indexIcosahedralPattern(twoTheta: Float64Array, intensity: Float64Array, o: IndexOptions): IndexResult & { found: number } {
-  const found = findPeaks(twoTheta, intensity, o.peaks);
-  return { ...indexPeaks(found, o), found: found.length };
+  const found = findPeaks(twoTheta, intensity, { ...o.peaks, onProgress: progressRange(o.onProgress, 0, PEAK_SHARE) });
+  const r = indexPeaks(found, { ...o, onProgress: progressRange(o.onProgress, PEAK_SHARE, 1) });
+  return { ...r, found: found.length };
 }
 

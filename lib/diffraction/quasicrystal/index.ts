@@ -6,3 +6,4 @@ export * from './least-squares';
 export * from './fit';
 export * from './peak-find';
 export * from './index-icosahedral';
+export * from './progress';

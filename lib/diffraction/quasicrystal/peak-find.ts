@@ -7,6 +7,7 @@
  */
 import { pseudoVoigt } from '../profile';
 import { leastSquares } from './least-squares';
+import type { OnProgress } from './progress';
 
 export interface FoundPeak {
   twoTheta: number;
@@ -25,6 +26,8 @@ export interface PeakFindOptions {
   minProminence?: number;
   /** Half-width of the moving-average smoothing, in points (default 1). */
   smooth?: number;
+  /** Progress (progress.ts): 0.05 when the candidates are known, then one report per fitted candidate, 1 at the end. */
+  onProgress?: OnProgress;
 }
 
 export function findPeaks(x: Float64Array, y: Float64Array, o: PeakFindOptions = {}): FoundPeak[] {
@@ -59,6 +62,7 @@ export function findPeaks(x: Float64Array, y: Float64Array, o: PeakFindOptions =
     const prom = s[i] - Math.max(lmin, rmin);
     if (prom >= minProm) cand.push({ i, prom });
   }
+  o.onProgress?.(0.05);
   const out: FoundPeak[] = [];
   cand.forEach(({ i, prom }, c) => {
     // Half-maximum crossings above the local floor give the starting width.
@@ -103,6 +107,9 @@ export function findPeaks(x: Float64Array, y: Float64Array, o: PeakFindOptions =
       }
     }
     out.push(peak);
+    // Outside the try above, so a callback that throws to stop the run is never swallowed.
+    o.onProgress?.(0.05 + (0.95 * (c + 1)) / cand.length);
   });
+  if (cand.length === 0) o.onProgress?.(1);
   return out;
 }

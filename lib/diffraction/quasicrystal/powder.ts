@@ -9,6 +9,7 @@
 import { lorentzPolarization, twoThetaOfQ } from '../lorentz-polarization';
 import { powderProfile, type ProfileShape } from '../profile';
 import { qcReflections, type QcModel, type QcOptions } from './structure-factor';
+import { progressRange, type OnProgress } from './progress';
 
 export interface QcStar {
   /** Representative indices (lexicographically largest member). */
@@ -40,6 +41,8 @@ export interface QcPowderOptions extends QcOptions {
   wavelength2?: number;
   ratio2?: number;
   profile?: ProfileShape & { step: number; background?: number[] };
+  /** Progress (progress.ts) of the reflection sums; with a Kα2 line the two wavelengths take half each. */
+  onProgress?: OnProgress;
 }
 
 export interface QcPowderResult {
@@ -96,7 +99,8 @@ function starLabel(h: number[]): string {
 }
 
 export function qcPowder(model: QcModel, o: QcPowderOptions): QcPowderResult {
-  const { stars, warnings } = qcPowderStars(model, o);
+  const second = o.profile && o.wavelength2 !== undefined;
+  const { stars, warnings } = qcPowderStars(model, { ...o, onProgress: progressRange(o.onProgress, 0, second ? 0.5 : 1) });
   let max = 0;
   for (const s of stars) max = Math.max(max, s.intensity);
   const k = max > 0 ? 100 / max : 1;
@@ -105,8 +109,8 @@ export function qcPowder(model: QcModel, o: QcPowderOptions): QcPowderResult {
   if (!o.profile) return { stars, warnings };
   const list = stars.map((s) => ({ twoTheta: s.twoTheta, intensity: s.intensity }));
   if (o.wavelength2 !== undefined) {
-    const second = qcPowderStars(model, o, o.wavelength2).stars;
-    for (const s of second) list.push({ twoTheta: s.twoTheta, intensity: s.intensity * k * (o.ratio2 ?? 0.5) });
+    const stars2 = qcPowderStars(model, { ...o, onProgress: progressRange(o.onProgress, 0.5, 1) }, o.wavelength2).stars;
+    for (const s of stars2) list.push({ twoTheta: s.twoTheta, intensity: s.intensity * k * (o.ratio2 ?? 0.5) });
   }
   const profile = powderProfile(list, { ...o.profile, start: o.twoThetaMin, stop: o.twoThetaMax });
   return { stars, profile, warnings };

@@ -31,6 +31,7 @@ import { scatteringFactor, type Radiation } from '../form-factors';
 import { csgFromHyper } from '../indexing';
 import { domainTransform, type DomainTransform } from './domain-transform';
 import { StarIndex } from './star';
+import type { OnProgress } from './progress';
 
 export interface QcModel {
   aR: number;
@@ -217,6 +218,11 @@ export interface ModuleWalk {
   qmax: number;
   /** Largest |Q⊥| kept (Å⁻¹); default 12/aR. */
   qperpMax?: number;
+  /**
+   * Progress of the walk (progress.ts): the share of the 6-ball's volume walked, counted in slabs of the first
+   * two indices (a slab with |h_{3…6}|² ≤ L holds about L² points, the volume of a 4-ball ∝ radius⁴).
+   */
+  onProgress?: OnProgress;
 }
 
 const MAX_VISITS = 4e7;
@@ -243,6 +249,25 @@ export function forEachModulePoint(aR: number, lattice: HyperlatticeType, w: Mod
   const qPerp = new Float64Array(3);
   const qm2 = w.qmax * w.qmax * (1 + 1e-12);
   const qq2max = qperpMax * qperpMax;
+  // The walk's bounds for one index, given what is left of r² (as in rec below).
+  const range = (left: number, c: number): [number, number] => {
+    const m = Math.sqrt(Math.max(left, 0)) + 1e-9;
+    return [Math.ceil(-m - c), Math.floor(m - c)];
+  };
+  // Progress: the same first two loops as the walk, weighted by the points each slab holds.
+  const report = w.onProgress;
+  let total = 0;
+  let done = 0;
+  if (report) {
+    for (const c of cosets) {
+      const [lo0, hi0] = range(r2, c);
+      for (let v0 = lo0; v0 <= hi0; v0++) {
+        const left1 = r2 - (v0 + c) ** 2;
+        const [lo1, hi1] = range(left1, c);
+        for (let v1 = lo1; v1 <= hi1; v1++) total += Math.max(left1 - (v1 + c) ** 2, 0) ** 2;
+      }
+    }
+  }
   for (const c of cosets) {
     const rec = (i: number, left: number) => {
       if (i === 6) {
@@ -275,11 +300,16 @@ export function forEachModulePoint(aR: number, lattice: HyperlatticeType, w: Mod
         const x = v + c;
         h[i] = x;
         rec(i + 1, left - x * x);
+        if (i === 1 && report && total > 0) {
+          done += Math.max(left - x * x, 0) ** 2;
+          report(Math.min(1, done / total));
+        }
       }
       h[i] = 0;
     };
     rec(0, r2);
   }
+  report?.(1);
 }
 
 /** All reflections of the decorated model with |Q∥| ≤ qmax, |Q⊥| ≤ qperpMax and |F/N|² ≥ threshold·|F(0)/N|². */

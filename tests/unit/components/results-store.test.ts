@@ -4,7 +4,8 @@
  * by hand, so a run can be left "in flight" while the panel is gone.
  */
 import { describe, expect, it } from 'vitest';
-import { createResultsStore, resultKey, slotOf, type DiffractionForm, type Runner } from '@/components/workspace/resultsStore';
+import { createResultsStore, measuredId, resultKey, slotOf, type DiffractionForm, type MeasuredRef, type Runner } from '@/components/workspace/resultsStore';
+import { JobCancelled } from '@/lib/worker/client';
 import type { JobRequest } from '@/lib/worker/protocol';
 
 const DEFAULTS: DiffractionForm = { sub: 'zone', axis: '5', qmax: '3', radiation: 'xray', wl: '1.5406', tt0: '10', tt1: '90', fwhm: '0.15' };
@@ -68,5 +69,61 @@ describe('diffraction results store', () => {
     await s.getState().run(key, 'diffraction', zoneJob);
     expect(slotOf<'zone'>(s.getState().slots, key).error?.message).toBe('qmax too large');
     expect(slotOf<'zone'>(s.getState().slots, key).running).toBe(false);
+  });
+
+  it('an indexing run (lane "indexing") lands under its key while the panel is away; Cancel stops it with no error', async () => {
+    const lanes: string[] = [];
+    let cancelled = 0;
+    const pending: { resolve: (v: unknown) => void; reject: (e: Error) => void }[] = [];
+    const s = createResultsStore((lane) => {
+      lanes.push(lane);
+      let resolve!: (v: unknown) => void;
+      let reject!: (e: Error) => void;
+      const promise = new Promise<unknown>((res, rej) => {
+        resolve = res;
+        reject = rej;
+      });
+      pending.push({ resolve, reject });
+      return {
+        promise,
+        cancel: () => {
+          cancelled++;
+          reject(new JobCancelled());
+        },
+      };
+    });
+    const m: MeasuredRef = { name: 'scan.xy', data: { axis: '2theta', x: Float64Array.from([20, 21, 22]), intensity: Float64Array.from([5, 9, 4]), comments: [] } };
+    const key = resultKey('p1', 'measured', { kind: 'qc-index', measured: measuredId(m), wavelength: 1.5406, lattice: 'P' });
+    const job = { kind: 'qc-index', measured: m.data, wavelength: 1.5406, lattice: 'P' } as const;
+    // First run: cancelled mid-way — not running, no error, no result.
+    const first = s.getState().run(key, 'indexing', job);
+    expect(slotOf<'qc-index'>(s.getState().slots, key).running).toBe(true);
+    s.getState().cancel(key);
+    expect(await first).toBeNull();
+    expect(cancelled).toBe(1);
+    expect(slotOf<'qc-index'>(s.getState().slots, key)).toMatchObject({ running: false, error: null, result: null });
+    // Second run finishes while nothing reads the store; the hyperlattice choice is kept per scope.
+    const second = s.getState().run(key, 'indexing', job);
+    s.getState().setIndexLattice('p1', 'F');
+    const result = { aR: 4.56 };
+    pending[1].resolve(result);
+    await second;
+    expect(slotOf<'qc-index'>(s.getState().slots, key).result).toBe(result);
+    expect(s.getState().indexLattice).toEqual({ p1: 'F' });
+    expect(lanes).toEqual(['indexing', 'indexing']);
+  });
+
+  it('measuredId tells files apart by name and data, and gives the same file the same id', () => {
+    const data = () => ({ axis: '2theta' as const, x: Float64Array.from([20, 21, 22]), intensity: Float64Array.from([5, 9, 4]), comments: [] });
+    const a: MeasuredRef = { name: 'scan.xy', data: data() };
+    expect(measuredId({ name: 'scan.xy', data: data() })).toBe(measuredId(a));
+    expect(measuredId({ name: 'other.xy', data: data() })).not.toBe(measuredId(a));
+    const changed = data();
+    changed.intensity[1] = 10;
+    expect(measuredId({ name: 'scan.xy', data: changed })).not.toBe(measuredId(a));
+    // the same intensities in another order are another pattern
+    const swapped = data();
+    swapped.intensity.set([4, 9, 5]);
+    expect(measuredId({ name: 'scan.xy', data: swapped })).not.toBe(measuredId(a));
   });
 });
