@@ -68,14 +68,20 @@ export interface CheckReport {
   coordinationFactor: number;
   density: DensityCheck | null;
   outsideCell: number;
-  /** undefined: no finder was given; null: the finder found none. */
+  /** undefined: not computed (see spaceGroupNote); null: the finder found none. */
   spaceGroup?: SpaceGroupInfo | null;
+  /** Why a periodic cell's space group was not computed (too many atoms for the finder here, no finder loaded). */
+  spaceGroupNote?: string;
   warnings: CheckWarning[];
   severe: boolean;
 }
 
 export interface CheckOptions {
   spaceGroup?: SpaceGroupProvider;
+  /** Cells with more atoms than this are not given to the finder (its time grows steeply); the report says so. */
+  spaceGroupMaxAtoms?: number;
+  /** Without a finder: why (shown in the report instead of the space group). */
+  spaceGroupWhyNot?: string;
   /** Most too-close pairs listed (default 50). */
   maxListed?: number;
 }
@@ -223,7 +229,11 @@ export function checkStructure(s: Structure, opts: CheckOptions = {}): CheckRepo
   if (mixed > 0) warn('info', 'mixed-sites', `${mixed.toLocaleString('en-US')} mixed or partially occupied sites: CIF and extended XYZ keep them; POSCAR and LAMMPS need an ordered variant.`);
 
   // Space group.
-  if (opts.spaceGroup && s.cell) {
+  if (s.cell && opts.spaceGroup && opts.spaceGroupMaxAtoms !== undefined && n > opts.spaceGroupMaxAtoms) {
+    report.spaceGroupNote = `not computed: ${n.toLocaleString('en-US')} atoms, above the ${opts.spaceGroupMaxAtoms.toLocaleString('en-US')}-atom limit of the symmetry finder here (its time grows steeply with the cell)`;
+  } else if (s.cell && !opts.spaceGroup && opts.spaceGroupWhyNot) {
+    report.spaceGroupNote = `not computed: ${opts.spaceGroupWhyNot}`;
+  } else if (opts.spaceGroup && s.cell) {
     try {
       report.spaceGroup = opts.spaceGroup(s);
       if (report.spaceGroup === null) warn('warning', 'no-space-group', 'The symmetry finder found no space group for this cell.');
@@ -263,6 +273,7 @@ export function checkText(r: CheckReport): string {
   out.push(`atoms: ${r.atoms}${r.periodic ? ' (periodic cell)' : ''}, ${r.dim}D`);
   out.push(`composition: ${r.composition.formula}`);
   if (r.spaceGroup !== undefined) out.push(`space group: ${r.spaceGroup ? `${r.spaceGroup.symbol} (${r.spaceGroup.number})` : 'none found'}`);
+  else if (r.spaceGroupNote) out.push(`space group: ${r.spaceGroupNote}`);
   if (r.density) {
     const d = r.density;
     let line = `density: ${d.number.toFixed(5)} ${d.unit}`;
