@@ -89,7 +89,7 @@ export function writeStructure(s: Structure, format: WriteFormat, opts: WriteOpt
       const text = choice.spaceGroup ? writeCif(choice.structure, { symmetry: choice.spaceGroup }) : writeCif(s);
       // Comment lines right after the first line (CIF 1.1: '#' starts a comment anywhere).
       const nl = text.indexOf('\n');
-      const lines = [`# Tauforge symmetry: ${choice.note}`, ...(comment ? [`# Tauforge check: ${comment}`] : [])];
+      const lines = [...(comment ? [`# Tauforge check: ${comment}`] : []), `# Tauforge symmetry: ${choice.note}`];
       return `${text.slice(0, nl + 1)}${lines.join('\n')}\n${text.slice(nl + 1)}`;
     }
     case 'json':
