@@ -96,7 +96,7 @@ describe('tauforge symmetrise', () => {
     expect(back.pertVsProj).toBeGreaterThan(1e-3);
     expect(back.snapVsProj).toBeLessThan(1e-6);
     // … and the average over the group's 24 operations removes most of the jitter from the ideal cut.
-    expect(back.snapVsIdeal).toBeLessThan(back.pertVsIdeal / 2);
+    expect(back.snapVsIdeal).toBeLessThan((back.pertVsIdeal as number) / 2);
   });
 
   it('the CIF it writes carries the snapped space group; clear errors for a cell-less file and a bad tolerance', async () => {
