@@ -311,3 +311,30 @@ export function matchesTables(g: SpaceGroup): boolean {
   const want = new Set(table.map((o) => key(rowMajor(o.rotation), o.translation)));
   return g.operations.every((o) => want.has(key(o.rotation, o.translation)));
 }
+
+/** Default tolerance of the snap offered in the workspace: 0.01 Å, ten times the finder's strict 1e-3 Å. */
+export const SNAP_SYMPREC = 0.01;
+
+/** A group in brief: number, symbol and its order in the given cell (operations incl. centring translations). */
+export interface GroupBrief {
+  number: number;
+  symbol: string;
+  order: number;
+}
+
+/**
+ * Is the cell nearly but not exactly symmetric? The group at the strict tolerance and at a looser one; `higher`
+ * when the looser tolerance finds more operations (a snap would raise the symmetry). Null for a cell-less or empty
+ * structure or when the finder is not ready or fails.
+ */
+export function nearSymmetry(s: Structure, loose = SNAP_SYMPREC, strict = 1e-3): { strict: GroupBrief; loose: GroupBrief; higher: boolean } | null {
+  if (!ready || !s.cell || s.species.length === 0) return null;
+  try {
+    const a = findSpaceGroup(s, { symprec: strict });
+    const b = findSpaceGroup(s, { symprec: loose });
+    const brief = (g: SpaceGroup): GroupBrief => ({ number: g.number, symbol: g.hmSymbol, order: g.operations.length });
+    return { strict: brief(a), loose: brief(b), higher: b.operations.length > a.operations.length };
+  } catch {
+    return null;
+  }
+}

@@ -234,20 +234,35 @@ export function checkStructure(s: Structure, opts: CheckOptions = {}): CheckRepo
   } else if (s.cell && !opts.spaceGroup && opts.spaceGroupWhyNot) {
     report.spaceGroupNote = `not computed: ${opts.spaceGroupWhyNot}`;
   } else if (opts.spaceGroup && s.cell) {
+    let g: SpaceGroupInfo | null;
     try {
-      report.spaceGroup = opts.spaceGroup(s);
-      if (report.spaceGroup === null) warn('warning', 'no-space-group', 'The symmetry finder found no space group for this cell.');
-      else if (report.spaceGroup.number === 1) warn('info', 'p1', 'Space group P1: the cell has no symmetry beyond its translations.');
+      g = opts.spaceGroup(s);
     } catch (e) {
-      report.spaceGroup = null;
+      g = null;
       warn('warning', 'no-space-group', `The symmetry finder failed: ${(e as Error).message}`);
     }
+    return withSpaceGroup(report, g);
   }
+  return withSpaceGroup(report, undefined);
+}
 
+/**
+ * The report with a space group found later (the page loads its finder after the first check): its warnings
+ * (P 1, none found) added and sorted. `undefined` only sorts. Returns a new report; the input is not changed.
+ */
+export function withSpaceGroup(r: CheckReport, g: SpaceGroupInfo | null | undefined): CheckReport {
+  const warnings = [...r.warnings];
+  const out: CheckReport = { ...r, warnings };
+  if (g !== undefined) {
+    out.spaceGroup = g;
+    delete out.spaceGroupNote;
+    if (g === null && !warnings.some((w) => w.code === 'no-space-group')) warnings.push({ severity: 'warning', code: 'no-space-group', message: 'The symmetry finder found no space group for this cell.' });
+    else if (g?.number === 1) warnings.push({ severity: 'info', code: 'p1', message: 'Space group P1: the cell has no symmetry beyond its translations.' });
+  }
   const order: Record<Severity, number> = { severe: 0, warning: 1, info: 2 };
   warnings.sort((a, b) => order[a.severity] - order[b.severity]);
-  report.severe = warnings.some((w) => w.severity === 'severe');
-  return report;
+  out.severe = warnings.some((w) => w.severity === 'severe');
+  return out;
 }
 
 /**
