@@ -1,8 +1,9 @@
 'use client';
 /**
- * The Check step in the workspace: one line under the view tabs after every cut — the verdict, the first problem (or
- * the density and the shortest contact), the space group, and a snap when the cell is nearly but not exactly
- * symmetric — with a "Details" toggle that opens the full report over the view (every warning, distances per
+ * The Check step in the workspace: one line in the workspace's top bar, beside the downloads it guards, after every
+ * cut — the verdict, the first problem (else a note of the cut that lowers its symmetry, else the density and the
+ * shortest contact), the space group, and a snap when the cell is nearly but not exactly symmetric — with a
+ * "Details" toggle that opens the full report over the view (every warning, distances per
  * species pair against the metallic radii, too-close pairs, coordination per site class, density against the
  * close-packed ideal, composition, the generator's notes, the snap at a chosen tolerance and the supercell used
  * by the download menu). Folded to one line so the 3D view keeps its height.
@@ -23,6 +24,8 @@ const TONE: Record<Severity, string> = {
   info: 'border-rule bg-paper text-ink-soft',
 };
 const WORD: Record<Severity, string> = { severe: 'Severe', warning: 'Warning', info: 'Note' };
+/** Notes of the cut worth seeing without opening the details: a lowered symmetry, fractional boundary sites. */
+const CAUTION = /lowers|off every|fractional/;
 
 function runCheck(s: Structure | null): { report: CheckReport | null; error: string | null } {
   if (!s) return { report: null, error: null };
@@ -116,7 +119,7 @@ export function CheckPanel({ structure }: { structure: Structure | null }) {
   if (!structure) return null;
   if (!report) {
     return (
-      <div role="status" className="rounded-lg border border-clay bg-clay-pale px-3 py-1.5 text-xs text-clay">
+      <div role="status" className="min-w-0 flex-1 truncate rounded border border-clay bg-clay-pale px-2 py-0.5 text-xs text-clay" title={base.error ?? undefined}>
         Check could not run: {base.error}
       </div>
     );
@@ -124,6 +127,7 @@ export function CheckPanel({ structure }: { structure: Structure | null }) {
   const v = verdict(report);
   const badge = v.tone === 'ok' ? 'border-tide bg-tide-pale text-tide-deep' : TONE[v.tone];
   const first = report.warnings.find((w) => w.severity !== 'info');
+  const caution = (structure.notes ?? []).find((n) => CAUTION.test(n));
   const sg = spaceGroupText(sym);
   const near = sym.kind === 'found' ? sym.near : null;
   const snap = (symprec: number) => {
@@ -139,19 +143,31 @@ export function CheckPanel({ structure }: { structure: Structure | null }) {
   };
   const msg = snapMsg?.of === structure ? snapMsg : null;
   return (
-    <section aria-label="Check" data-testid="check-panel" className="relative rounded-lg border border-rule bg-card text-xs">
-      <div className="flex items-center gap-x-3 px-3 py-1">
+    <section aria-label="Check" data-testid="check-panel" className="relative min-w-0 flex-1 text-xs">
+      <div className="flex items-center gap-x-3 border-l border-rule pl-3">
         <h2 className="text-sm font-semibold">Check</h2>
         <span className={`shrink-0 rounded border px-1.5 py-0.5 font-medium ${badge}`} data-testid="check-verdict">
           {v.text}
         </span>
-        <span className={`min-w-0 flex-1 truncate ${first ? (first.severity === 'severe' ? 'text-clay' : 'text-ink') : 'text-ink-soft'}`} title={first?.message} data-testid="check-headline">
-          {first
-            ? first.message
-            : [densityText(report) ? `density ${densityText(report)}` : null, report.density?.ratio !== undefined ? `${(100 * report.density.ratio).toFixed(0)} % of close-packed` : null, report.shortest !== null ? `shortest ${report.shortest.toFixed(3)} Å` : null]
-                .filter(Boolean)
-                .join(' · ')}
-        </span>
+        {msg ? (
+          <span role="status" className={`min-w-0 flex-1 truncate ${msg.error ? 'text-clay' : 'text-ink'}`} title={msg.text} data-testid="check-snap-result">
+            {msg.text}
+          </span>
+        ) : (
+          <span
+            className={`min-w-0 flex-1 truncate ${first ? (first.severity === 'severe' ? 'text-clay' : 'text-ink') : caution ? 'text-amber-700' : 'text-ink-soft'}`}
+            title={first?.message ?? caution}
+            data-testid="check-headline"
+          >
+            {first
+              ? first.message
+              : caution
+                ? caution
+                : [densityText(report) ? `density ${densityText(report)}` : null, report.density?.ratio !== undefined ? `${(100 * report.density.ratio).toFixed(0)} % of close-packed` : null, report.shortest !== null ? `shortest ${report.shortest.toFixed(3)} Å` : null]
+                    .filter(Boolean)
+                    .join(' · ')}
+          </span>
+        )}
         {sg ? (
           <span className="shrink-0 text-ink-soft" data-testid="check-space-group" title={sym.kind === 'found' ? 'moyo, symprec 1e-3 Å' : undefined}>
             space group <span className={sym.kind === 'found' ? 'font-medium text-ink' : undefined}>{sg}</span>
@@ -171,13 +187,8 @@ export function CheckPanel({ structure }: { structure: Structure | null }) {
           {open ? 'Hide details' : 'Details'}
         </button>
       </div>
-      {msg ? (
-        <p role="status" className={`border-t border-rule px-3 py-1 ${msg.error ? 'text-clay' : 'text-ink'}`} data-testid="check-snap-result">
-          {msg.text}
-        </p>
-      ) : null}
       {open ? (
-        <div className="absolute inset-x-0 top-full z-20 mt-1 rounded-lg border border-rule bg-card shadow-lg">
+        <div className="absolute left-0 top-full z-20 mt-2 w-[min(56rem,calc(100vw-3rem))] rounded-lg border border-rule bg-card shadow-lg">
           <Details report={report} structure={structure} sym={sym} onSnap={snap} supercell={supercell} onSupercell={setSupercell} />
         </div>
       ) : null}
@@ -296,7 +307,7 @@ function Details({ report, structure, sym, onSnap, supercell, onSupercell }: { r
       {notes.length ? (
         <ul className="space-y-0.5" aria-label="Notes from the cut">
           {notes.map((n, i) => (
-            <li key={i} className={/lowers|off every|fractional/.test(n) ? 'text-brass' : 'text-ink-soft'}>
+            <li key={i} className={CAUTION.test(n) ? 'text-amber-700' : 'text-ink-soft'}>
               {n}
             </li>
           ))}

@@ -74,10 +74,18 @@ describe('the 3D view takes the room it needs', () => {
     await page.waitForFunction(() => ((window as unknown as { __tauforgeViewer?: { frames(): number } }).__tauforgeViewer?.frames() ?? 0) > 0, null, { timeout: 60_000 });
     await settle(page);
     const open = await canvasBox(page);
-    // The Check strip is one line (details open over the view): the canvas keeps its height, about 554 px at
-    // 1440×900 with both panels open, as before the strip existed.
-    expect(open.height).toBeGreaterThan(540);
+    // The Check strip is one line in the top bar (details open over the view): the canvas keeps its height, about
+    // 554 px at 1440×900 with both panels open, as before the strip existed.
     await screenshot(page, 'viewer-room-1440-panels-open');
+    expect(open.height).toBeGreaterThan(540);
+    // The strip names the space group the page's finder gives; its details open over the view, not above it.
+    const check = page.getByTestId('check-panel');
+    await expect.poll(() => check.getByTestId('check-space-group').innerText(), { timeout: 30_000 }).toMatch(/^space group .+ \(No\. \d+\)$/);
+    await check.getByRole('button', { name: 'Details', exact: true }).click();
+    await page.locator('#check-details').waitFor();
+    expect((await canvasBox(page)).height).toBeCloseTo(open.height, 0);
+    await screenshot(page, 'viewer-room-1440-check-details');
+    await check.getByRole('button', { name: 'Hide details' }).click();
 
     // Both side panels folded: the view spans at least 70 % of the window's width.
     await page.getByRole('button', { name: 'Hide the model panel' }).click();
