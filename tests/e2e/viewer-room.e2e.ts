@@ -146,12 +146,19 @@ describe('the 3D view takes the room it needs', () => {
     const count = Number((await page.textContent('[data-testid=atom-count]'))!.replace(/,/g, ''));
     const screen = (await page.evaluate(`Array.from({ length: ${count} }, (_, i) => ${HOOK}.atomScreen(i))`)) as Pt[];
     const box = await canvasBox(page);
-    const inside = screen.map((s, i) => ({ ...s, i })).filter((s) => s.x > box.x + 10 && s.x < box.x + box.width - 10 && s.y > box.y + 10 && s.y < box.y + box.height - 10);
+    const onCanvas = screen.map((s, i) => ({ ...s, i })).filter((s) => s.x > box.x + 10 && s.x < box.x + box.width - 10 && s.y > box.y + 10 && s.y < box.y + box.height - 10);
+    // Only atoms a click can reach: not under the view's own buttons or the axis gizmo drawn over the canvas.
+    const reachable = (await page.evaluate(
+      (pts: Pt[]) => pts.map((p) => document.elementFromPoint(p.x, p.y)?.tagName === 'CANVAS' && document.elementFromPoint(p.x, p.y)?.closest('[data-testid=viewer-canvas]') !== null),
+      onCanvas.map(({ x, y }) => ({ x, y })),
+    )) as boolean[];
+    const inside = onCanvas.filter((_, k) => reachable[k]);
     const spreadX = Math.max(...inside.map((s) => s.x)) - Math.min(...inside.map((s) => s.x));
     const spreadY = Math.max(...inside.map((s) => s.y)) - Math.min(...inside.map((s) => s.y));
     const key = spreadX >= spreadY ? 'x' : 'y';
     const first = inside.reduce((a, b) => (b[key] < a[key] ? b : a));
     const second = inside.reduce((a, b) => (b[key] > a[key] ? b : a));
+    await screenshot(page, 'viewer-room-1440-cell-edge');
     await page.mouse.click(first.x, first.y);
     await expect.poll(() => page.getByTestId('picked-atom').count()).toBe(1);
     await page.keyboard.down('Shift');
