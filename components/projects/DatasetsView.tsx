@@ -9,9 +9,17 @@ import { inputClass } from '@/components/ui/fields';
 import { Notice } from '@/components/ui/messages';
 import type { DatasetInfo } from '@/lib/server/datasets';
 
+/** The space group the upload's parse found (older uploads have none recorded; finite structures need none). */
+function spaceGroupText(s: Record<string, unknown>): string {
+  const g = s.spaceGroup as { number: number; symbol: string } | null | undefined;
+  if (g) return `; space group ${g.symbol} (No. ${g.number})`;
+  if (s.periodic && typeof s.spaceGroupNote === 'string') return `; space group ${s.spaceGroupNote}`;
+  return '';
+}
+
 function summaryText(d: DatasetInfo): string {
   const s = d.summary as Record<string, unknown>;
-  if (d.kind === 'structure') return `${s.atoms} atoms${s.periodic ? ', periodic' : ''}, ${Object.entries((s.composition ?? {}) as Record<string, number>).map(([k, v]) => `${k}${v}`).join(' ')}`;
+  if (d.kind === 'structure') return `${s.atoms} atoms${s.periodic ? ', periodic' : ''}, ${Object.entries((s.composition ?? {}) as Record<string, number>).map(([k, v]) => `${k}${v}`).join(' ')}${spaceGroupText(s)}`;
   return `${s.points} points, ${s.axis} ${Number(s.xMin).toPrecision(4)}–${Number(s.xMax).toPrecision(4)}`;
 }
 

@@ -44,7 +44,8 @@ export async function downloadExport(id: number, filename: string): Promise<void
 const FORMATS = [
   ['xyz', 'XYZ'],
   ['extxyz', 'Extended XYZ'],
-  ['cif', 'CIF'],
+  ['cif', 'CIF (space group)'],
+  ['cif-p1', 'CIF (P 1, all atoms)'],
   ['json', 'Tauforge JSON'],
   ['peaks-csv', 'Powder peak list (CSV, Cu Kα1)'],
 ] as const;

@@ -23,7 +23,6 @@ import { SaveDialog, postRevision, type RevisionRef } from './SavePanel';
 import { CheckPanel } from './CheckPanel';
 import { JobsPanel } from './JobsPanel';
 import { forkProject as postFork } from '@/components/projects/fork';
-import { SpaceGroupFacts } from './SpaceGroupFacts';
 
 export interface WorkspaceProps {
   project?: { id: string; name: string; canEdit: boolean };
@@ -173,6 +172,8 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
             {dirty && !lab ? <span className="ml-2 rounded bg-brass-pale px-1.5 text-brass">unsaved edits</span> : null}
           </p>
         </div>
+        {/* The Check step's one line sits beside the downloads it guards, so the view below keeps its height. */}
+        <CheckPanel structure={structure} />
         <div className="ml-auto flex flex-wrap items-center gap-2">
           <label htmlFor="dl-format" className="sr-only">
             File format
@@ -307,9 +308,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
               ))}
             </div>
             <CutFacts summary={summary} stale={stale} ms={cut.ms} />
-            <SpaceGroupFacts structure={stale ? null : structure} />
           </div>
-          <CheckPanel structure={structure} />
           <div className="min-h-0 flex-1 rounded-lg border border-rule bg-card p-2">
             <ViewBoundary name={VIEW_NAMES[shownView]} resetKeys={[shownView, structure, seriesJob.result]}>
             {shownView === 'jobs' && project ? (

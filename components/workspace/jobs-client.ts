@@ -30,8 +30,10 @@ interface StoredExport {
 /** POST an export; when it has to be made, wait for its job, then ask again for the stored file. */
 export async function exportNow(projectId: number, revision: number, format: string, onProgress?: (j: JobInfo) => void): Promise<StoredExport> {
   const url = `/api/projects/${projectId}/exports`;
-  const first = await send<StoredExport | { job: JobInfo }>('POST', url, { revision, format });
+  // 'cif-p1': the CIF in P 1 with every atom (the API's cifSymmetry option); plain 'cif' carries the space group.
+  const body = format === 'cif-p1' ? { revision, format: 'cif', cifSymmetry: 'p1' } : { revision, format };
+  const first = await send<StoredExport | { job: JobInfo }>('POST', url, body);
   if (!('job' in first)) return first;
   await waitForJob(first.job.url, onProgress);
-  return { ...(await send<StoredExport>('POST', url, { revision, format })), reused: false };
+  return { ...(await send<StoredExport>('POST', url, body)), reused: false };
 }

@@ -3,7 +3,7 @@ import { supercell, type SupercellSize } from '../structure/supercell';
 import { wrapIntoCell } from '../structure/wrap';
 import { DEFAULT_MAX_POINTS } from '../models/point-cap';
 import { checkComment, checkStructure, type CheckReport, type SpaceGroupProvider } from '../structure/checks/report';
-import { inStandardOrigin, symmetryReady } from '../structure/symmetry';
+import { findSpaceGroup, inStandardOrigin, symmetryReady, SYMMETRY_ATOM_LIMITS, type SpaceGroup } from '../structure/symmetry';
 import { writeCif } from './cif';
 import { writeExtxyz } from './extxyz';
 import { writeJson } from './json';
@@ -26,6 +26,54 @@ export interface WriteOptions {
   /** CIF only: 'found' writes the space group, its operations and the asymmetric unit when the symmetry
    *  finder is ready and the cell is in a standard setting; 'p1' (the default) writes P 1 with every atom. */
   cifSymmetry?: 'found' | 'p1';
+  /** CIF with 'found': cells with more atoms are written in P 1, saying so (default SYMMETRY_ATOM_LIMITS.server). */
+  symmetryMaxAtoms?: number;
+  /** CIF with 'found': write P 1 anyway, for this reason (writeExport sets it for a supercell). */
+  p1Reason?: string;
+}
+
+/** What a CIF is written with: the space group and the structure moved to its standard origin, or P 1; and why. */
+export interface CifSymmetryChoice {
+  structure: Structure;
+  spaceGroup: SpaceGroup | null;
+  /** One plain-ASCII line for the file's comment: what was written and why. */
+  note: string;
+}
+
+/**
+ * The space group a CIF is written in. 'found' (the download menu's and the API's default): the group the finder
+ * gives (moyo, symprec 1e-3 A), with the structure moved to the standard origin of the International Tables so its
+ * operations are the tabulated ones; P 1 with every atom when asked ('p1'), when the cell is larger than the
+ * finder's limit, when the finder is not loaded or fails, when the group is P 1, or when the cell is not in a
+ * standard setting. The note says which, and why.
+ */
+export function cifSymmetryChoice(s: Structure, opts: Pick<WriteOptions, 'cifSymmetry' | 'symmetryMaxAtoms' | 'p1Reason'> = {}): CifSymmetryChoice {
+  const n = s.species.length;
+  const p1 = (why: string): CifSymmetryChoice => ({ structure: s, spaceGroup: null, note: `P 1 with all ${n} atoms: ${why}` });
+  if (opts.cifSymmetry !== 'found') return p1("the 'P 1, all atoms' choice");
+  if (opts.p1Reason) return p1(opts.p1Reason);
+  if (!s.cell) return p1('no periodic cell');
+  if (!symmetryReady()) return p1('the symmetry finder is not loaded here');
+  const max = opts.symmetryMaxAtoms ?? SYMMETRY_ATOM_LIMITS.server;
+  if (n > max) return p1(`more than ${max} atoms, the limit of the symmetry finder here (its time grows steeply with the cell)`);
+  let g: SpaceGroup;
+  let std: ReturnType<typeof inStandardOrigin>;
+  try {
+    g = findSpaceGroup(s);
+    std = g.number === 1 ? null : inStandardOrigin(s);
+  } catch (e) {
+    return p1(`the symmetry finder failed (${(e as Error).message})`);
+  }
+  if (g.number === 1) return p1(`the symmetry finder (moyo, symprec ${g.symprec} A) finds no symmetry beyond the lattice translations`);
+  if (!std) return p1(`the finder gives ${g.hmSymbol} (No. ${g.number}), but this cell is not in a standard setting of the International Tables, so its operations cannot be written against that symbol`);
+  const sg = std.spaceGroup;
+  const unique = sg.orbits.reduce((k, o, i) => k + (o === i ? 1 : 0), 0);
+  const moved = std.structure !== s ? '; origin moved to the standard one of the International Tables' : '';
+  return {
+    structure: std.structure,
+    spaceGroup: sg,
+    note: `space group ${sg.hmSymbol} (No. ${sg.number}) found by moyo (symprec ${sg.symprec} A): ${sg.operations.length} operations, asymmetric unit of ${unique} of ${n} atoms${moved}`,
+  };
 }
 
 /** One writer for every coordinate format, so the CLI, downloads and exports cannot drift apart. */
@@ -37,12 +85,12 @@ export function writeStructure(s: Structure, format: WriteFormat, opts: WriteOpt
     case 'extxyz':
       return writeExtxyz(s, { check: comment });
     case 'cif': {
-      const std = opts.cifSymmetry === 'found' && s.cell && symmetryReady() ? inStandardOrigin(s) : null;
-      const text = std ? writeCif(std.structure, { symmetry: std.spaceGroup }) : writeCif(s);
-      if (!comment) return text;
-      // A CIF comment line right after the first line (CIF 1.1: '#' starts a comment anywhere).
+      const choice = cifSymmetryChoice(s, opts);
+      const text = choice.spaceGroup ? writeCif(choice.structure, { symmetry: choice.spaceGroup }) : writeCif(s);
+      // Comment lines right after the first line (CIF 1.1: '#' starts a comment anywhere).
       const nl = text.indexOf('\n');
-      return `${text.slice(0, nl + 1)}# Tauforge check: ${comment}\n${text.slice(nl + 1)}`;
+      const lines = [...(comment ? [`# Tauforge check: ${comment}`] : []), `# Tauforge symmetry: ${choice.note}`];
+      return `${text.slice(0, nl + 1)}${lines.join('\n')}\n${text.slice(nl + 1)}`;
     }
     case 'json':
       return writeJson(s);
@@ -87,12 +135,16 @@ export function writeExport(s: Structure, format: WriteFormat, opts: ExportOptio
     const name = format === 'poscar' ? 'POSCAR' : format === 'lammps' ? 'LAMMPS data' : 'CIF';
     throw new Error(`${name} needs a periodic cell: cut an approximant (this structure is a finite patch or a tiling without a cell)`);
   }
-  return writeStructure(exportStructure(s, opts), format, { comment: opts.comment, cifSymmetry: opts.cifSymmetry });
+  const n = opts.supercell;
+  const p1Reason = n && n[0] * n[1] * n[2] > 1 ? `a supercell (${n.join('x')}) is written in P 1 with every atom` : opts.p1Reason;
+  return writeStructure(exportStructure(s, opts), format, { comment: opts.comment, cifSymmetry: opts.cifSymmetry, symmetryMaxAtoms: opts.symmetryMaxAtoms, p1Reason });
 }
 
 export interface ExportFileOptions {
   supercell?: SupercellSize;
   cifSymmetry?: 'found' | 'p1';
+  /** The symmetry finder's atom limit for the CIF and the check (default SYMMETRY_ATOM_LIMITS.server). */
+  symmetryMaxAtoms?: number;
   /** A symmetry finder for the check (see lib/structure/checks/report.ts). */
   spaceGroup?: SpaceGroupProvider;
 }
@@ -103,7 +155,7 @@ export interface ExportFileOptions {
  * caller can show the warnings or ask before handing the file over.
  */
 export function exportFile(s: Structure, format: WriteFormat, opts: ExportFileOptions = {}): { text: string; report: CheckReport } {
-  const report = checkStructure(s, { spaceGroup: opts.spaceGroup });
-  const text = writeExport(s, format, { supercell: opts.supercell, cifSymmetry: opts.cifSymmetry, comment: checkComment(report) });
+  const report = checkStructure(s, { spaceGroup: opts.spaceGroup, spaceGroupMaxAtoms: opts.symmetryMaxAtoms });
+  const text = writeExport(s, format, { supercell: opts.supercell, cifSymmetry: opts.cifSymmetry, symmetryMaxAtoms: opts.symmetryMaxAtoms, comment: checkComment(report) });
   return { text, report };
 }

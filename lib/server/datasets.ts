@@ -2,7 +2,8 @@
  * Datasets: measured patterns (two or three columns) and structure files (XYZ, extended XYZ, CIF,
  * Tauforge JSON) uploaded to a project. Every file is parsed on upload by lib/formats in a queue worker
  * (a `parse` job with a time limit, so a hostile file cannot stall the server); a file that is empty,
- * too large, binary or unreadable gets a clear error and nothing is stored.
+ * too large, binary or unreadable gets a clear error and nothing is stored. A structure's summary carries its
+ * space group (spaceGroupSummary).
  */
 import { z } from 'zod';
 import { db } from './db';
@@ -15,6 +16,9 @@ import { readMeasured } from '../formats/measured';
 import { symbolOf } from '../structure/elements';
 import { enqueue, getJob, type JobInfo } from './queue/service';
 import { timeLimitMs } from './queue/limits';
+import { ensureSymmetry } from './symmetry-wasm';
+import { spaceGroupOf, SYMMETRY_ATOM_LIMITS } from '../structure/symmetry';
+import type { Structure } from '../structure/types';
 
 export const MAX_DATASET_BYTES = 20 * 1024 * 1024;
 export const datasetListQuery = listQuery(['created_at', 'filename', 'size', 'kind'] as const, 'created_at');
@@ -70,6 +74,19 @@ export interface Parsed {
   summary: Record<string, unknown>;
 }
 
+/**
+ * The space group of an uploaded periodic structure (moyo, symprec 1e-3 Å), up to SYMMETRY_ATOM_LIMITS.upload atoms
+ * so the parse task stays well inside its time limit; above it, or for a finite structure, the reason instead.
+ */
+export function spaceGroupSummary(s: Structure): { spaceGroup: { number: number; symbol: string } | null; spaceGroupNote?: string } {
+  const n = s.species.length;
+  if (!s.cell) return { spaceGroup: null, spaceGroupNote: 'no periodic cell' };
+  if (n > SYMMETRY_ATOM_LIMITS.upload) return { spaceGroup: null, spaceGroupNote: `not computed: more than ${SYMMETRY_ATOM_LIMITS.upload.toLocaleString('en-US')} atoms` };
+  ensureSymmetry();
+  const g = spaceGroupOf(s);
+  return g ? { spaceGroup: g } : { spaceGroup: null, spaceGroupNote: 'the symmetry finder found none' };
+}
+
 export function parseUpload(text: string, filename: string, kind: 'auto' | 'pattern' | 'structure'): Parsed {
   const ext = filename.toLowerCase().match(/\.([a-z0-9]+)$/)?.[1] ?? '';
   let chosen: 'pattern' | 'structure';
@@ -95,7 +112,7 @@ export function parseUpload(text: string, filename: string, kind: 'auto' | 'patt
         const sym = s.species[i] === 0 ? 'X' : symbolOf(s.species[i]);
         composition[sym] = (composition[sym] ?? 0) + 1;
       }
-      return { kind: 'structure', format, summary: { atoms: n, periodic: Boolean(s.cell), cell: s.cell ?? null, composition } };
+      return { kind: 'structure', format, summary: { atoms: n, periodic: Boolean(s.cell), cell: s.cell ?? null, composition, ...spaceGroupSummary(s) } };
     }
     const p = readMeasured(text);
     let max = -Infinity;

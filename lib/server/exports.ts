@@ -37,6 +37,9 @@ export const createExportSchema = z.strictObject({
     .string()
     .regex(/^\s*(10|[1-9])\s*x\s*(10|[1-9])\s*x\s*(10|[1-9])\s*$/i, 'supercell: three whole numbers 1–10 such as 2x2x1')
     .optional(),
+  /** CIF only: 'found' (default) writes the space group, its operations and the asymmetric unit when the symmetry
+   *  finder can run (up to 5 000 atoms); 'p1' writes P 1 with every atom. A comment line says which and why. */
+  cifSymmetry: z.enum(['found', 'p1'], { message: "cifSymmetry is 'found' or 'p1'" }).optional(),
 });
 
 /**
@@ -49,9 +52,11 @@ function periodicParams(params: { family?: string; mode?: string; approximant?: 
   return params.approximant !== undefined && params.approximant !== null;
 }
 
-function formatKey(format: ExportFormat, supercell?: string): string {
+function formatKey(format: ExportFormat, supercell?: string, cifSymmetry?: 'found' | 'p1'): string {
   const n = supercell?.toLowerCase().replace(/\s+/g, '');
-  return n && n !== '1x1x1' ? `${format}@${n}` : format;
+  // 'cif-p1': the CIF in P 1 with every atom (the export worker reads it); plain 'cif' carries the space group.
+  const f = format === 'cif' && cifSymmetry === 'p1' ? 'cif-p1' : format;
+  return n && n !== '1x1x1' ? `${f}@${n}` : f;
 }
 export const exportListQuery = listQuery(['created_at', 'size', 'format'] as const, 'created_at');
 
@@ -62,6 +67,8 @@ export interface ExportInfo {
   format: ExportFormat;
   /** "n1xn2xn3" when the export is a supercell. */
   supercell?: string;
+  /** CIF: 'found' (the space group when the finder could run) or 'p1' (every atom). */
+  cifSymmetry?: 'found' | 'p1';
   size: number;
   sha256: string;
   paramsHash: string;
@@ -77,19 +84,21 @@ function slug(name: string): string {
 
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 function info(r: any): ExportInfo {
-  const [format, supercell] = String(r.format).split('@') as [ExportFormat, string | undefined];
+  const [key, supercell] = String(r.format).split('@') as [string, string | undefined];
+  const format = (key === 'cif-p1' ? 'cif' : key) as ExportFormat;
   return {
     id: Number(r.id),
     revision: Number(r.revision_id),
     revisionNumber: Number(r.number),
     format,
     ...(supercell ? { supercell } : {}),
+    ...(format === 'cif' ? { cifSymmetry: key === 'cif-p1' ? ('p1' as const) : ('found' as const) } : {}),
     size: Number(r.size),
     sha256: r.sha256,
     paramsHash: r.params_hash,
     engineVersion: r.engine_version,
     createdAt: iso(r.created_at)!,
-    filename: `${slug(r.project_name)}-r${r.number}${supercell ? `-${supercell}` : ''}.${EXT[format] ?? format}`,
+    filename: `${slug(r.project_name)}-r${r.number}${supercell ? `-${supercell}` : ''}${key === 'cif-p1' ? '-p1' : ''}.${EXT[format] ?? format}`,
     downloadUrl: `/api/exports/${r.id}/download`,
   };
 }
@@ -115,7 +124,8 @@ export async function createExport(actor: Actor | null, projectId: number, input
     const name = input.format === 'poscar' ? 'POSCAR' : input.format === 'lammps' ? 'LAMMPS data' : 'CIF';
     throw new ApiError('unprocessable', `${name} needs a periodic cell: cut an approximant (this revision is a finite patch or a tiling without a cell).`);
   }
-  const key = formatKey(input.format, input.supercell);
+  if (input.cifSymmetry !== undefined && input.format !== 'cif') throw new ApiError('unprocessable', `cifSymmetry applies to CIF exports only, not ${input.format}.`);
+  const key = formatKey(input.format, input.supercell, input.cifSymmetry);
   const existing = await exportQuery().where({ 'e.revision_id': rev.id, 'e.format': key, 'e.engine_version': ENGINE_VERSION }).first();
   if (existing) return { export: info(existing), reused: true };
   const what = { revision: Number(rev.id), format: key };
@@ -161,5 +171,6 @@ export async function downloadExport(actor: Actor | null, exportId: number): Pro
       if (seq >= chunks) controller.close();
     },
   });
-  return { info: info(row), body, mediaType: MEDIA[row.format as ExportFormat] ?? 'application/octet-stream' };
+  const i = info(row);
+  return { info: i, body, mediaType: MEDIA[i.format] ?? 'application/octet-stream' };
 }

@@ -12,6 +12,7 @@ import { registerPatch } from './commands/patch';
 import { registerApproximant } from './commands/approximant';
 import { registerDiffract } from './commands/diffract';
 import { registerCheck } from './commands/check';
+import { registerSymmetrise } from './commands/symmetrise';
 import { CliError } from './errors';
 
 /** Where a run's standard output and standard error go. */
@@ -43,6 +44,7 @@ export function buildProgram(output: CliOutput = processOutput): Command {
   registerApproximant(program);
   registerDiffract(program);
   registerCheck(program);
+  registerSymmetrise(program);
   return program;
 }
 

@@ -156,7 +156,9 @@ describe('journey', () => {
     expect(cif.name).toMatch(/\.cif$/);
     const cifFile = path.join(work, cif.name);
     writeFileSync(cifFile, cif.text);
-    const [sites, a] = runPython<number[]>('import gemmi, sys, json; s = gemmi.read_small_structure(sys.stdin.read()); print(json.dumps([len(s.sites), s.cell.a]))', cifFile);
+    // The CIF carries the space group and its asymmetric unit (a comment line says which): gemmi expands it.
+    expect(cif.text).toMatch(/^# Tauforge symmetry: /m);
+    const [sites, a] = runPython<number[]>('import gemmi, sys, json; s = gemmi.read_small_structure(sys.stdin.read()); print(json.dumps([len(s.get_all_unit_cell_sites()), s.cell.a]))', cifFile);
     await page.getByLabel('File format').selectOption('xyz');
     const xyz = await download(page, () => page.getByRole('button', { name: 'Download' }).click());
     expect(Number(xyz.text.split('\n')[0])).toBe(count);
@@ -205,7 +207,7 @@ describe('journey', () => {
     const cifFile = path.join(work, cif.name);
     writeFileSync(cifFile, cif.text);
     const [sites, a, b, , alpha, beta, gamma] = runPython<number[]>(
-      'import gemmi, sys, json; s = gemmi.read_small_structure(sys.stdin.read()); c = s.cell; print(json.dumps([len(s.sites), c.a, c.b, c.c, c.alpha, c.beta, c.gamma]))',
+      'import gemmi, sys, json; s = gemmi.read_small_structure(sys.stdin.read()); c = s.cell; print(json.dumps([len(s.get_all_unit_cell_sites()), c.a, c.b, c.c, c.alpha, c.beta, c.gamma]))',
       cifFile,
     );
     expect(sites).toBe(count);

@@ -61,6 +61,8 @@ describe('POST /api/projects/{id}/check', () => {
     const { report } = await r.json();
     expect(report.pairs[0].shortest).toBeCloseTo(4.05 / Math.SQRT2, 5);
     expect(report.warnings).toEqual([]);
+    // Its space group: F m -3 m, No. 225 (fcc; International Tables).
+    expect(report.spaceGroup).toEqual({ number: 225, symbol: 'F m -3 m' });
   });
 
   it('unreadable files and bad bodies get clear errors', async () => {
@@ -95,6 +97,27 @@ describe('POST /api/projects/{id}/exports: POSCAR and LAMMPS with a supercell', 
     const d = await call(downloadRoute, 'GET', info.downloadUrl, { params: { id: String(info.id) }, cookie: owner.cookie });
     const n = runPython<number>('import sys, io, json\nfrom ase.io import read\nprint(json.dumps(len(read(io.StringIO(sys.stdin.read()), format="lammps-data", style="atomic"))))', await d.text());
     expect(n).toBe(32);
+  });
+
+  it('CIF carries the space group by default and P 1 with cifSymmetry p1; gemmi expands both to 32 atoms', async () => {
+    const GEMMI = 'import sys, json, gemmi\nst = gemmi.make_small_structure_from_block(gemmi.cif.read_string(sys.stdin.read()).sole_block())\ng = st.find_spacegroup()\nprint(json.dumps({"number": g.number if g else None, "expanded": len(st.get_all_unit_cell_sites())}))';
+    const found = await exportWhenReady({ revision, format: 'cif' });
+    expect(found.info.cifSymmetry).toBe('found');
+    const text = await (await call(downloadRoute, 'GET', found.info.downloadUrl, { params: { id: String(found.info.id) }, cookie: owner.cookie })).text();
+    const note = /^# Tauforge symmetry: (.*)$/m.exec(text)![1];
+    const back = runPython<{ number: number; expanded: number }>(GEMMI, text);
+    expect(back.expanded).toBe(32);
+    if (back.number > 1) expect(note).toMatch(new RegExp(`\\(No\\. ${back.number}\\) found by moyo`));
+    else expect(note).toMatch(/^P 1 with all 32 atoms: /);
+    const p1 = await exportWhenReady({ revision, format: 'cif', cifSymmetry: 'p1' });
+    expect(p1.info).toMatchObject({ format: 'cif', cifSymmetry: 'p1' });
+    expect(p1.info.filename).toMatch(/-r3-p1\.cif$/);
+    const p1Text = await (await call(downloadRoute, 'GET', p1.info.downloadUrl, { params: { id: String(p1.info.id) }, cookie: owner.cookie })).text();
+    expect(p1Text).toMatch(/^# Tauforge symmetry: P 1 with all 32 atoms: the 'P 1, all atoms' choice$/m);
+    expect(runPython<{ number: number; expanded: number }>(GEMMI, p1Text)).toEqual({ number: 1, expanded: 32 });
+    const wrong = await post(exportsRoute, 'exports', { revision, format: 'xyz', cifSymmetry: 'p1' });
+    expect(wrong.status).toBe(422);
+    expect((await wrong.json()).error.message).toMatch(/cifSymmetry applies to CIF exports only/);
   });
 
   it('a finite patch cannot become a POSCAR: 422 naming the reason, nothing stored', async () => {

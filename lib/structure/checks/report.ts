@@ -68,14 +68,20 @@ export interface CheckReport {
   coordinationFactor: number;
   density: DensityCheck | null;
   outsideCell: number;
-  /** undefined: no finder was given; null: the finder found none. */
+  /** undefined: not computed (see spaceGroupNote); null: the finder found none. */
   spaceGroup?: SpaceGroupInfo | null;
+  /** Why a periodic cell's space group was not computed (too many atoms for the finder here, no finder loaded). */
+  spaceGroupNote?: string;
   warnings: CheckWarning[];
   severe: boolean;
 }
 
 export interface CheckOptions {
   spaceGroup?: SpaceGroupProvider;
+  /** Cells with more atoms than this are not given to the finder (its time grows steeply); the report says so. */
+  spaceGroupMaxAtoms?: number;
+  /** Without a finder: why (shown in the report instead of the space group). */
+  spaceGroupWhyNot?: string;
   /** Most too-close pairs listed (default 50). */
   maxListed?: number;
 }
@@ -223,21 +229,40 @@ export function checkStructure(s: Structure, opts: CheckOptions = {}): CheckRepo
   if (mixed > 0) warn('info', 'mixed-sites', `${mixed.toLocaleString('en-US')} mixed or partially occupied sites: CIF and extended XYZ keep them; POSCAR and LAMMPS need an ordered variant.`);
 
   // Space group.
-  if (opts.spaceGroup && s.cell) {
+  if (s.cell && opts.spaceGroup && opts.spaceGroupMaxAtoms !== undefined && n > opts.spaceGroupMaxAtoms) {
+    report.spaceGroupNote = `not computed: ${n.toLocaleString('en-US')} atoms, above the ${opts.spaceGroupMaxAtoms.toLocaleString('en-US')}-atom limit of the symmetry finder here (its time grows steeply with the cell)`;
+  } else if (s.cell && !opts.spaceGroup && opts.spaceGroupWhyNot) {
+    report.spaceGroupNote = `not computed: ${opts.spaceGroupWhyNot}`;
+  } else if (opts.spaceGroup && s.cell) {
+    let g: SpaceGroupInfo | null;
     try {
-      report.spaceGroup = opts.spaceGroup(s);
-      if (report.spaceGroup === null) warn('warning', 'no-space-group', 'The symmetry finder found no space group for this cell.');
-      else if (report.spaceGroup.number === 1) warn('info', 'p1', 'Space group P1: the cell has no symmetry beyond its translations.');
+      g = opts.spaceGroup(s);
     } catch (e) {
-      report.spaceGroup = null;
+      g = null;
       warn('warning', 'no-space-group', `The symmetry finder failed: ${(e as Error).message}`);
     }
+    return withSpaceGroup(report, g);
   }
+  return withSpaceGroup(report, undefined);
+}
 
+/**
+ * The report with a space group found later (the page loads its finder after the first check): its warnings
+ * (P 1, none found) added and sorted. `undefined` only sorts. Returns a new report; the input is not changed.
+ */
+export function withSpaceGroup(r: CheckReport, g: SpaceGroupInfo | null | undefined): CheckReport {
+  const warnings = [...r.warnings];
+  const out: CheckReport = { ...r, warnings };
+  if (g !== undefined) {
+    out.spaceGroup = g;
+    delete out.spaceGroupNote;
+    if (g === null && !warnings.some((w) => w.code === 'no-space-group')) warnings.push({ severity: 'warning', code: 'no-space-group', message: 'The symmetry finder found no space group for this cell.' });
+    else if (g?.number === 1) warnings.push({ severity: 'info', code: 'p1', message: 'Space group P1: the cell has no symmetry beyond its translations.' });
+  }
   const order: Record<Severity, number> = { severe: 0, warning: 1, info: 2 };
   warnings.sort((a, b) => order[a.severity] - order[b.severity]);
-  report.severe = warnings.some((w) => w.severity === 'severe');
-  return report;
+  out.severe = warnings.some((w) => w.severity === 'severe');
+  return out;
 }
 
 /**
@@ -263,6 +288,7 @@ export function checkText(r: CheckReport): string {
   out.push(`atoms: ${r.atoms}${r.periodic ? ' (periodic cell)' : ''}, ${r.dim}D`);
   out.push(`composition: ${r.composition.formula}`);
   if (r.spaceGroup !== undefined) out.push(`space group: ${r.spaceGroup ? `${r.spaceGroup.symbol} (${r.spaceGroup.number})` : 'none found'}`);
+  else if (r.spaceGroupNote) out.push(`space group: ${r.spaceGroupNote}`);
   if (r.density) {
     const d = r.density;
     let line = `density: ${d.number.toFixed(5)} ${d.unit}`;

@@ -41,6 +41,16 @@ describe('tauforge check', () => {
     expect(strict.err).toMatch(/severe problems/);
   });
 
+  it('the space group in the JSON and text reports is the one spglib finds for the same file (rock salt, No. 225)', async () => {
+    const f = aseFile('nacl.extxyz', "bulk('NaCl', 'rocksalt', a=5.64, cubic=True)", 'extxyz');
+    const want = runPython<number>(`import json, spglib\nfrom ase.io import read\na = read(${JSON.stringify(f)})\nd = spglib.get_symmetry_dataset((a.cell[:], a.get_scaled_positions(), a.numbers), symprec=1e-3)\nprint(json.dumps(d['number'] if isinstance(d, dict) else d.number))`);
+    expect(want).toBe(225);
+    const r = await cli(['check', '--input', f, '--format', 'json']);
+    expect(JSON.parse(r.out).spaceGroup).toEqual({ number: want, symbol: 'F m -3 m' });
+    const text = await cli(['check', '--input', f, '--format', 'text', '--symmetry-max-atoms', '4']);
+    expect(text.out).toContain('space group: not computed: 8 atoms, above the 4-atom limit');
+  });
+
   it('clear errors for a missing or unreadable file', async () => {
     const missing = await cli(['check', '--input', join(dir, 'nope.xyz')]);
     expect(missing.code).toBe(2);

@@ -10,6 +10,7 @@ import { ensureSymmetry } from '../../../lib/server/symmetry-wasm';
 import { inStandardOrigin } from '../../../lib/structure/symmetry';
 import { icosahedralApproximant } from '../../../lib/models/icosahedral/approximant';
 import { readCif, writeCif } from '../../../lib/formats/cif';
+import { cifSymmetryChoice, writeStructure } from '../../../lib/formats/write';
 import type { Structure } from '../../../lib/structure/types';
 import { toFractional } from '../../../lib/math/frac';
 import { runPython } from '../../helpers/python';
@@ -110,6 +111,25 @@ describe('CIF with the space group', () => {
     const back = runPython<Back>(READ_BACK, writeCif(std.structure, { symmetry: std.spaceGroup }));
     expect(back.gemmi.length).toBe(38);
     expect(Math.round(back.gemmi.reduce((a, g) => a + g.occ, 0) * 1e6) / 1e6).toBe(32);
+  });
+});
+
+describe('which space group a CIF is written in, and the comment line that says why', () => {
+  const s = icosahedralApproximant({ p: 2, q: 1, aR: 4.6 });
+  s.species.fill(13);
+  it("'found' within the limit: P a -3; above it, or a P 1 cell, or 'p1': P 1 with every atom and the reason", () => {
+    expect(cifSymmetryChoice(s, { cifSymmetry: 'found' }).spaceGroup?.number).toBe(205);
+    expect(cifSymmetryChoice(s, { cifSymmetry: 'found', symmetryMaxAtoms: 100 }).note).toBe(
+      'P 1 with all 136 atoms: more than 100 atoms, the limit of the symmetry finder here (its time grows steeply with the cell)',
+    );
+    const jittered = { ...s, positions: s.positions.map((x, i) => x + 0.01 * Math.sin(3.1 * i)) };
+    expect(cifSymmetryChoice(jittered, { cifSymmetry: 'found' }).note).toMatch(/finds no symmetry beyond the lattice translations/);
+    const text = writeStructure(s, 'cif', { cifSymmetry: 'found', symmetryMaxAtoms: 100 });
+    expect(text).toMatch(/^# Tauforge symmetry: P 1 with all 136 atoms: more than 100 atoms/m);
+    // gemmi (outside reader) sees P 1 and 136 sites.
+    const back = runPython<Back>(READ_BACK, text);
+    expect(back.hm.replace(/\s/g, '')).toBe('P1');
+    expect(back.gemmi.length).toBe(136);
   });
 });
 

@@ -188,6 +188,12 @@ describe('space group provider and text', () => {
     const failed = checkStructure(s, { spaceGroup: () => { throw new Error('boom'); } });
     expect(failed.warnings[0].message).toMatch(/boom/);
     expect(checkStructure(s).spaceGroup).toBeUndefined();
+    // Above the finder's atom limit, or without a finder, the report says why there is no space group.
+    const big = checkStructure(s, { spaceGroup: () => ({ number: 225, symbol: 'Fm-3m' }), spaceGroupMaxAtoms: 3 });
+    expect(big.spaceGroup).toBeUndefined();
+    expect(big.spaceGroupNote).toMatch(/^not computed: 4 atoms, above the 3-atom limit/);
+    expect(checkText(big)).toContain('space group: not computed: 4 atoms');
+    expect(checkStructure(s, { spaceGroupWhyNot: 'the finder is still loading' }).spaceGroupNote).toBe('not computed: the finder is still loading');
     const text = checkText(checkStructure(s, { spaceGroup: () => ({ number: 225, symbol: 'Fm-3m' }) }));
     expect(text).toContain('space group: Fm-3m (225)');
     expect(text).toContain('Al–Al  2.864 Å  limit 2.288 Å');

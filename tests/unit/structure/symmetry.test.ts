@@ -6,7 +6,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { ensureSymmetry } from '../../../lib/server/symmetry-wasm';
-import { findSpaceGroup, inStandardOrigin, siteTypes, spaceGroupOf, symmetrise } from '../../../lib/structure/symmetry';
+import { findSpaceGroup, inStandardOrigin, nearSymmetry, siteTypes, spaceGroupOf, symmetrise } from '../../../lib/structure/symmetry';
 import { icosahedralApproximant } from '../../../lib/models/icosahedral/approximant';
 import { readCif } from '../../../lib/formats/cif';
 import type { Cell, Structure } from '../../../lib/structure/types';
@@ -125,6 +125,18 @@ describe('findSpaceGroup (moyo) agrees with spglib', () => {
     expect(maxShift).toBeLessThan(1e-3);
     const [after] = spglib([{ s: structure, symprec: 1e-6 }]);
     expect(after.number).toBe(205);
+  });
+
+  it('nearSymmetry: a 2/1 cell jittered by 2 mÅ is P 1 strictly (as spglib at 1e-3) and P a -3 at 0.01 Å, so a snap is offered', () => {
+    const s = icosahedralApproximant({ p: 2, q: 1, aR: 4.6 });
+    const jittered = { ...s, positions: s.positions.map((x, i) => x + 2e-3 * Math.sin(1.7 * i + 0.3)) };
+    const [strict, loose] = spglib([{ s: jittered, symprec: 1e-3 }, { s: jittered, symprec: 0.01 }]);
+    const near = nearSymmetry(jittered)!;
+    expect(near.strict.number).toBe(strict.number);
+    expect(near.loose.number).toBe(loose.number);
+    expect(near.loose).toMatchObject({ number: 205, symbol: 'P a -3', order: 24 });
+    expect(near.higher).toBe(true);
+    expect(nearSymmetry(s)!.higher).toBe(false);
   });
 
   it('inStandardOrigin moves the 2/1 cell so its operations are the tabulated ones of P a -3 (origin at -3)', () => {
