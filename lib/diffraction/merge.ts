@@ -43,44 +43,83 @@ function lexGreater(a: ArrayLike<number>, ia: number, b: ArrayLike<number>, ib: 
   return false;
 }
 
-export function mergeReflections(f: HklFactors, opts: MergeOptions = {}): MergedReflection[] {
+/** d values sorted descending, each reflection's rank among the distinct values (exact; typed arrays, no comparator). */
+function orderByD(d: Float64Array, keep: Int32Array): Int32Array {
+  const vals = Float64Array.from(keep, (i) => d[i]).sort();
+  // Distinct values, descending.
+  let u = 0;
+  const uniq = new Float64Array(vals.length);
+  for (let t = vals.length - 1; t >= 0; t--) if (u === 0 || vals[t] !== uniq[u - 1]) uniq[u++] = vals[t];
+  const count = new Int32Array(u + 1);
+  const rank = new Int32Array(keep.length);
+  for (let t = 0; t < keep.length; t++) {
+    const x = d[keep[t]];
+    let lo = 0;
+    let hi = u - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (uniq[mid] > x) lo = mid + 1;
+      else hi = mid;
+    }
+    rank[t] = lo;
+    count[lo + 1]++;
+  }
+  for (let r = 0; r < u; r++) count[r + 1] += count[r];
+  const out = new Int32Array(keep.length);
+  for (let t = 0; t < keep.length; t++) out[count[rank[t]]++] = keep[t];
+  return out;
+}
+
+/**
+ * Merge a reflection list into families (rule in the header). With `friedelPairs` every listed reflection
+ * stands for itself and −h (a Friedel-unique list, sf-friedel.ts; valid when F(−h) = F(h)*): the families,
+ * their d, |F|² and representative index are those of the full ±h list, with twice the multiplicity.
+ */
+export function mergeReflections(f: HklFactors, opts: MergeOptions & { friedelPairs?: boolean } = {}): MergedReflection[] {
   const dTol = opts.dTol ?? 1e-5;
   const f2Tol = opts.f2Tol ?? 2e-3;
   const extinctTol = opts.extinctTol ?? 1e-10;
+  const pairs = opts.friedelPairs ?? false;
   const m = f.d.length;
   let f2max = 0;
   for (let i = 0; i < m; i++) if (f.f2[i] > f2max) f2max = f.f2[i];
-  const order = Array.from({ length: m }, (_, i) => i).filter((i) => f.f2[i] > extinctTol * f2max);
-  order.sort((a, b) => f.d[b] - f.d[a] || f.f2[b] - f.f2[a] || (lexGreater(f.hkl, 3 * a, f.hkl, 3 * b) ? -1 : 1));
+  let kept = 0;
+  for (let i = 0; i < m; i++) if (f.f2[i] > extinctTol * f2max) kept++;
+  const keep = new Int32Array(kept);
+  for (let i = 0, t = 0; i < m; i++) if (f.f2[i] > extinctTol * f2max) keep[t++] = i;
+  const order = orderByD(f.d, keep);
   const out: MergedReflection[] = [];
+  const neg = new Int32Array(3);
+  const best = new Int32Array(3);
   // Walk shells of equal d; within a shell, cluster by |F|².
   let i = 0;
   while (i < order.length) {
     const d0 = f.d[order[i]];
     let j = i + 1;
     while (j < order.length && Math.abs(f.d[order[j]] - d0) <= dTol * d0) j++;
-    const shell = order.slice(i, j).sort((a, b) => f.f2[b] - f.f2[a] || (lexGreater(f.hkl, 3 * a, f.hkl, 3 * b) ? -1 : 1));
+    const shell = order.slice(i, j).sort((a, b) => f.f2[b] - f.f2[a]);
     let p = 0;
     while (p < shell.length) {
       const ref = f.f2[shell[p]];
       let q = p + 1;
       while (q < shell.length && Math.abs(f.f2[shell[q]] - ref) <= f2Tol * ref + 1e-6 * f2max) q++;
-      let best = shell[p];
+      best.set(f.hkl.subarray(3 * shell[p], 3 * shell[p] + 3));
       let sumF2 = 0;
       let sumD = 0;
       for (let t = p; t < q; t++) {
         const idx = shell[t];
-        if (lexGreater(f.hkl, 3 * idx, f.hkl, 3 * best)) best = idx;
+        if (lexGreater(f.hkl, 3 * idx, best, 0)) best.set(f.hkl.subarray(3 * idx, 3 * idx + 3));
+        if (pairs) {
+          neg[0] = -f.hkl[3 * idx];
+          neg[1] = -f.hkl[3 * idx + 1];
+          neg[2] = -f.hkl[3 * idx + 2];
+          if (lexGreater(neg, 0, best, 0)) best.set(neg);
+        }
         sumF2 += f.f2[idx];
         sumD += f.d[idx];
       }
       const n = q - p;
-      out.push({
-        hkl: [f.hkl[3 * best], f.hkl[3 * best + 1], f.hkl[3 * best + 2]],
-        d: sumD / n,
-        f2: sumF2 / n,
-        multiplicity: n,
-      });
+      out.push({ hkl: [best[0], best[1], best[2]], d: sumD / n, f2: sumF2 / n, multiplicity: pairs ? 2 * n : n });
       p = q;
     }
     i = j;

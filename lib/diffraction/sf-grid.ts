@@ -53,6 +53,9 @@ function gaussianFor(n: number, kMax: number, eps: number): GridPlan {
   return { n, c: Math.sqrt(c2), p };
 }
 
+/** Smallest 1 − 2kMax/n: coarser grids need wide Gaussians whose deconvolution amplifies rounding. */
+const MIN_MARGIN = 0.15;
+
 /**
  * Grid size and Gaussian for indices |k|, |l| ≤ kMax at relative tolerance eps. The grid is a power of 2
  * (fft.js) with n ≥ 2kMax + 2 and 1 − 2kMax/n ≥ 0.15; among those the one with the least estimated work per
@@ -64,7 +67,7 @@ export function gridPlan(kMax: number, eps: number, atoms = 1000): GridPlan {
   let best: GridPlan | null = null;
   let bestCost = Infinity;
   for (let n = 16; n <= 1 << 14; n *= 2) {
-    if (n < 2 * kMax + 2 || 1 - (2 * kMax) / n < 0.15) continue;
+    if (n < 2 * kMax + 2 || 1 - (2 * kMax) / n < MIN_MARGIN) continue;
     const plan = gaussianFor(n, kMax, eps);
     const cost = atoms * plan.p * plan.p + 1.5 * (n + 2 * kMax + 1) * n * Math.log2(n);
     if (cost < bestCost) {

@@ -1,0 +1,155 @@
+/**
+ * Axis-sign symmetry of a periodic structure, for structure-factor sums that spread only one atom per orbit.
+ *
+ * Candidate operations g: x → S x + t with S = diag(±1, ±1, ±1) in fractional coordinates and t ∈ {0, ½}³
+ * (the 64 operations of the mmm point group with the half-translations of glides, screws and centrings that
+ * keep the axes). Those that map every atom onto an atom of the same scattering group and weight form a group
+ * V (the symmetries of a structure are closed under composition, and so is this candidate family), found by
+ * hashing the fractional coordinates. Then, with real weights,
+ *
+ *   G(h) = Σ_j w_j e^{2πi h·x_j} = Σ_{g∈V} e^{2πi h·t_g} G_rep(S_g h),   e^{2πi h·t} = ±1,
+ *
+ * where G_rep sums one representative per orbit with weight w·|orbit|/|V| (Σ_{g∈V} g(x_rep) visits each
+ * member of the orbit |V|/|orbit| times). This is the usual symmetry expansion of a structure factor over
+ * the operations of a space group (International Tables Vol. B §1.4); restricting it to diagonal S keeps the
+ * planes of constant h of sf-grid.ts intact, so only |orbits| atoms are spread per plane. For the cubic
+ * icosahedral approximants cut symmetrically about the origin (point group m-3 ⊃ mmm) V has 8 elements.
+ *
+ * Anything uncertain (two atoms of one group at one position, a group that fails to close) falls back to the
+ * identity alone, which is always correct.
+ */
+
+export interface AxisSymmetry {
+  /** Operations of V: sign[3g..3g+2] = diagonal of S (±1), half[3g..3g+2] = 2t (0 or 1). The identity is first. */
+  sign: Int8Array;
+  half: Int8Array;
+  /** Representative atom of each orbit and its weight w·|orbit|/|V|. */
+  rep: Int32Array;
+  repWeight: Float64Array;
+}
+
+/** Coordinates closer than this (fractional) are the same position. */
+const POS_TOL = 1e-6;
+/** Relative agreement of the weights of symmetry-related atoms. */
+const WEIGHT_TOL = 1e-9;
+const Q = 1 << 16;
+
+function wrap(u: number): number {
+  return u - Math.floor(u);
+}
+
+function identityOnly(weight: Float64Array): AxisSymmetry {
+  const rep: number[] = [];
+  for (let j = 0; j < weight.length; j++) if (weight[j] !== 0) rep.push(j);
+  return {
+    sign: Int8Array.of(1, 1, 1),
+    half: Int8Array.of(0, 0, 0),
+    rep: Int32Array.from(rep),
+    repWeight: Float64Array.from(rep, (j) => weight[j]),
+  };
+}
+
+/**
+ * The axis-sign symmetry group of the atoms with nonzero weight (frac: packed fractional x y z; groupOf: scattering
+ * group per atom; weight: occupancy) and one representative per orbit.
+ */
+export function axisSymmetry(frac: Float64Array, groupOf: Uint16Array, weight: Float64Array): AxisSymmetry {
+  const n = groupOf.length;
+  // Hash: quantised (x, y, z) → atoms there.
+  const table = new Map<number, number[]>();
+  const code = (x: number, y: number, z: number) => {
+    const ix = Math.round(wrap(x) * Q) % Q;
+    const iy = Math.round(wrap(y) * Q) % Q;
+    const iz = Math.round(wrap(z) * Q) % Q;
+    return (ix * Q + iy) * Q + iz;
+  };
+  for (let j = 0; j < n; j++) {
+    if (weight[j] === 0) continue;
+    const key = code(frac[3 * j], frac[3 * j + 1], frac[3 * j + 2]);
+    const list = table.get(key);
+    if (list) list.push(j);
+    else table.set(key, [j]);
+  }
+  const near = (a: number, b: number) => {
+    const d = Math.abs(wrap(a) - wrap(b));
+    return Math.min(d, 1 - d) <= POS_TOL;
+  };
+  const codes = (u: number) => {
+    const lo = Math.round(wrap(u - POS_TOL) * Q) % Q;
+    const hi = Math.round(wrap(u + POS_TOL) * Q) % Q;
+    return lo === hi ? [lo] : [lo, hi];
+  };
+  /** The atom at (x, y, z) with j's group and weight, or −1. */
+  const find = (j: number, x: number, y: number, z: number): number => {
+    for (const ix of codes(x))
+      for (const iy of codes(y))
+        for (const iz of codes(z)) {
+          const list = table.get((ix * Q + iy) * Q + iz);
+          if (!list) continue;
+          for (const i of list) {
+            if (groupOf[i] !== groupOf[j]) continue;
+            if (Math.abs(weight[i] - weight[j]) > WEIGHT_TOL * Math.max(Math.abs(weight[i]), Math.abs(weight[j]))) continue;
+            if (near(frac[3 * i], x) && near(frac[3 * i + 1], y) && near(frac[3 * i + 2], z)) return i;
+          }
+        }
+    return -1;
+  };
+  const live: number[] = [];
+  for (let j = 0; j < n; j++) if (weight[j] !== 0) live.push(j);
+  // Two atoms of one group at one position would make the map below ambiguous.
+  for (const j of live) {
+    if (find(j, frac[3 * j], frac[3 * j + 1], frac[3 * j + 2]) !== j) return identityOnly(weight);
+  }
+  const ops: number[][] = [];
+  // Image atom of every live atom under each accepted operation.
+  const images: Int32Array[] = [];
+  for (let c = 0; c < 64; c++) {
+    const s = [c & 1 ? -1 : 1, c & 2 ? -1 : 1, c & 4 ? -1 : 1];
+    const t = [(c >> 3) & 1, (c >> 4) & 1, (c >> 5) & 1];
+    const img = new Int32Array(n).fill(-1);
+    let ok = true;
+    for (const j of live) {
+      const i = find(j, s[0] * frac[3 * j] + t[0] / 2, s[1] * frac[3 * j + 1] + t[1] / 2, s[2] * frac[3 * j + 2] + t[2] / 2);
+      if (i < 0) {
+        ok = false;
+        break;
+      }
+      img[j] = i;
+    }
+    if (ok) {
+      ops.push([...s, ...t]);
+      images.push(img);
+    }
+  }
+  if (ops.length === 1) return identityOnly(weight);
+  // Closure (mod lattice translations): (S1, t1)(S2, t2) = (S1 S2, S1 t2 + t1).
+  const has = (o: number[]) => ops.some((p) => p.every((v, i) => (i < 3 ? v === o[i] : ((v - o[i]) & 1) === 0)));
+  for (const a of ops)
+    for (const b of ops) {
+      const o = [a[0] * b[0], a[1] * b[1], a[2] * b[2], a[0] * b[3] + a[3], a[1] * b[4] + a[4], a[2] * b[5] + a[5]];
+      if (!has(o)) return identityOnly(weight);
+    }
+  // Orbits.
+  const seen = new Uint8Array(n);
+  const rep: number[] = [];
+  const repWeight: number[] = [];
+  for (const j of live) {
+    if (seen[j]) continue;
+    let size = 0;
+    for (const img of images) {
+      const i = img[j];
+      if (!seen[i]) {
+        seen[i] = 1;
+        size++;
+      }
+    }
+    rep.push(j);
+    repWeight.push((weight[j] * size) / ops.length);
+  }
+  return {
+    sign: Int8Array.from(ops.flatMap((o) => o.slice(0, 3))),
+    half: Int8Array.from(ops.flatMap((o) => o.slice(3))),
+    rep: Int32Array.from(rep),
+    repWeight: Float64Array.from(repWeight),
+  };
+}
