@@ -75,10 +75,21 @@ function orderByD(d: Float64Array, keep: Int32Array): Int32Array {
  * stands for itself and −h (a Friedel-unique list, sf-friedel.ts; valid when F(−h) = F(h)*): the families,
  * their d, |F|² and representative index are those of the full ±h list, with twice the multiplicity.
  */
-export function mergeReflections(f: HklFactors, opts: MergeOptions & { friedelPairs?: boolean } = {}): MergedReflection[] {
+export interface MergeListOptions extends MergeOptions {
+  /** Every listed reflection stands for itself and −h (shorthand for images ±1, multiplicity 2). */
+  friedelPairs?: boolean;
+  /** Every listed reflection stands for its images S·h, S in these sign patterns (packed ±1 triples; hkl-orbits.ts)… */
+  images?: Int8Array;
+  /** …of which there are this many (its orbit size). */
+  multiplicity?: Int32Array;
+}
+
+export function mergeReflections(f: HklFactors, opts: MergeListOptions = {}): MergedReflection[] {
   const dTol = opts.dTol ?? 1e-5;
   const f2Tol = opts.f2Tol ?? 2e-3;
   const extinctTol = opts.extinctTol ?? 1e-10;
+  const images = opts.images ?? (opts.friedelPairs ? Int8Array.of(1, 1, 1, -1, -1, -1) : Int8Array.of(1, 1, 1));
+  const mult = opts.multiplicity;
   const pairs = opts.friedelPairs ?? false;
   const m = f.d.length;
   let f2max = 0;
@@ -89,7 +100,7 @@ export function mergeReflections(f: HklFactors, opts: MergeOptions & { friedelPa
   for (let i = 0, t = 0; i < m; i++) if (f.f2[i] > extinctTol * f2max) keep[t++] = i;
   const order = orderByD(f.d, keep);
   const out: MergedReflection[] = [];
-  const neg = new Int32Array(3);
+  const img = new Int32Array(3);
   const best = new Int32Array(3);
   // Walk shells of equal d; within a shell, cluster by |F|².
   let i = 0;
@@ -106,20 +117,21 @@ export function mergeReflections(f: HklFactors, opts: MergeOptions & { friedelPa
       best.set(f.hkl.subarray(3 * shell[p], 3 * shell[p] + 3));
       let sumF2 = 0;
       let sumD = 0;
+      let n = 0;
       for (let t = p; t < q; t++) {
         const idx = shell[t];
-        if (lexGreater(f.hkl, 3 * idx, best, 0)) best.set(f.hkl.subarray(3 * idx, 3 * idx + 3));
-        if (pairs) {
-          neg[0] = -f.hkl[3 * idx];
-          neg[1] = -f.hkl[3 * idx + 1];
-          neg[2] = -f.hkl[3 * idx + 2];
-          if (lexGreater(neg, 0, best, 0)) best.set(neg);
+        for (let s = 0; s < images.length; s += 3) {
+          img[0] = images[s] * f.hkl[3 * idx];
+          img[1] = images[s + 1] * f.hkl[3 * idx + 1];
+          img[2] = images[s + 2] * f.hkl[3 * idx + 2];
+          if (lexGreater(img, 0, best, 0)) best.set(img);
         }
-        sumF2 += f.f2[idx];
-        sumD += f.d[idx];
+        const w = mult ? mult[idx] : pairs ? 2 : 1;
+        sumF2 += w * f.f2[idx];
+        sumD += w * f.d[idx];
+        n += w;
       }
-      const n = q - p;
-      out.push({ hkl: [best[0], best[1], best[2]], d: sumD / n, f2: sumF2 / n, multiplicity: pairs ? 2 * n : n });
+      out.push({ hkl: [best[0], best[1], best[2]], d: sumD / n, f2: sumF2 / n, multiplicity: n });
       p = q;
     }
     i = j;

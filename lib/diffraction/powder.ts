@@ -14,7 +14,11 @@ import type { Structure } from '../structure/types';
 import { determinant } from '../math/mat3';
 import type { Radiation } from './form-factors';
 import { enumerateHklRange, structureFactorsHkl } from './structure-factor';
-import { mergeReflections } from './merge';
+import { mergeReflections, type MergedReflection } from './merge';
+import { axisSymmetry } from './sf-symmetry';
+import { hklOrbits, hklSignGroup } from './hkl-orbits';
+import { groupAtoms } from './scatterers';
+import { toFractional } from '../math/frac';
 import { lorentzPolarization, twoThetaOf } from './lorentz-polarization';
 import { powderProfile, type ProfileShape } from './profile';
 import { formFactorRangeWarning, FORM_FACTOR_S_MAX, neutronAbsorptionWarning } from './form-factors';
@@ -141,15 +145,22 @@ export interface PowderLine {
 }
 
 /**
- * The lines of a pattern down to dMin, independent of the wavelength. Each Friedel pair ±h is computed once
- * (sf-friedel.ts: F(−h) = F(h)* for real scattering factors) and merged with twice the weight (merge.ts);
- * neutrons with complex scattering lengths (absorbers) break Friedel's law, so they take the full ±h list.
+ * The lines of a pattern down to dMin, independent of the wavelength. Structure factors are computed for one
+ * reflection of each orbit under the structure's axis-sign symmetry and Friedel's law (hkl-orbits.ts; at least
+ * one of each pair ±h, F(−h) = F(h)* for real scattering factors) and merged with the orbit sizes as weights
+ * (merge.ts); neutrons with complex scattering lengths (absorbers) break Friedel's law and take the full list.
  */
 export function powderLines(s: Structure, o: Pick<PowderOptions, 'radiation'>, dMin: number): PowderLine[] {
-  const complex = o.radiation === 'neutron' && hasComplexNeutronLength(s);
-  const hkl = enumerateHklRange(s, dMin, !complex);
-  const f = complex ? neutronFactorsHkl(s, hkl) : structureFactorsHkl(s, hkl, o.radiation);
-  const merged = mergeReflections(f, { friedelPairs: !complex });
+  let merged: MergedReflection[];
+  if (o.radiation === 'neutron' && hasComplexNeutronLength(s)) {
+    merged = mergeReflections(neutronFactorsHkl(s, enumerateHklRange(s, dMin, false)));
+  } else {
+    const { groupOf, weight } = groupAtoms(s);
+    const sym = axisSymmetry(toFractional(s.cell!, s.positions), groupOf, weight);
+    const orbits = hklOrbits(s, dMin, hklSignGroup(s, sym, true), sym.transHalf);
+    const f = structureFactorsHkl(s, orbits.hkl, o.radiation, { symmetry: sym });
+    merged = mergeReflections(f, { images: orbits.signs, multiplicity: orbits.multiplicity });
+  }
   const lines: PowderLine[] = [];
   // merged is sorted by d descending, families of one d next to each other.
   let i = 0;

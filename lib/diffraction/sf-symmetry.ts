@@ -23,6 +23,10 @@ export interface AxisSymmetry {
   /** Operations of V: sign[3g..3g+2] = diagonal of S (±1), half[3g..3g+2] = 2t (0 or 1). The identity is first. */
   sign: Int8Array;
   half: Int8Array;
+  /** Pure translations of V (2t per translation, t = 0 first) and one operation of each coset of them. */
+  transHalf: Int8Array;
+  cosetSign: Int8Array;
+  cosetHalf: Int8Array;
   /** Representative atom of each orbit and its weight w·|orbit|/|V|. */
   rep: Int32Array;
   repWeight: Float64Array;
@@ -44,6 +48,9 @@ function identityOnly(weight: Float64Array): AxisSymmetry {
   return {
     sign: Int8Array.of(1, 1, 1),
     half: Int8Array.of(0, 0, 0),
+    transHalf: Int8Array.of(0, 0, 0),
+    cosetSign: Int8Array.of(1, 1, 1),
+    cosetHalf: Int8Array.of(0, 0, 0),
     rep: Int32Array.from(rep),
     repWeight: Float64Array.from(rep, (j) => weight[j]),
   };
@@ -74,16 +81,19 @@ export function axisSymmetry(frac: Float64Array, groupOf: Uint16Array, weight: F
     const d = Math.abs(wrap(a) - wrap(b));
     return Math.min(d, 1 - d) <= POS_TOL;
   };
-  const codes = (u: number) => {
-    const lo = Math.round(wrap(u - POS_TOL) * Q) % Q;
-    const hi = Math.round(wrap(u + POS_TOL) * Q) % Q;
-    return lo === hi ? [lo] : [lo, hi];
-  };
+  const lo = (u: number) => Math.round(wrap(u - POS_TOL) * Q) % Q;
+  const hi = (u: number) => Math.round(wrap(u + POS_TOL) * Q) % Q;
   /** The atom at (x, y, z) with j's group and weight, or −1. */
   const find = (j: number, x: number, y: number, z: number): number => {
-    for (const ix of codes(x))
-      for (const iy of codes(y))
-        for (const iz of codes(z)) {
+    const x0 = lo(x);
+    const x1 = hi(x);
+    const y0 = lo(y);
+    const y1 = hi(y);
+    const z0 = lo(z);
+    const z1 = hi(z);
+    for (let ix = x0, a = 0; a < (x0 === x1 ? 1 : 2); a++, ix = x1)
+      for (let iy = y0, b = 0; b < (y0 === y1 ? 1 : 2); b++, iy = y1)
+        for (let iz = z0, c = 0; c < (z0 === z1 ? 1 : 2); c++, iz = z1) {
           const list = table.get((ix * Q + iy) * Q + iz);
           if (!list) continue;
           for (const i of list) {
@@ -146,9 +156,15 @@ export function axisSymmetry(frac: Float64Array, groupOf: Uint16Array, weight: F
     rep.push(j);
     repWeight.push((weight[j] * size) / ops.length);
   }
+  // Candidates are enumerated with t varying slowest, so the first operation of each S is a coset representative.
+  const trans = ops.filter((o) => o[0] === 1 && o[1] === 1 && o[2] === 1);
+  const cosets = ops.filter((o, i) => ops.findIndex((p) => p[0] === o[0] && p[1] === o[1] && p[2] === o[2]) === i);
   return {
     sign: Int8Array.from(ops.flatMap((o) => o.slice(0, 3))),
     half: Int8Array.from(ops.flatMap((o) => o.slice(3))),
+    transHalf: Int8Array.from(trans.flatMap((o) => o.slice(3))),
+    cosetSign: Int8Array.from(cosets.flatMap((o) => o.slice(0, 3))),
+    cosetHalf: Int8Array.from(cosets.flatMap((o) => o.slice(3))),
     rep: Int32Array.from(rep),
     repWeight: Float64Array.from(repWeight),
   };

@@ -15,7 +15,7 @@ import type { Radiation } from './form-factors';
 import { groupAtoms, groupFactor } from './scatterers';
 import { hklPartialSums, rowsFromSortedHkl } from './hkl-sum';
 import { gridPlaneSums, type GridSumOptions } from './sf-grid';
-import { axisSymmetry } from './sf-symmetry';
+import { axisSymmetry, type AxisSymmetry } from './sf-symmetry';
 
 export interface HklFactors {
   /** Packed h k l, sorted by h, k, l. */
@@ -97,7 +97,7 @@ export interface StructureFactorOptions {
    * Grid route: spread one atom per orbit of the structure's axis-sign symmetry (sf-symmetry.ts) and expand
    * the sums by symmetry. Default true; false spreads every atom (same result within the tolerance).
    */
-  symmetry?: boolean;
+  symmetry?: boolean | AxisSymmetry;
 }
 
 /** Atoms × reflections above which `auto` takes the grid route (a few tenths of a second of direct sums). */
@@ -156,7 +156,7 @@ function gridListSums(
   gre: Float64Array,
   gim: Float64Array,
   opts: GridSumOptions,
-  symmetry: boolean,
+  symmetry: boolean | AxisSymmetry,
 ): void {
   const m = hkl.length / 3;
   let hMax = 0;
@@ -181,7 +181,7 @@ function gridListSums(
     need[2 * h] = Math.max(need[2 * h], Math.abs(hkl[3 * i + 1]));
     need[2 * h + 1] = Math.max(need[2 * h + 1], Math.abs(hkl[3 * i + 2]));
   }
-  const sym = symmetry ? axisSymmetry(frac, groupOf, weight) : null;
+  const sym = symmetry === false ? null : symmetry === true ? axisSymmetry(frac, groupOf, weight) : symmetry;
   let spreadFrac = frac;
   let spreadGroup = groupOf;
   let spreadWeight = weight;
@@ -198,9 +198,12 @@ function gridListSums(
     }
     spreadWeight = sym.repWeight;
   }
-  const nOps = sym ? sym.sign.length / 3 : 1;
-  const sign = sym?.sign ?? Int8Array.of(1, 1, 1);
-  const half = sym?.half ?? Int8Array.of(0, 0, 0);
+  // G(h) = T(h) Σ_cosets e^{2πi h·u} G_rep(S h), T(h) = Σ_t e^{2πi h·t} over the pure translations (sf-symmetry.ts).
+  const nOps = sym ? sym.cosetSign.length / 3 : 1;
+  const sign = sym?.cosetSign ?? Int8Array.of(1, 1, 1);
+  const half = sym?.cosetHalf ?? Int8Array.of(0, 0, 0);
+  const trans = sym?.transHalf ?? Int8Array.of(0, 0, 0);
+  const nTrans = trans.length / 3;
   gridPlaneSums(
     spreadFrac,
     spreadGroup,
@@ -216,9 +219,11 @@ function gridListSums(
         const hi = hkl[3 * i];
         const ki = hkl[3 * i + 1];
         const li = hkl[3 * i + 2];
+        let tf = 0;
+        for (let o = 0; o < nTrans; o++) tf += ((hi * trans[3 * o] + ki * trans[3 * o + 1] + li * trans[3 * o + 2]) & 1) === 0 ? 1 : -1;
         let re = 0;
         let im = 0;
-        for (let o = 0; o < nOps; o++) {
+        for (let o = 0; tf !== 0 && o < nOps; o++) {
           const sh = sign[3 * o] * hi;
           const sk = sign[3 * o + 1] * ki;
           const sl = sign[3 * o + 2] * li;
@@ -235,8 +240,8 @@ function gridListSums(
             im -= par * v[at + 1];
           }
         }
-        gre[off + i] = re;
-        gim[off + i] = im;
+        gre[off + i] = tf * re;
+        gim[off + i] = tf * im;
       }
     },
     { ...opts, planeExtent: (h) => [need[2 * h], need[2 * h + 1]] },
