@@ -50,7 +50,7 @@ export interface GridPlan {
 function gaussianFor(n: number, kMax: number, eps: number): GridPlan {
   const ln = Math.log(1 / eps);
   const c2 = ln / (2 * Math.PI ** 2 * (1 - (2 * kMax) / n));
-  const p = Math.min(n, Math.ceil(Math.sqrt(8 * c2 * (ln + 2 * Math.PI ** 2 * c2 * (kMax / n) ** 2))));
+  const p = Math.ceil(Math.sqrt(8 * c2 * (ln + 2 * Math.PI ** 2 * c2 * (kMax / n) ** 2)));
   return { n, c: Math.sqrt(c2), p };
 }
 
@@ -70,6 +70,8 @@ export function gridPlan(kMax: number, eps: number, atoms = 1000): GridPlan {
   for (let n = 16; n <= 1 << 14; n *= 2) {
     if (n < 2 * kMax + 2 || 1 - (2 * kMax) / n < MIN_MARGIN) continue;
     const plan = gaussianFor(n, kMax, eps);
+    // The Gaussian must fit in one period (the spreading adds no periodic images of its tails).
+    if (plan.p > n) continue;
     const cost = atoms * plan.p * plan.p + 1.5 * (n + 2 * kMax + 1) * n * Math.log2(n);
     if (cost < bestCost) {
       best = plan;

@@ -1,11 +1,12 @@
 /**
  * Axis-sign symmetry of a periodic structure, for structure-factor sums that spread only one atom per orbit.
  *
- * Candidate operations g: x → S x + t with S = diag(±1, ±1, ±1) in fractional coordinates and t ∈ {0, ½}³
- * (the 64 operations of the mmm point group with the half-translations of glides, screws and centrings that
- * keep the axes). Those that map every atom onto an atom of the same scattering group and weight form a group
- * V (the symmetries of a structure are closed under composition, and so is this candidate family), found by
- * hashing the fractional coordinates. Then, with real weights,
+ * Operations g: x → S x + t with S = diag(±1, ±1, ±1) in fractional coordinates that map every atom onto an
+ * atom of the same scattering group and weight, found by hashing the fractional coordinates: for each S the
+ * translations that take one atom onto an atom of its kind are tried. Measured from the centre c of the sign
+ * flips (x' = x − c) the translations of such a group are 0 or ½ (glides, screws, centrings that keep the
+ * axes); anything else falls back. The operations form a group V (closure is checked). Then, with real weights
+ * and x measured from c,
  *
  *   G(h) = Σ_j w_j e^{2πi h·x_j} = Σ_{g∈V} e^{2πi h·t_g} G_rep(S_g h),   e^{2πi h·t} = ±1,
  *
@@ -13,13 +14,16 @@
  * member of the orbit |V|/|orbit| times). This is the usual symmetry expansion of a structure factor over
  * the operations of a space group (International Tables Vol. B §1.4); restricting it to diagonal S keeps the
  * planes of constant h of sf-grid.ts intact, so only |orbits| atoms are spread per plane. For the cubic
- * icosahedral approximants cut symmetrically about the origin (point group m-3 ⊃ mmm) V has 8 elements.
+ * icosahedral approximants (point group m-3 ⊃ mmm) V has 8 elements, 16 with the I centring of the 5/3 cut;
+ * the structure factor about the file's origin is e^{2πi h·c} times the one about c.
  *
  * Anything uncertain (two atoms of one group at one position, a group that fails to close) falls back to the
  * identity alone, which is always correct.
  */
 
 export interface AxisSymmetry {
+  /** Fractional origin c the operations refer to: they act on x − c (the centre of the structure's sign flips). */
+  origin: number[];
   /** Operations of V: sign[3g..3g+2] = diagonal of S (±1), half[3g..3g+2] = 2t (0 or 1). The identity is first. */
   sign: Int8Array;
   half: Int8Array;
@@ -46,6 +50,7 @@ function identityOnly(weight: Float64Array): AxisSymmetry {
   const rep: number[] = [];
   for (let j = 0; j < weight.length; j++) if (weight[j] !== 0) rep.push(j);
   return {
+    origin: [0, 0, 0],
     sign: Int8Array.of(1, 1, 1),
     half: Int8Array.of(0, 0, 0),
     transHalf: Int8Array.of(0, 0, 0),
@@ -110,25 +115,56 @@ export function axisSymmetry(frac: Float64Array, groupOf: Uint16Array, weight: F
   for (const j of live) {
     if (find(j, frac[3 * j], frac[3 * j + 1], frac[3 * j + 2]) !== j) return identityOnly(weight);
   }
-  const ops: number[][] = [];
-  // Image atom of every live atom under each accepted operation.
-  const images: Int32Array[] = [];
-  for (let c = 0; c < 64; c++) {
-    const s = [c & 1 ? -1 : 1, c & 2 ? -1 : 1, c & 4 ? -1 : 1];
-    const t = [(c >> 3) & 1, (c >> 4) & 1, (c >> 5) & 1];
-    const img = new Int32Array(n).fill(-1);
-    let ok = true;
+  if (live.length === 0) return identityOnly(weight);
+  /** Images of every live atom under x → S x + t, or null when some atom has no image. */
+  const scratch = new Int32Array(n).fill(-1);
+  const mapsAll = (sg: number[], t: number[]): Int32Array | null => {
     for (const j of live) {
-      const i = find(j, s[0] * frac[3 * j] + t[0] / 2, s[1] * frac[3 * j + 1] + t[1] / 2, s[2] * frac[3 * j + 2] + t[2] / 2);
-      if (i < 0) {
-        ok = false;
+      const i = find(j, sg[0] * frac[3 * j] + t[0], sg[1] * frac[3 * j + 1] + t[1], sg[2] * frac[3 * j + 2] + t[2]);
+      if (i < 0) return null;
+      scratch[j] = i;
+    }
+    return scratch.slice();
+  };
+  // Candidate translations: those that take the first atom onto an atom of its kind.
+  const j0 = live[0];
+  const same = live.filter((i) => groupOf[i] === groupOf[j0] && Math.abs(weight[i] - weight[j0]) <= WEIGHT_TOL * Math.abs(weight[j0]));
+  const transOps: { t: number[]; img: Int32Array }[] = [];
+  const cosetOps: { s: number[]; t: number[]; img: Int32Array }[] = [];
+  for (let c = 0; c < 8; c++) {
+    const sg = [c & 1 ? -1 : 1, c & 2 ? -1 : 1, c & 4 ? -1 : 1];
+    for (const i of same) {
+      const t = [0, 1, 2].map((a) => wrap(frac[3 * i + a] - sg[a] * frac[3 * j0 + a]));
+      const img = mapsAll(sg, t);
+      if (!img) continue;
+      if (c === 0) transOps.push({ t, img });
+      else {
+        cosetOps.push({ s: sg, t, img });
         break;
       }
-      img[j] = i;
     }
-    if (ok) {
-      ops.push([...s, ...t]);
-      images.push(img);
+  }
+  const isHalf = (u: number) => near(2 * u, 0);
+  if (transOps.some((o) => !o.t.every(isHalf))) return identityOnly(weight);
+  // Origin: the centre of the sign flips, so that every operation's translation becomes 0 or ½.
+  const origin = [0, 0, 0];
+  for (let a = 0; a < 3; a++) {
+    const o = cosetOps.find((p) => p.s[a] === -1);
+    if (o) origin[a] = o.t[a] / 2;
+  }
+  const ops: number[][] = [];
+  const images: Int32Array[] = [];
+  const identity = transOps.find((o) => o.t.every((u) => near(u, 0)));
+  if (!identity) return identityOnly(weight);
+  const reps = [{ s: [1, 1, 1], t: [0, 0, 0], img: identity.img }, ...cosetOps];
+  for (const r of reps) {
+    // x' = x − c: (S, t) becomes (S, t + S c − c).
+    const t1 = [0, 1, 2].map((a) => wrap(r.t[a] + r.s[a] * origin[a] - origin[a]));
+    if (!t1.every(isHalf)) return identityOnly(weight);
+    for (const tr of transOps) {
+      const half = [0, 1, 2].map((a) => Math.round(2 * wrap(t1[a] + tr.t[a])) & 1);
+      ops.push([...r.s, ...half]);
+      images.push(Int32Array.from(r.img, (i) => (i < 0 ? -1 : tr.img[i])));
     }
   }
   if (ops.length === 1) return identityOnly(weight);
@@ -156,10 +192,12 @@ export function axisSymmetry(frac: Float64Array, groupOf: Uint16Array, weight: F
     rep.push(j);
     repWeight.push((weight[j] * size) / ops.length);
   }
-  // Candidates are enumerated with t varying slowest, so the first operation of each S is a coset representative.
-  const trans = ops.filter((o) => o[0] === 1 && o[1] === 1 && o[2] === 1);
-  const cosets = ops.filter((o, i) => ops.findIndex((p) => p[0] === o[0] && p[1] === o[1] && p[2] === o[2]) === i);
+  // ops runs over the coset representatives (outer) times the translations (inner, identity first).
+  const nt = transOps.length;
+  const trans = ops.slice(0, nt);
+  const cosets = ops.filter((_, i) => i % nt === 0);
   return {
+    origin,
     sign: Int8Array.from(ops.flatMap((o) => o.slice(0, 3))),
     half: Int8Array.from(ops.flatMap((o) => o.slice(3))),
     transHalf: Int8Array.from(trans.flatMap((o) => o.slice(3))),

@@ -191,9 +191,9 @@ function gridListSums(
     spreadGroup = new Uint16Array(r);
     for (let t = 0; t < r; t++) {
       const j = sym.rep[t];
-      spreadFrac[3 * t] = frac[3 * j];
-      spreadFrac[3 * t + 1] = frac[3 * j + 1];
-      spreadFrac[3 * t + 2] = frac[3 * j + 2];
+      spreadFrac[3 * t] = frac[3 * j] - sym.origin[0];
+      spreadFrac[3 * t + 1] = frac[3 * j + 1] - sym.origin[1];
+      spreadFrac[3 * t + 2] = frac[3 * j + 2] - sym.origin[2];
       spreadGroup[t] = groupOf[j];
     }
     spreadWeight = sym.repWeight;
@@ -204,6 +204,19 @@ function gridListSums(
   const half = sym?.cosetHalf ?? Int8Array.of(0, 0, 0);
   const trans = sym?.transHalf ?? Int8Array.of(0, 0, 0);
   const nTrans = trans.length / 3;
+  // Phases e^{2πi h c_x}, e^{2πi k c_y}, e^{2πi l c_z} that move the sums about c back to the file's origin.
+  const shifted = spreadFrac !== frac && sym!.origin.some((c) => c !== 0);
+  const phase = (c: number, lim: number) => {
+    const t = new Float64Array(2 * (2 * lim + 1));
+    for (let v = -lim; v <= lim; v++) {
+      t[2 * (v + lim)] = Math.cos(2 * Math.PI * v * c);
+      t[2 * (v + lim) + 1] = Math.sin(2 * Math.PI * v * c);
+    }
+    return t;
+  };
+  const px = shifted ? phase(sym!.origin[0], hMax) : null;
+  const py = shifted ? phase(sym!.origin[1], kMax) : null;
+  const pz = shifted ? phase(sym!.origin[2], lMax) : null;
   gridPlaneSums(
     spreadFrac,
     spreadGroup,
@@ -239,6 +252,18 @@ function gridListSums(
             re += par * v[at];
             im -= par * v[at + 1];
           }
+        }
+        if (px && py && pz) {
+          const a = 2 * (hi + hMax);
+          const b = 2 * (ki + kMax);
+          const c = 2 * (li + lMax);
+          const qr = px[a] * py[b] - px[a + 1] * py[b + 1];
+          const qi = px[a] * py[b + 1] + px[a + 1] * py[b];
+          const pr = qr * pz[c] - qi * pz[c + 1];
+          const pi = qr * pz[c + 1] + qi * pz[c];
+          const r0 = re;
+          re = r0 * pr - im * pi;
+          im = r0 * pi + im * pr;
         }
         gre[off + i] = tf * re;
         gim[off + i] = tf * im;
