@@ -14,6 +14,7 @@ import { cellFromParameters } from '../../../lib/math/cell';
 import { toFractional } from '../../../lib/math/frac';
 import { runPython } from '../../helpers/python';
 import { axisSymmetry } from '../../../lib/diffraction/sf-symmetry';
+import { hklOrbits, hklSignGroup } from '../../../lib/diffraction/hkl-orbits';
 import { groupAtoms } from '../../../lib/diffraction/scatterers';
 
 function lcg(seed: number): () => number {
@@ -153,7 +154,7 @@ import numpy as np, json
 A = np.array(${JSON.stringify([a, b, c])}); B = np.linalg.inv(A).T
 r = np.arange(-20, 21); H = np.array(np.meshgrid(r, r, r, indexing='ij')).reshape(3, -1).T
 g = np.linalg.norm(H @ B, axis=1)
-print(json.dumps(int(((g > 0) & (g <= 1 / 1.3)).sum())))`,
+print(json.dumps(int(((g > 0) & (g <= 1 / 1.31)).sum())))`,
     );
     expect(full.length / 3).toBe(count);
     expect(half.length / 3).toBe(count / 2);
@@ -310,5 +311,28 @@ describe('structure factors by symmetry (sf-symmetry.ts): one atom per orbit spr
     const sym = axisSymmetry(toFractional(s.cell!, s.positions), groupOf, weight);
     expect(sym.sign.length).toBe(3);
     expect(sym.rep.length).toBe(240);
+  });
+});
+
+describe('reflections by orbit (hkl-orbits.ts)', () => {
+  it('P2₁2₁2₁: one reflection per orbit of the sign group with Friedel (mmm, 8 patterns), orbit sizes summing to a numpy count of the sphere (no pure translations here, so nothing is left out; the screw absences are zeros of F)', () => {
+    const s = screwCell();
+    const { groupOf, weight } = groupAtoms(s);
+    const sym = axisSymmetry(toFractional(s.cell!, s.positions), groupOf, weight);
+    const signs = hklSignGroup(s, sym, true);
+    expect(signs.length / 3).toBe(8);
+    const o = hklOrbits(s, 1.31, signs, sym.transHalf); // 1.3 would put 00±9 (d = c/9 = 1.3 Å) on the boundary
+    for (let i = 0; i < o.hkl.length; i++) expect(o.hkl[i]).toBeGreaterThanOrEqual(0);
+    const total = o.multiplicity.reduce((a, b) => a + b, 0);
+    const [a, b, c] = s.cell!;
+    const count = runPython<number>(
+      `
+import numpy as np, json
+A = np.array(${JSON.stringify([a, b, c])}); B = np.linalg.inv(A).T
+r = np.arange(-20, 21); H = np.array(np.meshgrid(r, r, r, indexing='ij')).reshape(3, -1).T
+g = np.linalg.norm(H @ B, axis=1)
+print(json.dumps(int(((g > 0) & (g <= 1 / 1.31)).sum())))`,
+    );
+    expect(total).toBe(count);
   });
 });
