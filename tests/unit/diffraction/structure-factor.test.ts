@@ -154,7 +154,7 @@ import numpy as np, json
 A = np.array(${JSON.stringify([a, b, c])}); B = np.linalg.inv(A).T
 r = np.arange(-20, 21); H = np.array(np.meshgrid(r, r, r, indexing='ij')).reshape(3, -1).T
 g = np.linalg.norm(H @ B, axis=1)
-print(json.dumps(int(((g > 0) & (g <= 1 / 1.31)).sum())))`,
+print(json.dumps(int(((g > 0) & (g <= 1 / 1.3)).sum())))`,
     );
     expect(full.length / 3).toBe(count);
     expect(half.length / 3).toBe(count / 2);
