@@ -43,30 +43,40 @@ function lexGreater(a: ArrayLike<number>, ia: number, b: ArrayLike<number>, ib: 
   return false;
 }
 
-/** d values sorted descending, each reflection's rank among the distinct values (exact; typed arrays, no comparator). */
+/**
+ * The kept reflections ordered by d descending, exactly: an LSD radix sort (4 passes of 16 bits) on the IEEE-754
+ * bits of d, which for positive doubles order like the numbers (no comparator calls; d > 0 always).
+ */
 function orderByD(d: Float64Array, keep: Int32Array): Int32Array {
-  const vals = Float64Array.from(keep, (i) => d[i]).sort();
-  // Distinct values, descending.
-  let u = 0;
-  const uniq = new Float64Array(vals.length);
-  for (let t = vals.length - 1; t >= 0; t--) if (u === 0 || vals[t] !== uniq[u - 1]) uniq[u++] = vals[t];
-  const count = new Int32Array(u + 1);
-  const rank = new Int32Array(keep.length);
-  for (let t = 0; t < keep.length; t++) {
-    const x = d[keep[t]];
-    let lo = 0;
-    let hi = u - 1;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (uniq[mid] > x) lo = mid + 1;
-      else hi = mid;
-    }
-    rank[t] = lo;
-    count[lo + 1]++;
+  const m = keep.length;
+  const bits = new Uint32Array(2 * m);
+  const key = new Float64Array(1);
+  const kw = new Uint32Array(key.buffer);
+  // Little- or big-endian: find the word holding the sign and exponent.
+  key[0] = 1;
+  const hiWord = kw[1] !== 0 ? 1 : 0;
+  for (let t = 0; t < m; t++) {
+    key[0] = d[keep[t]];
+    bits[2 * t] = kw[1 - hiWord];
+    bits[2 * t + 1] = kw[hiWord];
   }
-  for (let r = 0; r < u; r++) count[r + 1] += count[r];
-  const out = new Int32Array(keep.length);
-  for (let t = 0; t < keep.length; t++) out[count[rank[t]]++] = keep[t];
+  let src = Int32Array.from({ length: m }, (_, t) => t);
+  let dst = new Int32Array(m);
+  const count = new Int32Array(65537);
+  for (let pass = 0; pass < 4; pass++) {
+    const word = pass >> 1;
+    const shift = (pass & 1) * 16;
+    count.fill(0);
+    for (let t = 0; t < m; t++) count[((bits[2 * src[t] + word] >>> shift) & 0xffff) + 1]++;
+    for (let r = 0; r < 65536; r++) count[r + 1] += count[r];
+    for (let t = 0; t < m; t++) dst[count[(bits[2 * src[t] + word] >>> shift) & 0xffff]++] = src[t];
+    const tmp = src;
+    src = dst;
+    dst = tmp;
+  }
+  // Ascending d → descending, as reflection indices.
+  const out = new Int32Array(m);
+  for (let t = 0; t < m; t++) out[t] = keep[src[m - 1 - t]];
   return out;
 }
 
@@ -92,6 +102,10 @@ export function mergeReflections(f: HklFactors, opts: MergeListOptions = {}): Me
   const mult = opts.multiplicity;
   const pairs = opts.friedelPairs ?? false;
   const m = f.d.length;
+  // With all eight sign patterns the listed index is (|h|, |k|, |l|) (hkl-orbits.ts), already the best of its images.
+  let selfBest = images.length === 24 && images[0] === 1 && images[1] === 1 && images[2] === 1;
+  if (selfBest) for (let i = 0; i < m && selfBest; i++) selfBest = f.hkl[3 * i] >= 0 && f.hkl[3 * i + 1] >= 0 && f.hkl[3 * i + 2] >= 0;
+  const imageCheck = selfBest ? 3 : images.length;
   let f2max = 0;
   for (let i = 0; i < m; i++) if (f.f2[i] > f2max) f2max = f.f2[i];
   let kept = 0;
@@ -114,17 +128,23 @@ export function mergeReflections(f: HklFactors, opts: MergeListOptions = {}): Me
       const ref = f.f2[shell[p]];
       let q = p + 1;
       while (q < shell.length && Math.abs(f.f2[shell[q]] - ref) <= f2Tol * ref + 1e-6 * f2max) q++;
-      best.set(f.hkl.subarray(3 * shell[p], 3 * shell[p] + 3));
+      best[0] = f.hkl[3 * shell[p]];
+      best[1] = f.hkl[3 * shell[p] + 1];
+      best[2] = f.hkl[3 * shell[p] + 2];
       let sumF2 = 0;
       let sumD = 0;
       let n = 0;
       for (let t = p; t < q; t++) {
         const idx = shell[t];
-        for (let s = 0; s < images.length; s += 3) {
+        for (let s = 0; s < imageCheck; s += 3) {
           img[0] = images[s] * f.hkl[3 * idx];
           img[1] = images[s + 1] * f.hkl[3 * idx + 1];
           img[2] = images[s + 2] * f.hkl[3 * idx + 2];
-          if (lexGreater(img, 0, best, 0)) best.set(img);
+          if (lexGreater(img, 0, best, 0)) {
+            best[0] = img[0];
+            best[1] = img[1];
+            best[2] = img[2];
+          }
         }
         const w = mult ? mult[idx] : pairs ? 2 : 1;
         sumF2 += w * f.f2[idx];
