@@ -13,8 +13,12 @@
 import type { Structure } from '../structure/types';
 import { determinant } from '../math/mat3';
 import type { Radiation } from './form-factors';
-import { enumerateHkl, structureFactorsHkl } from './structure-factor';
-import { mergeReflections } from './merge';
+import { enumerateHklRange, structureFactorsHkl } from './structure-factor';
+import { mergeReflections, type MergedReflection } from './merge';
+import { axisSymmetry } from './sf-symmetry';
+import { hklOrbits, hklSignGroup } from './hkl-orbits';
+import { groupAtoms } from './scatterers';
+import { toFractional } from '../math/frac';
 import { lorentzPolarization, twoThetaOf } from './lorentz-polarization';
 import { powderProfile, type ProfileShape } from './profile';
 import { formFactorRangeWarning, FORM_FACTOR_S_MAX, neutronAbsorptionWarning } from './form-factors';
@@ -132,38 +136,81 @@ export function powderDMin(s: Structure, o: PowderOptions, lambda = o.wavelength
 /** Relative d tolerance within which families are one powder line. */
 const LINE_D_TOL = 1e-5;
 
-export function powderPeaks(s: Structure, o: PowderOptions, lambda = o.wavelength, dMinIn?: number): PowderPeak[] {
-  const dMin = dMinIn ?? powderDMin(s, o, lambda).dMin;
-  const hkl = enumerateHkl(s, dMin);
-  const f = o.radiation === 'neutron' && hasComplexNeutronLength(s) ? neutronFactorsHkl(s, hkl) : structureFactorsHkl(s, hkl, o.radiation);
-  const merged = mergeReflections(f);
-  const peaks: PowderPeak[] = [];
+/** A powder line before the wavelength enters: its d, families, total multiplicity and Σ m·|F|². */
+export interface PowderLine {
+  d: number;
+  multiplicity: number;
+  mf2: number;
+  families: PowderFamily[];
+}
+
+/**
+ * The lines of a pattern down to dMin, independent of the wavelength. Structure factors are computed for one
+ * reflection of each orbit under the structure's axis-sign symmetry and Friedel's law (hkl-orbits.ts; at least
+ * one of each pair ±h, F(−h) = F(h)* for real scattering factors) and merged with the orbit sizes as weights
+ * (merge.ts); neutrons with complex scattering lengths (absorbers) break Friedel's law and take the full list.
+ */
+export function powderLines(s: Structure, o: Pick<PowderOptions, 'radiation'>, dMin: number): PowderLine[] {
+  let merged: MergedReflection[];
+  if (o.radiation === 'neutron' && hasComplexNeutronLength(s)) {
+    merged = mergeReflections(neutronFactorsHkl(s, enumerateHklRange(s, dMin, false)));
+  } else {
+    const { groupOf, weight } = groupAtoms(s);
+    const sym = axisSymmetry(toFractional(s.cell!, s.positions), groupOf, weight);
+    const orbits = hklOrbits(s, dMin, hklSignGroup(s, sym, true), sym.transHalf);
+    const f = structureFactorsHkl(s, orbits.hkl, o.radiation, { symmetry: sym });
+    merged = mergeReflections(f, { images: orbits.signs, multiplicity: orbits.multiplicity });
+  }
+  const lines: PowderLine[] = [];
   // merged is sorted by d descending, families of one d next to each other.
   let i = 0;
   while (i < merged.length) {
     let j = i + 1;
     while (j < merged.length && Math.abs(merged[j].d - merged[i].d) <= LINE_D_TOL * merged[i].d) j++;
-    const fams = merged.slice(i, j);
-    i = j;
     let m = 0;
     let mf2 = 0;
     let dSum = 0;
-    for (const r of fams) {
+    const families: PowderFamily[] = [];
+    for (let t = i; t < j; t++) {
+      const r = merged[t];
       m += r.multiplicity;
       mf2 += r.multiplicity * r.f2;
       dSum += r.multiplicity * r.d;
+      families.push({ hkl: r.hkl, multiplicity: r.multiplicity, f2: r.f2 });
     }
+    i = j;
     const d = dSum / m;
     if (d < dMin * (1 - 1e-9)) continue;
-    const tt = twoThetaOf(d, lambda);
+    families.sort((a, b) => b.multiplicity * b.f2 - a.multiplicity * a.f2);
+    lines.push({ d, multiplicity: m, mf2, families });
+  }
+  return lines;
+}
+
+/** The lines at one wavelength: 2θ in the range, Σ m·|F|²·Lp (not yet scaled). */
+export function peaksOfLines(lines: PowderLine[], o: PowderOptions, lambda = o.wavelength): PowderPeak[] {
+  const peaks: PowderPeak[] = [];
+  for (const l of lines) {
+    const tt = twoThetaOf(l.d, lambda);
     if (!(tt >= o.twoThetaMin && tt <= o.twoThetaMax) || tt === 0) continue;
-    const families = fams
-      .map((r) => ({ hkl: r.hkl, multiplicity: r.multiplicity, f2: r.f2 }))
-      .sort((a, b) => b.multiplicity * b.f2 - a.multiplicity * a.f2);
-    const raw = mf2 * lorentzPolarization(tt, o.radiation, o.monochromator2Theta);
-    peaks.push({ twoTheta: tt, d, q: (2 * Math.PI) / d, hkl: families[0].hkl, multiplicity: m, f2: mf2 / m, intensity: raw, families });
+    const raw = l.mf2 * lorentzPolarization(tt, o.radiation, o.monochromator2Theta);
+    peaks.push({
+      twoTheta: tt,
+      d: l.d,
+      q: (2 * Math.PI) / l.d,
+      hkl: l.families[0].hkl,
+      multiplicity: l.multiplicity,
+      f2: l.mf2 / l.multiplicity,
+      intensity: raw,
+      families: l.families.map((f) => ({ ...f })),
+    });
   }
   return peaks;
+}
+
+export function powderPeaks(s: Structure, o: PowderOptions, lambda = o.wavelength, dMinIn?: number): PowderPeak[] {
+  const dMin = dMinIn ?? powderDMin(s, o, lambda).dMin;
+  return peaksOfLines(powderLines(s, o, dMin), o, lambda);
 }
 
 function scaleTo100(peaks: PowderPeak[], ref?: number): number {
@@ -176,7 +223,9 @@ function scaleTo100(peaks: PowderPeak[], ref?: number): number {
 
 export function braggPowder(s: Structure, o: PowderOptions): PowderResult {
   const { dMin, warnings } = powderDMin(s, o);
-  const peaks = powderPeaks(s, o, o.wavelength, dMin);
+  // One set of structure factors serves both lines of a doublet (same reflections, same d limit).
+  const lines = powderLines(s, o, dMin);
+  const peaks = peaksOfLines(lines, o);
   let max = 0;
   for (const p of peaks) max = Math.max(max, p.intensity);
   scaleTo100(peaks, max);
@@ -187,7 +236,7 @@ export function braggPowder(s: Structure, o: PowderOptions): PowderResult {
     const ratio = o.ratio2 ?? 0.5;
     if (!(ratio >= 0 && ratio <= 1)) throw new Error(`ratio2: must be between 0 and 1, got ${ratio}`);
     // Same d limit as the first line: both lines come from the same reflections.
-    const second = powderPeaks(s, o, o.wavelength2, dMin);
+    const second = peaksOfLines(lines, o, o.wavelength2);
     scaleTo100(second, max);
     for (const p of second) list.push({ twoTheta: p.twoTheta, intensity: p.intensity * ratio });
   }

@@ -15,8 +15,9 @@
  * dividing the blur out again, Ten Eyck, Acta Cryst. A33 (1977) 486; volumes and pages cited from memory.)
  * Two errors remain, both bounded
  * relative to each atom's term: aliasing ĝ(N − K)/ĝ(K) = exp(−2π²c²(1 − 2K/N)) for the largest index K used,
- * and truncating g to P points, about exp(−P²/8c²). With ε = tolerance/10, c and P are set so both are ≤ ε:
- *   c² = ln(1/ε) / (2π²(1 − 2K/N)),  P = ⌈√(8c² ln(1/ε))⌉.
+ * and truncating g to P points, a tail of about exp(−P²/8c²) of ĝ(0) at every frequency, which the division by
+ * ĝ(K) = ĝ(0) exp(−2π²c²K²/N²) magnifies. With ε = tolerance/10, c and P are set so both are ≤ ε:
+ *   c² = ln(1/ε) / (2π²(1 − 2K/N)),  P = ⌈√(8c² (ln(1/ε) + 2π²c²K²/N²))⌉.
  * The FFT is pruned: N transforms along z, then one along y for each l that is kept.
  *
  * Cost per plane ≈ atoms·P² + (N + 2L + 1) FFTs of length N (fft.js, radix 4), against atoms·(2K+1)(2L+1)
@@ -49,9 +50,12 @@ export interface GridPlan {
 function gaussianFor(n: number, kMax: number, eps: number): GridPlan {
   const ln = Math.log(1 / eps);
   const c2 = ln / (2 * Math.PI ** 2 * (1 - (2 * kMax) / n));
-  const p = Math.min(n, Math.ceil(Math.sqrt(8 * c2 * ln)));
+  const p = Math.ceil(Math.sqrt(8 * c2 * (ln + 2 * Math.PI ** 2 * c2 * (kMax / n) ** 2)));
   return { n, c: Math.sqrt(c2), p };
 }
+
+/** Smallest 1 − 2kMax/n: coarser grids need wide Gaussians whose deconvolution amplifies rounding. */
+const MIN_MARGIN = 0.15;
 
 /**
  * Grid size and Gaussian for indices |k|, |l| ≤ kMax at relative tolerance eps. The grid is a power of 2
@@ -64,8 +68,10 @@ export function gridPlan(kMax: number, eps: number, atoms = 1000): GridPlan {
   let best: GridPlan | null = null;
   let bestCost = Infinity;
   for (let n = 16; n <= 1 << 14; n *= 2) {
-    if (n < 2 * kMax + 2 || 1 - (2 * kMax) / n < 0.15) continue;
+    if (n < 2 * kMax + 2 || 1 - (2 * kMax) / n < MIN_MARGIN) continue;
     const plan = gaussianFor(n, kMax, eps);
+    // The Gaussian must fit in one period (the spreading adds no periodic images of its tails).
+    if (plan.p > n) continue;
     const cost = atoms * plan.p * plan.p + 1.5 * (n + 2 * kMax + 1) * n * Math.log2(n);
     if (cost < bestCost) {
       best = plan;
@@ -88,10 +94,60 @@ function spreadWeights(u: number, plan: GridPlan, at: number, w: Float64Array): 
   return start;
 }
 
+/** Everything one grid size needs: its Gaussian, the atoms' spreading weights, FFT and work rows. */
+interface PlaneGrid {
+  plan: GridPlan;
+  fft: FFT;
+  wy: Float64Array;
+  wz: Float64Array;
+  sy: Int32Array;
+  sz: Int32Array;
+  /** Deconvolution 1/(N ĝ(k)) for k = −kMax..kMax and l = −lMax..lMax of the call. */
+  dk: Float64Array;
+  dl: Float64Array;
+  /** Per group, n rows of n complex values (plain arrays: fft.js runs 1.5–2× faster on them than on typed views). */
+  rows: number[][][];
+  /** After the z transforms, one column of n complex values per kept l (transposed, so the y transform reads it as is). */
+  cols: number[][];
+  out: number[];
+}
+
+function planeGrid(plan: GridPlan, frac: Float64Array, live: Int32Array, nGroups: number, kMax: number, lMax: number): PlaneGrid {
+  const { n, c, p } = plan;
+  const atoms = frac.length / 3;
+  const wy = new Float64Array(atoms * p);
+  const wz = new Float64Array(atoms * p);
+  const sy = new Int32Array(atoms);
+  const sz = new Int32Array(atoms);
+  for (const j of live) {
+    sy[j] = spreadWeights(frac[3 * j + 1], plan, j * p, wy) & (n - 1);
+    sz[j] = spreadWeights(frac[3 * j + 2], plan, j * p, wz) & (n - 1);
+  }
+  // ĝ(k) = σ√(2π) exp(−2π²σ²k²), σ = c/N.
+  const sigma = c / n;
+  const decon = (k: number) => 1 / (n * sigma * Math.sqrt(2 * Math.PI) * Math.exp(-2 * Math.PI ** 2 * sigma * sigma * k * k));
+  const fft = new FFT(n);
+  return {
+    plan,
+    fft,
+    wy,
+    wz,
+    sy,
+    sz,
+    dk: Float64Array.from({ length: 2 * kMax + 1 }, (_, i) => decon(i - kMax)),
+    dl: Float64Array.from({ length: 2 * lMax + 1 }, (_, i) => decon(i - lMax)),
+    rows: Array.from({ length: nGroups }, () => Array.from({ length: n }, () => fft.createComplexArray() as number[])),
+    cols: Array.from({ length: 2 * lMax + 1 }, () => fft.createComplexArray() as number[]),
+    out: fft.createComplexArray() as number[],
+  };
+}
+
 /**
  * Plane by plane, the sums G_g(h, k, l) for 0 ≤ h ≤ hMax and |k| ≤ kMax, |l| ≤ lMax. For each plane and
  * group, onPlane(h, g, values) gets values interleaved (re, im) at index 2·((k + kMax)(2 lMax + 1) + l + lMax);
  * the array is reused for the next call, so copy out what you keep (only the planeExtent part is fresh).
+ * Each plane uses the coarsest grid that holds its own extent (planeExtent), so the outer planes of a sphere of
+ * reflections take smaller transforms; every grid meets the tolerance for the indices it serves.
  */
 export function gridPlaneSums(
   frac: Float64Array,
@@ -107,108 +163,96 @@ export function gridPlaneSums(
   const tolerance = opts.tolerance ?? 1e-5;
   if (!(tolerance > 0 && tolerance < 0.1)) throw new Error(`tolerance: must be between 0 and 0.1, got ${tolerance}`);
   const eps = tolerance / 10;
-  const plan = gridPlan(Math.max(kMax, lMax), eps, groupOf.length);
-  const { n, c, p } = plan;
-  const mask = n - 1;
   const atoms = groupOf.length;
-  // Per-atom Gaussian weights (y and z) and start indices; x phase angle.
-  const wy = new Float64Array(atoms * p);
-  const wz = new Float64Array(atoms * p);
-  const sy = new Int32Array(atoms);
-  const sz = new Int32Array(atoms);
+  const liveList: number[] = [];
+  for (let j = 0; j < atoms; j++) if (weight[j] !== 0) liveList.push(j);
+  const live = Int32Array.from(liveList);
   const tx = new Float64Array(atoms);
-  const live: number[] = [];
-  for (let j = 0; j < atoms; j++) {
-    if (weight[j] === 0) continue;
-    live.push(j);
-    sy[j] = spreadWeights(frac[3 * j + 1], plan, j * p, wy);
-    sz[j] = spreadWeights(frac[3 * j + 2], plan, j * p, wz);
-    tx[j] = 2 * Math.PI * (frac[3 * j] - Math.floor(frac[3 * j]));
-  }
-  // Deconvolution 1/(N ĝ(k)) with ĝ(k) = σ√(2π) exp(−2π²σ²k²), σ = c/N.
-  const sigma = c / n;
-  const decon = (k: number) => 1 / (n * sigma * Math.sqrt(2 * Math.PI) * Math.exp(-2 * Math.PI ** 2 * sigma * sigma * k * k));
-  const dk = Float64Array.from({ length: 2 * kMax + 1 }, (_, i) => decon(i - kMax));
-  const dl = Float64Array.from({ length: 2 * lMax + 1 }, (_, i) => decon(i - lMax));
+  for (const j of live) tx[j] = 2 * Math.PI * (frac[3 * j] - Math.floor(frac[3 * j]));
+  // Grid size per plane: the plan for the plane's own extent; per size, the Gaussian for the largest extent it serves.
+  const extent = Array.from({ length: hMax + 1 }, (_, h) => {
+    const [k, l] = opts.planeExtent?.(h) ?? [kMax, lMax];
+    return [Math.min(k, kMax), Math.min(l, lMax)] as const;
+  });
+  const sizeOf = extent.map(([k, l]) => gridPlan(Math.max(k, l, 1), eps, live.length).n);
+  const reach = new Map<number, number>();
+  extent.forEach(([k, l], h) => reach.set(sizeOf[h], Math.max(reach.get(sizeOf[h]) ?? 1, k, l)));
+  const grids = new Map<number, PlaneGrid>();
+  const gridFor = (n: number) => {
+    let g = grids.get(n);
+    if (!g) {
+      g = planeGrid(gaussianFor(n, reach.get(n)!, eps), frac, live, nGroups, kMax, lMax);
+      grids.set(n, g);
+    }
+    return g;
+  };
   const nl = 2 * lMax + 1;
-  const fft = new FFT(n);
-  // fft.js runs fastest on its own plain arrays (packed doubles; measured 1.5–2× against Float64Array views).
-  const inp = fft.createComplexArray() as number[];
-  const out = fft.createComplexArray() as number[];
-  // Padded planes (n + p)², so a patch never wraps while spreading; the pad is folded back before the FFT.
-  const wide = n + p;
-  const grids = Array.from({ length: nGroups }, () => new Float64Array(2 * wide * wide));
-  for (const j of live) {
-    sy[j] &= mask;
-    sz[j] &= mask;
-  }
-  // After the z transforms: rows gy, kept l only.
-  const mid = new Float64Array(2 * n * nl);
   const values = new Float64Array(2 * (2 * kMax + 1) * nl);
+  let widest: GridPlan | null = null;
   for (let h = 0; h <= hMax; h++) {
-    for (const grid of grids) grid.fill(0);
-    for (const j of live) {
-      const grid = grids[groupOf[j]];
+    const pg = gridFor(sizeOf[h]);
+    const { plan, fft, wy, wz, sy, sz, dk, dl, rows, cols, out } = pg;
+    const { n, p } = plan;
+    if (!widest || n > widest.n) widest = plan;
+    const mask = n - 1;
+    for (const group of rows) for (const row of group) row.fill(0);
+    for (let t = 0; t < live.length; t++) {
+      const j = live[t];
+      const group = rows[groupOf[j]];
       const ph = h * tx[j];
       const xr = weight[j] * Math.cos(ph);
       const xi = weight[j] * Math.sin(ph);
-      const oy = j * p;
+      const o = j * p;
+      const z0 = sz[j];
+      const wraps = z0 + p > n;
       for (let a = 0; a < p; a++) {
-        const vr = xr * wy[oy + a];
-        const vi = xi * wy[oy + a];
-        let idx = 2 * ((sy[j] + a) * wide + sz[j]);
-        for (let b = 0; b < p; b++, idx += 2) {
-          const v = wz[oy + b];
-          grid[idx] += vr * v;
-          grid[idx + 1] += vi * v;
+        const row = group[(sy[j] + a) & mask];
+        const vr = xr * wy[o + a];
+        const vi = xi * wy[o + a];
+        if (!wraps) {
+          for (let b = 0, idx = 2 * z0; b < p; b++, idx += 2) {
+            const v = wz[o + b];
+            row[idx] += vr * v;
+            row[idx + 1] += vi * v;
+          }
+        } else {
+          for (let b = 0; b < p; b++) {
+            const v = wz[o + b];
+            const idx = 2 * ((z0 + b) & mask);
+            row[idx] += vr * v;
+            row[idx + 1] += vi * v;
+          }
         }
       }
     }
-    for (const grid of grids) {
-      for (let r = 0; r < wide; r++) {
-        const row = 2 * r * wide;
-        for (let z = n; z < wide; z++) {
-          grid[row + 2 * (z - n)] += grid[row + 2 * z];
-          grid[row + 2 * (z - n) + 1] += grid[row + 2 * z + 1];
-        }
-      }
-      for (let r = n; r < wide; r++) {
-        for (let i = 0; i < 2 * n; i++) grid[2 * (r - n) * wide + i] += grid[2 * r * wide + i];
-      }
-    }
-    const [kNeed, lNeed] = opts.planeExtent?.(h) ?? [kMax, lMax];
+    const [kNeed, lNeed] = extent[h];
     for (let g = 0; g < nGroups; g++) {
-      const grid = grids[g];
+      const group = rows[g];
       // z transforms of every row; forward FFT gives Σ e^{−2πi m n/N}, so +l sits at index (−l) mod N.
       for (let gy = 0; gy < n; gy++) {
-        const base = 2 * gy * wide;
-        for (let i = 0; i < 2 * n; i++) inp[i] = grid[base + i];
-        fft.transform(out, inp);
-        for (let l = -lMax; l <= lMax; l++) {
+        fft.transform(out, group[gy]);
+        for (let l = -lNeed; l <= lNeed; l++) {
           const src = 2 * ((n - l) & mask);
-          const dst = 2 * (gy * nl + l + lMax);
-          mid[dst] = out[src];
-          mid[dst + 1] = out[src + 1];
+          const col = cols[l + lMax];
+          col[2 * gy] = out[src];
+          col[2 * gy + 1] = out[src + 1];
         }
       }
       // y transforms of every kept l.
-      for (let li = lMax - Math.min(lNeed, lMax); li <= lMax + Math.min(lNeed, lMax); li++) {
-        for (let gy = 0; gy < n; gy++) {
-          inp[2 * gy] = mid[2 * (gy * nl + li)];
-          inp[2 * gy + 1] = mid[2 * (gy * nl + li) + 1];
-        }
-        fft.transform(out, inp);
-        for (let k = -Math.min(kNeed, kMax); k <= Math.min(kNeed, kMax); k++) {
+      for (let l = -lNeed; l <= lNeed; l++) {
+        const li = l + lMax;
+        fft.transform(out, cols[li]);
+        for (let k = -kNeed; k <= kNeed; k++) {
           const src = 2 * ((n - k) & mask);
-          const s = dk[k + kMax] * dl[li];
+          const sc = dk[k + kMax] * dl[li];
           const dst = 2 * ((k + kMax) * nl + li);
-          values[dst] = out[src] * s;
-          values[dst + 1] = out[src + 1] * s;
+          values[dst] = out[src] * sc;
+          values[dst + 1] = out[src + 1] * sc;
         }
       }
       onPlane(h, g, values);
     }
     opts.onProgress?.((h + 1) / (hMax + 1));
   }
-  return plan;
+  return widest ?? gridPlan(Math.max(kMax, lMax, 1), eps, live.length);
 }

@@ -15,6 +15,7 @@ import type { Radiation } from './form-factors';
 import { groupAtoms, groupFactor } from './scatterers';
 import { hklPartialSums, rowsFromSortedHkl } from './hkl-sum';
 import { gridPlaneSums, type GridSumOptions } from './sf-grid';
+import { axisSymmetry, type AxisSymmetry } from './sf-symmetry';
 
 export interface HklFactors {
   /** Packed h k l, sorted by h, k, l. */
@@ -92,6 +93,11 @@ export interface StructureFactorOptions {
   /** Error bound of the grid method relative to Σ_j |w_j f_j| (default 1e-5, see sf-grid.ts). */
   tolerance?: number;
   onProgress?: (fraction: number) => void;
+  /**
+   * Grid route: spread one atom per orbit of the structure's axis-sign symmetry (sf-symmetry.ts) and expand
+   * the sums by symmetry. Default true; false spreads every atom (same result within the tolerance).
+   */
+  symmetry?: boolean | AxisSymmetry;
 }
 
 /** Atoms × reflections above which `auto` takes the grid route (a few tenths of a second of direct sums). */
@@ -129,7 +135,7 @@ export function structureFactorsHkl(s: Structure, hkl: Int32Array, radiation: Ra
   const gim = new Float64Array(groups.length * m);
   const progress = opts.onProgress ?? scopedProgress;
   if (chooseMethod(s, groupOf.length, m, opts) === 'grid') {
-    gridListSums(frac, groupOf, weight, groups.length, hkl, gre, gim, { tolerance: opts.tolerance, onProgress: progress });
+    gridListSums(frac, groupOf, weight, groups.length, hkl, gre, gim, { tolerance: opts.tolerance, onProgress: progress }, opts.symmetry ?? true);
   } else {
     const rows = rowsFromSortedHkl(hkl);
     hklPartialSums(frac, groupOf, weight, rows, gre, gim, 0, groupOf.length, progress);
@@ -137,7 +143,10 @@ export function structureFactorsHkl(s: Structure, hkl: Int32Array, radiation: Ra
   return combineGroups(hkl, recip, groups, radiation, gre, gim);
 }
 
-/** Group sums for an arbitrary hkl list from the grid planes: −h reflections are the conjugates G(−h) = G(h)*. */
+/**
+ * Group sums for an arbitrary hkl list from the grid planes h ≥ 0: −h reflections are the conjugates
+ * G(−h) = G(h)*; with `symmetry` only one atom per orbit is spread and G(h) = Σ_g ±G_rep(S_g h) (sf-symmetry.ts).
+ */
 function gridListSums(
   frac: Float64Array,
   groupOf: Uint16Array,
@@ -147,6 +156,7 @@ function gridListSums(
   gre: Float64Array,
   gim: Float64Array,
   opts: GridSumOptions,
+  symmetry: boolean | AxisSymmetry,
 ): void {
   const m = hkl.length / 3;
   let hMax = 0;
@@ -171,23 +181,92 @@ function gridListSums(
     need[2 * h] = Math.max(need[2 * h], Math.abs(hkl[3 * i + 1]));
     need[2 * h + 1] = Math.max(need[2 * h + 1], Math.abs(hkl[3 * i + 2]));
   }
+  const sym = symmetry === false ? null : symmetry === true ? axisSymmetry(frac, groupOf, weight) : symmetry;
+  let spreadFrac = frac;
+  let spreadGroup = groupOf;
+  let spreadWeight = weight;
+  if (sym && sym.sign.length > 3) {
+    const r = sym.rep.length;
+    spreadFrac = new Float64Array(3 * r);
+    spreadGroup = new Uint16Array(r);
+    for (let t = 0; t < r; t++) {
+      const j = sym.rep[t];
+      spreadFrac[3 * t] = frac[3 * j] - sym.origin[0];
+      spreadFrac[3 * t + 1] = frac[3 * j + 1] - sym.origin[1];
+      spreadFrac[3 * t + 2] = frac[3 * j + 2] - sym.origin[2];
+      spreadGroup[t] = groupOf[j];
+    }
+    spreadWeight = sym.repWeight;
+  }
+  // G(h) = T(h) Σ_cosets e^{2πi h·u} G_rep(S h), T(h) = Σ_t e^{2πi h·t} over the pure translations (sf-symmetry.ts).
+  const nOps = sym ? sym.cosetSign.length / 3 : 1;
+  const sign = sym?.cosetSign ?? Int8Array.of(1, 1, 1);
+  const half = sym?.cosetHalf ?? Int8Array.of(0, 0, 0);
+  const trans = sym?.transHalf ?? Int8Array.of(0, 0, 0);
+  const nTrans = trans.length / 3;
+  // Phases e^{2πi h c_x}, e^{2πi k c_y}, e^{2πi l c_z} that move the sums about c back to the file's origin.
+  const shifted = spreadFrac !== frac && sym!.origin.some((c) => c !== 0);
+  const phase = (c: number, lim: number) => {
+    const t = new Float64Array(2 * (2 * lim + 1));
+    for (let v = -lim; v <= lim; v++) {
+      t[2 * (v + lim)] = Math.cos(2 * Math.PI * v * c);
+      t[2 * (v + lim) + 1] = Math.sin(2 * Math.PI * v * c);
+    }
+    return t;
+  };
+  const px = shifted ? phase(sym!.origin[0], hMax) : null;
+  const py = shifted ? phase(sym!.origin[1], kMax) : null;
+  const pz = shifted ? phase(sym!.origin[2], lMax) : null;
   gridPlaneSums(
-    frac,
-    groupOf,
-    weight,
+    spreadFrac,
+    spreadGroup,
+    spreadWeight,
     nGroups,
     hMax,
     kMax,
     lMax,
     (h, g, v) => {
+      const off = g * m;
       for (let t = start[h]; t < start[h + 1]; t++) {
         const i = order[t];
-        const neg = hkl[3 * i] < 0;
-        const k = neg ? -hkl[3 * i + 1] : hkl[3 * i + 1];
-        const l = neg ? -hkl[3 * i + 2] : hkl[3 * i + 2];
-        const at = 2 * ((k + kMax) * nl + l + lMax);
-        gre[g * m + i] = v[at];
-        gim[g * m + i] = neg ? -v[at + 1] : v[at + 1];
+        const hi = hkl[3 * i];
+        const ki = hkl[3 * i + 1];
+        const li = hkl[3 * i + 2];
+        let tf = 0;
+        for (let o = 0; o < nTrans; o++) tf += ((hi * trans[3 * o] + ki * trans[3 * o + 1] + li * trans[3 * o + 2]) & 1) === 0 ? 1 : -1;
+        let re = 0;
+        let im = 0;
+        for (let o = 0; tf !== 0 && o < nOps; o++) {
+          const sh = sign[3 * o] * hi;
+          const sk = sign[3 * o + 1] * ki;
+          const sl = sign[3 * o + 2] * li;
+          // e^{2πi h·t}, t = half/2: −1 when h·(2t) is odd.
+          const par = ((hi * half[3 * o] + ki * half[3 * o + 1] + li * half[3 * o + 2]) & 1) === 0 ? 1 : -1;
+          if (sh >= 0) {
+            const at = 2 * ((sk + kMax) * nl + sl + lMax);
+            re += par * v[at];
+            im += par * v[at + 1];
+          } else {
+            // G(−h, k, l) = G(h, −k, −l)*.
+            const at = 2 * ((kMax - sk) * nl + lMax - sl);
+            re += par * v[at];
+            im -= par * v[at + 1];
+          }
+        }
+        if (px && py && pz) {
+          const a = 2 * (hi + hMax);
+          const b = 2 * (ki + kMax);
+          const c = 2 * (li + lMax);
+          const qr = px[a] * py[b] - px[a + 1] * py[b + 1];
+          const qi = px[a] * py[b + 1] + px[a + 1] * py[b];
+          const pr = qr * pz[c] - qi * pz[c + 1];
+          const pi = qr * pz[c + 1] + qi * pz[c];
+          const r0 = re;
+          re = r0 * pr - im * pi;
+          im = r0 * pi + im * pr;
+        }
+        gre[off + i] = tf * re;
+        gim[off + i] = tf * im;
       }
     },
     { ...opts, planeExtent: (h) => [need[2 * h], need[2 * h + 1]] },

@@ -190,4 +190,35 @@ Mg1 Mg 0.333333 0.666667 0.25
     for (let i = 1; i < ours.length; i++) expect(ours[i].twoTheta - ours[i - 1].twoTheta).toBeGreaterThan(1e-4);
     expect(worst).toBeLessThan(0.03);
   });
+
+  it('approximant by symmetry: the 2/1 approximant as generated (136 Al, mmm about a centre off the origin, so only one reflection per sign orbit is computed and merged with its orbit size): every line above 1 to 2θ = 60° against pymatgen, line totals against a numpy count of the non-extinct reflections at each d', () => {
+    const p = icosahedralModelSchema.parse({ family: 'icosahedral', mode: 'approximant', order: '2/1', aR: 4.6, species: 'Al' } as never);
+    const s = generateIcosahedral(p);
+    expect(s.species.length).toBe(136);
+    const { ours, worst, sameM } = compareLines(s, CU_KA1, [10, 60], { rel: 0.03, abs: 0.1 }, true);
+    expect(ours.length).toBeGreaterThan(40);
+    // pymatgen also counts the glide-extinct members of a line (e.g. {230} beside {320} in m-3), so the totals are
+    // checked against a numpy count instead: reflections at the line's d whose |Σ_j e^{2πi h·x_j}|² is not zero.
+    expect(sameM).toBeGreaterThan(0.5 * ours.length);
+    const frac = toFractional(s.cell!, s.positions);
+    const counts = runPython<number[]>(
+      `
+import json, sys, numpy as np
+d = json.load(sys.stdin)
+A = np.array(d['cell']); B = np.linalg.inv(A).T; X = np.array(d['frac']).reshape(-1, 3)
+n = 14; r = np.arange(-n, n + 1)
+H = np.array(np.meshgrid(r, r, r, indexing='ij')).reshape(3, -1).T
+H = H[np.any(H != 0, axis=1)]
+dd = 1 / np.linalg.norm(H @ B, axis=1)
+H = H[dd >= 1.5]; dd = dd[dd >= 1.5]
+F = np.exp(2j * np.pi * (H @ X.T)).sum(axis=1)
+F2 = np.abs(F) ** 2
+live = F2 > 1e-8 * F2.max()
+print(json.dumps([int(np.sum(live & (np.abs(dd - x) < 1e-6 * x))) for x in d['d']]))`,
+      JSON.stringify({ cell: s.cell, frac: Array.from(frac), d: ours.map((q) => q.d) }),
+    );
+    expect(counts).toEqual(ours.map((q) => q.multiplicity));
+    for (let i = 1; i < ours.length; i++) expect(ours[i].twoTheta - ours[i - 1].twoTheta).toBeGreaterThan(1e-4);
+    expect(worst).toBeLessThan(0.03);
+  });
 });

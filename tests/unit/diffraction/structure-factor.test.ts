@@ -13,6 +13,9 @@ import type { Structure } from '../../../lib/structure/types';
 import { cellFromParameters } from '../../../lib/math/cell';
 import { toFractional } from '../../../lib/math/frac';
 import { runPython } from '../../helpers/python';
+import { axisSymmetry } from '../../../lib/diffraction/sf-symmetry';
+import { hklOrbits, hklSignGroup } from '../../../lib/diffraction/hkl-orbits';
+import { groupAtoms } from '../../../lib/diffraction/scatterers';
 
 function lcg(seed: number): () => number {
   let s = seed;
@@ -188,5 +191,148 @@ print(json.dumps(int(((g > 0) & (g <= 1 / 1.3)).sum())))`,
     const s = triclinic();
     expect(() => structureFactorsHkl(s, enumerateHkl(s, 3), 'xray', { method: 'grid', tolerance: -1 })).toThrow(/tolerance/);
     expect(() => friedelUniqueFactors({ ...s, cell: undefined }, 1, 'xray')).toThrow(/cell/);
+  });
+});
+
+/**
+ * P2₁2₁2₁ (International Tables Vol. A No. 19: x,y,z; −x+½,−y,z+½; −x,y+½,−z+½; x+½,−y+½,−z), 3 × 30 general
+ * positions of Al, Fe (occupancy 0.7), Cu (0.4) with B, every atom then moved by c = (0.13, 0.27, 0.41), so
+ * the screw axes sit off the origin.
+ */
+function screwCell(): Structure {
+  const cell = cellFromParameters({ a: 9.1, b: 10.3, c: 11.7, alpha: 90, beta: 90, gamma: 90 });
+  const rnd = lcg(777);
+  const ops = [
+    (x: number, y: number, z: number) => [x, y, z],
+    (x: number, y: number, z: number) => [-x + 0.5, -y, z + 0.5],
+    (x: number, y: number, z: number) => [-x, y + 0.5, -z + 0.5],
+    (x: number, y: number, z: number) => [x + 0.5, -y + 0.5, -z],
+  ];
+  const shift = [0.13, 0.27, 0.41];
+  const pos: number[] = [];
+  const species: number[] = [];
+  const site: number[] = [];
+  const zs = [13, 26, 29];
+  for (let i = 0; i < 90; i++) {
+    const f = [rnd(), rnd(), rnd()];
+    for (const op of ops) {
+      const g = op(f[0], f[1], f[2]).map((u, c) => u + shift[c]);
+      for (let c = 0; c < 3; c++) pos.push(g[0] * cell[0][c] + g[1] * cell[1][c] + g[2] * cell[2][c]);
+      species.push(zs[i % 3]);
+      site.push(i % 3);
+    }
+  }
+  return {
+    positions: Float64Array.from(pos),
+    species: Uint16Array.from(species),
+    site: Uint16Array.from(site),
+    siteClasses: [
+      { name: 'a', species: 13, biso: 0.8 },
+      { name: 'b', species: 26, occupancy: 0.7, biso: 0.5 },
+      { name: 'c', species: 29, occupancy: 0.4 },
+    ],
+    cell,
+    provenance: { params: { test: true }, engine: 'test' },
+  };
+}
+
+/** spglib's operations (x → R x + t, in the cell's own basis) whose R is diagonal, as "sx sy sz|tx ty tz" with t mod 1 to 4 decimals. */
+function spglibDiagonalOps(s: Structure, types: number[]): string[] {
+  const frac = toFractional(s.cell!, s.positions);
+  return runPython<string[]>(
+    `
+import spglib, json, sys, numpy as np
+d = json.load(sys.stdin)
+cell = (d['lattice'], np.array(d['frac']).reshape(-1, 3), d['types'])
+sym = spglib.get_symmetry(cell, symprec=1e-5)
+out = []
+for r, t in zip(sym['rotations'], sym['translations']):
+    if np.count_nonzero(r - np.diag(np.diag(r))) == 0:
+        t = np.mod(np.round(t, 4), 1.0)
+        out.append('%d %d %d|%.4f %.4f %.4f' % (r[0,0], r[1,1], r[2,2], *(x if x < 0.99995 else 0.0 for x in t)))
+print(json.dumps(sorted(out)))`,
+    JSON.stringify({ lattice: s.cell, frac: Array.from(frac), types }),
+  );
+}
+
+/** Our operations in the cell's own origin: x → S x + t with t = t′ + c − S c. */
+function ourOps(sym: ReturnType<typeof axisSymmetry>): string[] {
+  const out: string[] = [];
+  for (let o = 0; o < sym.sign.length / 3; o++) {
+    const sg = [0, 1, 2].map((a) => sym.sign[3 * o + a]);
+    const t = [0, 1, 2].map((a) => {
+      const u = sym.half[3 * o + a] / 2 + sym.origin[a] - sg[a] * sym.origin[a];
+      const w = Math.round((u - Math.floor(u)) * 1e4) / 1e4;
+      return w >= 1 ? 0 : w;
+    });
+    out.push(`${sg.join(' ')}|${t.map((x) => x.toFixed(4)).join(' ')}`);
+  }
+  return out.sort();
+}
+
+describe('structure factors by symmetry (sf-symmetry.ts): one atom per orbit spread on the grid', () => {
+  it('P2₁2₁2₁ off the origin with occupancies and B: the operations are spglib diagonal ones, and F (full ±h list) is within the default tolerance of gemmi', () => {
+    const s = screwCell();
+    const { groupOf, weight } = groupAtoms(s);
+    const sym = axisSymmetry(toFractional(s.cell!, s.positions), groupOf, weight);
+    expect(sym.sign.length / 3).toBe(4);
+    expect(sym.rep.length).toBe(90);
+    expect(ourOps(sym)).toEqual(spglibDiagonalOps(s, Array.from(groupOf)));
+    const hkl = enumerateHkl(s, 1.0);
+    const ref = gemmiF(s, hkl);
+    const f = structureFactorsHkl(s, hkl, 'xray', { method: 'grid' });
+    const e = errors(f.re, f.im, ref);
+    expect(e.strong).toBeGreaterThan(20);
+    expect(e.dF).toBeLessThan(1e-5);
+    expect(e.dF2strong).toBeLessThan(2e-4);
+    // Systematic absences of the screw axes (h00, 0k0, 00l with odd index), from the expansion: |F| at rounding.
+    const at = (h: number, k: number, l: number) => {
+      for (let i = 0; i < hkl.length; i += 3) if (hkl[i] === h && hkl[i + 1] === k && hkl[i + 2] === l) return Math.hypot(f.re[i / 3], f.im[i / 3]);
+      throw new Error('missing');
+    };
+    for (const [h, k, l] of [[3, 0, 0], [0, 5, 0], [0, 0, 7]]) expect(at(h, k, l)).toBeLessThan(1e-9 * Math.hypot(...ref[0]) + 1e-9);
+  });
+
+  it('icosahedral approximants: the sign flips found are spglib diagonal operations (2/1: mmm about a centre off the origin; 5/3 symmetric cut: mmm with I centring)', () => {
+    for (const [order, n] of [['2/1', 8], ['5/3', 16]] as const) {
+      const s = generate({ family: 'icosahedral', mode: 'approximant', order, aR: 4.6, species: 'Al' } as never);
+      const { groupOf, weight } = groupAtoms(s);
+      const sym = axisSymmetry(toFractional(s.cell!, s.positions), groupOf, weight);
+      expect(sym.sign.length / 3).toBe(n);
+      // spglib sees species only, so the sites are typed by their occupancy.
+      const occ = [...new Set(weight)];
+      expect(ourOps(sym)).toEqual(spglibDiagonalOps(s, Array.from(weight, (w) => occ.indexOf(w) + 1)));
+    }
+  });
+
+  it('without symmetry (a random triclinic cell) everything is spread: identity only', () => {
+    const s = triclinic();
+    const { groupOf, weight } = groupAtoms(s);
+    const sym = axisSymmetry(toFractional(s.cell!, s.positions), groupOf, weight);
+    expect(sym.sign.length).toBe(3);
+    expect(sym.rep.length).toBe(240);
+  });
+});
+
+describe('reflections by orbit (hkl-orbits.ts)', () => {
+  it('P2₁2₁2₁: one reflection per orbit of the sign group with Friedel (mmm, 8 patterns), orbit sizes summing to a numpy count of the sphere (no pure translations here, so nothing is left out; the screw absences are zeros of F)', () => {
+    const s = screwCell();
+    const { groupOf, weight } = groupAtoms(s);
+    const sym = axisSymmetry(toFractional(s.cell!, s.positions), groupOf, weight);
+    const signs = hklSignGroup(s, sym, true);
+    expect(signs.length / 3).toBe(8);
+    const o = hklOrbits(s, 1.31, signs, sym.transHalf); // 1.3 would put 00±9 (d = c/9 = 1.3 Å) on the boundary
+    for (let i = 0; i < o.hkl.length; i++) expect(o.hkl[i]).toBeGreaterThanOrEqual(0);
+    const total = o.multiplicity.reduce((a, b) => a + b, 0);
+    const [a, b, c] = s.cell!;
+    const count = runPython<number>(
+      `
+import numpy as np, json
+A = np.array(${JSON.stringify([a, b, c])}); B = np.linalg.inv(A).T
+r = np.arange(-20, 21); H = np.array(np.meshgrid(r, r, r, indexing='ij')).reshape(3, -1).T
+g = np.linalg.norm(H @ B, axis=1)
+print(json.dumps(int(((g > 0) & (g <= 1 / 1.31)).sum())))`,
+    );
+    expect(total).toBe(count);
   });
 });
