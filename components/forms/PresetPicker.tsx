@@ -6,15 +6,16 @@
  * field it fills stays editable in the form below.
  */
 import { useId, useState } from 'react';
-import { CLUSTER_PRESETS, clusterSize } from '@/lib/models/icosahedral/clusters';
+import { CLUSTER_PRESETS } from '@/lib/models/icosahedral/clusters';
 import type { Params } from './families';
 import { PRESET_NAMES, presetPlan, withPresetOnSite, type PresetName } from './preset-site';
 
 const selectCls = 'w-full rounded-md border border-rule bg-card px-2 py-1 text-sm';
 
+/** "Tsai — YbCd6": the cluster and the compound it is modelled on (the plan below gives the atoms and shells). */
 function label(p: PresetName): string {
   const t = CLUSTER_PRESETS[p];
-  return `${t.name}, ${clusterSize(t)} atoms — ${t.phase?.name ?? 'no reference phase'}`;
+  return t.phase ? `${t.name} — ${t.phase.name.replace(/\s*\([^()]*\)$/, '')}` : t.name;
 }
 
 export function PresetPicker({ params, onChange }: { params: Params; onChange: (p: Params) => void }) {
@@ -23,7 +24,7 @@ export function PresetPicker({ params, onChange }: { params: Params; onChange: (
   const [setAR, setSetAR] = useState(true);
   // The model before the last "Put on its site", while it is still the one shown.
   const [undo, setUndo] = useState<{ before: Params; after: Params; preset: PresetName } | null>(null);
-  const applied = undo && undo.after === params ? undo : null;
+  const applied = undo && undo.after === params && undo.preset === preset ? undo : null;
   const plan = preset ? presetPlan(params, preset) : null;
   const sameAR = plan && plan.aR.current !== undefined && Math.abs(plan.aR.current - plan.aR.suggested) < 5e-4;
   const nClasses = plan?.replaces.classes.length ?? 0;
@@ -31,20 +32,17 @@ export function PresetPicker({ params, onChange }: { params: Params; onChange: (
   return (
     <section aria-labelledby={`${id}-h`} className="rounded-md border border-rule bg-paper/60 p-2 text-xs">
       <h3 id={`${id}-h`} className="text-xs font-semibold text-ink">
-        Decorate with a cluster preset
+        <label htmlFor={`${id}-sel`}>Decorate with a cluster preset</label>
       </h3>
-      <label htmlFor={`${id}-sel`} className="mt-1 block text-xs font-medium text-ink-soft">
-        Preset to put on its site
-      </label>
-      <select id={`${id}-sel`} className={selectCls} value={preset} onChange={(e) => setPreset(e.target.value as PresetName | '')}>
-        <option value="">— choose a preset —</option>
+      <select id={`${id}-sel`} className={`mt-1 ${selectCls}`} value={preset} onChange={(e) => setPreset(e.target.value as PresetName | '')}>
+        <option value="">— choose a preset to put on its site —</option>
         {PRESET_NAMES.map((p) => (
           <option key={p} value={p}>
             {label(p)}
           </option>
         ))}
       </select>
-      {plan && preset ? (
+      {plan && preset && !applied ? (
         <div className="mt-1.5 space-y-1 text-ink-soft" data-testid="preset-plan">
           <p>Adds these site classes:</p>
           <ul className="ml-4 list-disc">

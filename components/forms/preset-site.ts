@@ -33,11 +33,23 @@ export function usualSpecies(preset: PresetName): string[] | undefined {
   return t.shells.map((s) => elementSymbol(s.species));
 }
 
+/**
+ * Window scalings as the form shows them: six decimals (1/τ² = 0.381966, 1/τ = 0.618034) rather than seventeen
+ * digits. The change is below 1e-6 of the window; the test checks that no vertex crosses its boundary for it.
+ */
+export function formScale(x: number): number {
+  return Number(x.toFixed(6));
+}
+
 /** The decoration the form fills in: presetDecoration, with the usual species spelt out when that is exact. */
 export function presetFormDecoration(preset: PresetName): DecorationParams {
   const d = presetDecoration(preset);
   const species = usualSpecies(preset);
-  return species ? { ...d, clusters: d.clusters!.map((c) => ({ ...c, species })) } : d;
+  return {
+    ...d,
+    classes: d.classes.map((c) => (c.window.kind === 'hypercube' ? { ...c, window: { ...c.window, scale: formScale(c.window.scale) } } : c)),
+    clusters: species ? d.clusters!.map((c) => ({ ...c, species })) : d.clusters,
+  };
 }
 
 /** What putting the preset on its site does, in lines a modeller reads before pressing the button. */
@@ -52,8 +64,16 @@ export interface PresetPlan {
   replaces: { classes: string[]; clusters: number };
 }
 
+const TAU = (1 + Math.sqrt(5)) / 2;
+const NAMED_SCALES: [number, string][] = [
+  [1, '1'],
+  [1 / TAU, '1/τ ≈ 0.618'],
+  [1 / (TAU * TAU), '1/τ² ≈ 0.382'],
+];
+
 function windowWords(scale: number): string {
-  return `triacontahedral window × ${scale.toFixed(3)}`;
+  const named = NAMED_SCALES.find(([x]) => Math.abs(x - scale) < 1e-6);
+  return `triacontahedral window × ${named ? named[1] : scale.toFixed(3)}`;
 }
 
 const POSITION: Record<string, string> = { node: 'node', body: 'body centre' };

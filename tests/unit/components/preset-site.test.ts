@@ -32,7 +32,14 @@ const start: Params = {
 describe('putting a preset on its site in the form', () => {
   it('fills the decoration the preset is meant for, keeps the merge tolerance and every other field, and sets a_R only when asked', () => {
     const p = withPresetOnSite(start, 'mackay', true);
-    expect(p.decoration).toEqual({ ...presetDecoration('mackay'), clusters: [{ at: 'cluster centre', preset: 'mackay', species: ['Al', 'Al', 'Mn'] }], mergeTolerance: 0.9 });
+    expect(p.decoration).toEqual({
+      classes: [
+        { name: 'cluster centre', position: 'node', window: { kind: 'hypercube', scale: 0.381966 } },
+        { name: 'glue', position: 'body', window: { kind: 'hypercube', scale: 0.618034 }, species: 'Al' },
+      ],
+      clusters: [{ at: 'cluster centre', preset: 'mackay', species: ['Al', 'Al', 'Mn'] }],
+      mergeTolerance: 0.9,
+    });
     expect(p.aR).toBe(4.606);
     expect({ ...p, decoration: undefined, aR: undefined }).toEqual({ ...start, decoration: undefined, aR: undefined });
     expect(withPresetOnSite(start, 'tsai', false).aR).toBe(4.6);
@@ -42,13 +49,25 @@ describe('putting a preset on its site in the form', () => {
   it('spells out the usual species only where the field can say them exactly (Bergman’s mixed (Al,Zn) shells stay with the preset)', () => {
     expect(usualSpecies('tsai')).toEqual(['Cd', 'Cd', 'Yb', 'Cd', 'Cd']);
     expect(usualSpecies('bergman')).toBeUndefined();
-    expect(presetFormDecoration('bergman')).toEqual(presetDecoration('bergman'));
+    expect(presetFormDecoration('bergman').clusters).toEqual(presetDecoration('bergman').clusters);
+  });
+
+  it('the form’s six-decimal window scalings and spelt-out species cut the same atoms as the exact preset decoration (1/1, 2/1, 3/2)', () => {
+    expect(presetFormDecoration('mackay').classes.map((c) => (c.window.kind === 'hypercube' ? c.window.scale : 0))).toEqual([0.381966, 0.618034]);
+    for (const name of ['mackay', 'bergman', 'tsai'] as const)
+      for (const order of ['1/1', '2/1', '3/2']) {
+        const base = { family: 'icosahedral', mode: 'approximant', order, aR: presetAR(name) } as const;
+        const exact = generate({ ...base, decoration: presetDecoration(name) });
+        const form = generate({ ...base, decoration: presetFormDecoration(name) });
+        expect([name, order, form.species.length]).toEqual([name, order, exact.species.length]);
+        expect(Array.from(form.species)).toEqual(Array.from(exact.species));
+      }
   });
 
   it('says what it brings and what it replaces before it is pressed', () => {
     const plan = presetPlan(start, 'mackay');
     expect(plan.classes).toHaveLength(2);
-    expect(plan.classes[1]).toMatch(/“glue”: Al, body centre, triacontahedral window × 0\.618/);
+    expect(plan.classes[1]).toBe('“glue”: Al, body centre, triacontahedral window × 1/τ ≈ 0.618');
     expect(plan.cluster).toMatch(/^Mackay, 54 atoms: .*Mn icosahedron \(Mn\)$/);
     expect(plan.replaces).toEqual({ classes: ['vertex', 'mine'], clusters: 1 });
     expect(plan.aR).toEqual({ suggested: 4.606, current: 4.6 });
