@@ -44,7 +44,7 @@ export function PresetPicker({ params, onChange }: { params: Params; onChange: (
       </select>
       {plan && preset && !applied ? (
         <div className="mt-1.5 space-y-1 text-ink-soft" data-testid="preset-plan">
-          <p>Adds these site classes:</p>
+          <p>Puts in the decoration these site classes:</p>
           <ul className="ml-4 list-disc">
             {plan.classes.map((c) => (
               <li key={c}>{c}</li>
