@@ -8,7 +8,7 @@
 import { useId, useState } from 'react';
 import { CLUSTER_PRESETS } from '@/lib/models/icosahedral/clusters';
 import type { Params } from './families';
-import { PRESET_NAMES, presetPlan, withPresetOnSite, type PresetName } from './preset-site';
+import { PRESET_NAMES, presetOffSite, presetPlan, withPresetOnSite, type PresetName } from './preset-site';
 
 const selectCls = 'w-full rounded-md border border-rule bg-card px-2 py-1 text-sm';
 
@@ -20,7 +20,11 @@ function label(p: PresetName): string {
 
 export function PresetPicker({ params, onChange }: { params: Params; onChange: (p: Params) => void }) {
   const id = useId();
-  const [preset, setPreset] = useState<PresetName | ''>('');
+  // null until the user picks in this list ('' = picked none).
+  const [chosen, setChosen] = useState<PresetName | '' | null>(null);
+  // A preset the model already uses off its site (picked in a cluster below) is offered until another is chosen.
+  const offSite = presetOffSite(params);
+  const preset: PresetName | '' = chosen ?? offSite?.preset ?? '';
   const [setAR, setSetAR] = useState(true);
   // The model before the last "Put on its site", while it is still the one shown.
   const [undo, setUndo] = useState<{ before: Params; after: Params; preset: PresetName } | null>(null);
@@ -34,7 +38,7 @@ export function PresetPicker({ params, onChange }: { params: Params; onChange: (
       <h3 id={`${id}-h`} className="text-xs font-semibold text-ink">
         <label htmlFor={`${id}-sel`}>Decorate with a cluster preset</label>
       </h3>
-      <select id={`${id}-sel`} className={`mt-1 ${selectCls}`} value={preset} onChange={(e) => setPreset(e.target.value as PresetName | '')}>
+      <select id={`${id}-sel`} className={`mt-1 ${selectCls}`} value={preset} onChange={(e) => setChosen(e.target.value as PresetName | '')}>
         <option value="">— choose a preset to put on its site —</option>
         {PRESET_NAMES.map((p) => (
           <option key={p} value={p}>
@@ -44,6 +48,11 @@ export function PresetPicker({ params, onChange }: { params: Params; onChange: (
       </select>
       {plan && preset && !applied ? (
         <div className="mt-1.5 space-y-1 text-ink-soft" data-testid="preset-plan">
+          {chosen === null && offSite ? (
+            <p className="text-ink">
+              Cluster {offSite.cluster + 1} puts the {CLUSTER_PRESETS[offSite.preset].name} preset on “{offSite.at}”, not on the site it is meant for.
+            </p>
+          ) : null}
           <p>Puts in the decoration these site classes:</p>
           <ul className="ml-4 list-disc">
             {plan.classes.map((c) => (
@@ -71,6 +80,7 @@ export function PresetPicker({ params, onChange }: { params: Params; onChange: (
             onClick={() => {
               const next = withPresetOnSite(params, preset, setAR);
               setUndo({ before: params, after: next, preset });
+              setChosen(preset);
               onChange(next);
             }}
           >

@@ -107,3 +107,24 @@ export function withPresetOnSite(params: Params, preset: PresetName, setAR: bool
   if (deco && typeof deco.mergeTolerance === 'number') next.mergeTolerance = deco.mergeTolerance;
   return { ...params, decoration: next, ...(setAR ? { aR: presetAR(preset) } : {}) };
 }
+
+/**
+ * The first cluster of the model that uses a preset somewhere other than the site it is meant for (its class is
+ * missing, elsewhere in the 6D cell, or has another window), so the panel can offer to put it there.
+ */
+export function presetOffSite(params: Params): { preset: PresetName; cluster: number; at: string } | undefined {
+  const deco = params.decoration as Partial<DecorationParams> | undefined;
+  if (!deco || !Array.isArray(deco.clusters)) return undefined;
+  const classes = Array.isArray(deco.classes) ? deco.classes : [];
+  for (let i = 0; i < deco.clusters.length; i++) {
+    const c = deco.clusters[i];
+    const name = c?.preset;
+    if (!name || !(PRESET_NAMES as readonly string[]).includes(name)) continue;
+    const site = CLUSTER_PRESETS[name].site!;
+    const k = classes.find((x) => x && x.name === c.at);
+    const position = k?.position ?? 'node';
+    const onSite = k !== undefined && position === site.position && k.window?.kind === 'hypercube' && Math.abs((k.window.scale ?? 1) - site.windowScale) < 1e-6;
+    if (!onSite) return { preset: name, cluster: i, at: c.at };
+  }
+  return undefined;
+}

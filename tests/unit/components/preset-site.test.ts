@@ -13,7 +13,7 @@
  * - The form's params must pass the engine's own schema (that is the workspace's gate, not a reference).
  */
 import { describe, expect, it } from 'vitest';
-import { presetAR, presetFormDecoration, presetPlan, usualSpecies, withPresetOnSite } from '../../../components/forms/preset-site';
+import { presetAR, presetFormDecoration, presetOffSite, presetPlan, usualSpecies, withPresetOnSite } from '../../../components/forms/preset-site';
 import { validate, type Params } from '../../../components/forms/families';
 import { generate } from '../../../lib/models/index';
 import { presetDecoration } from '../../../lib/models/icosahedral/decorate';
@@ -73,6 +73,15 @@ describe('putting a preset on its site in the form', () => {
     expect(plan.aR).toEqual({ suggested: 4.606, current: 4.6 });
     expect(presetPlan({ family: 'icosahedral' }, 'bergman').replaces).toEqual({ classes: [], clusters: 0 });
     expect(presetPlan(start, 'bergman').cluster).toMatch(/inner icosahedron \(Al 50 % \/ Zn 50 %\)/);
+  });
+
+  it('notices a preset picked in a cluster but placed off its site, and is satisfied once it is put there', () => {
+    expect(presetOffSite(start)).toEqual({ preset: 'mackay', cluster: 0, at: 'vertex' });
+    expect(presetOffSite(withPresetOnSite(start, 'mackay', true))).toBeUndefined();
+    expect(presetOffSite({ family: 'icosahedral' })).toBeUndefined();
+    const widened = withPresetOnSite(start, 'tsai', true) as Params & { decoration: { classes: { window: unknown }[] } };
+    widened.decoration.classes[0].window = { kind: 'hypercube', scale: 1 };
+    expect(presetOffSite(widened)).toEqual({ preset: 'tsai', cluster: 0, at: 'cluster centre' });
   });
 
   it('the Tsai preset on its site in a 1/1 cell is YbCd6: 168 atoms, Yb24Cd144, a = 15.64 Å, I23 by spglib (Im-3 with the tetrahedron ordered) (Gómez & Lidin 2001)', () => {
