@@ -5,6 +5,7 @@
  */
 import { useMemo } from 'react';
 import { Field } from './Field';
+import { PresetPicker } from './PresetPicker';
 import { describeSchema, fieldAt, type FieldInfo } from './describe';
 import { fieldName, formMessages } from './messages';
 import { FAMILIES, FAMILY_NAMES, FRAME_KEYS, ICO_MODES, icoMode, schemaFor, starterParams, validate, withIcoMode, type Params } from './families';
@@ -82,6 +83,7 @@ export function ModelPanel({ params, onChange, engineErrors }: ModelPanelProps) 
           </div>
         </fieldset>
       ) : null}
+      {params.family === 'icosahedral' && info ? <PresetPicker params={params} onChange={onChange} /> : null}
       {info ? (
         <Field name="" path={[]} info={info} value={params} errors={errors} skip={skip} onChange={(v) => onChange({ ...(v as Params), family: params.family, ...(params.mode ? { mode: params.mode } : {}) })} />
       ) : (

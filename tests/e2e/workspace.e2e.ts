@@ -14,10 +14,16 @@
  * survive leaving the tab). The pattern is numpy's (tests/unit/diffraction/quasicrystal/synthetic.ts: the module
  * vectors of a known aR = 4.56 Å, Lp, Gaussian peaks, a 0.037° zero shift, Poisson noise — no lib/ code); the
  * indexed aR must come within 0.05 % of it (issue 11's target).
+ *
+ * The second test is issue 10's "done when" in the UI: the 1/1 approximant with the Tsai preset put on its site
+ * from the model panel. Outside reference: YbCd6, the 1/1 approximant of the Tsai-type i-phase, cI168 with
+ * a = 15.638 Å and Yb24Cd144 per cell (Gómez & Lidin, Angew. Chem. Int. Ed. 40 (2001) 4037; from memory). The
+ * downloaded POSCAR is read by ASE (Debian's python3-ase), not by our reader: 168 atoms, 24 Yb and 144 Cd, a cubic
+ * cell (a = b = c, all angles 90°) of 15.64 ± 0.01 Å.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { baseUrl, launch, screenshot, viewerFrames } from './browser';
@@ -26,6 +32,7 @@ import { TAU } from '../../lib/math/golden';
 import { windowVolume, zonotopeWindow } from '../../lib/models/icosahedral/window';
 import { approximantVertexCount } from '../../lib/models/icosahedral/approximant';
 import { syntheticPattern } from '../unit/diffraction/quasicrystal/synthetic';
+import { runPython } from '../helpers/python';
 
 let browser: Browser;
 beforeAll(async () => {
@@ -173,6 +180,74 @@ describe('workspace', () => {
     const lines = text.trim().split('\n');
     expect(Number(lines[0])).toBe(count);
     expect(lines.length).toBe(count + 2);
+    await ctx.close();
+  });
+  it('puts the Tsai preset on its site in the 1/1 approximant, checks it and downloads a POSCAR that ASE reads', async () => {
+    const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
+    const page = await ctx.newPage();
+    // A confirm before a download means the Check found something severe: record it (and go on, so the
+    // message shows in the failure rather than a download that never comes).
+    const dialogs: string[] = [];
+    page.on('dialog', (d) => {
+      dialogs.push(d.message());
+      void d.accept();
+    });
+    await page.goto(`${baseUrl}/signin`);
+    await page.fill('input[name=email]', 'lead@harrowgate.test');
+    await page.fill('input[name=password]', 'quasi-demo-2026');
+    await page.click('button[type=submit]');
+    await page.waitForURL(/\/projects$/);
+    await page.click('text=Icosahedral 2/1 vertex model');
+    await page.waitForURL(/\/projects\/\d+$/);
+    await page.goto(`${page.url()}/workspace`);
+    await page.waitForSelector('[data-testid=estimate]');
+    await page.getByLabel('Order p/q').fill('1/1');
+
+    // Pick the preset: the panel says what it brings and what a_R it is meant for before anything changes.
+    await page.getByRole('combobox', { name: 'Decorate with a cluster preset' }).selectOption('tsai');
+    const plan = page.getByTestId('preset-plan');
+    await expect.poll(() => plan.textContent()).toMatch(/“cluster centre”: cluster centres, node, triacontahedral window × 1\/τ² ≈ 0\.382/);
+    expect(await plan.textContent()).toMatch(/Tsai, 158 atoms: Cd tetrahedron \(Cd\), Cd dodecahedron \(Cd\), Yb icosahedron \(Yb\)/);
+    expect(await plan.textContent()).toMatch(/Set a_R to 5\.682 Å/);
+    await screenshot(page, 'workspace-preset-before');
+    await page.getByRole('button', { name: 'Put Tsai on its site' }).click();
+
+    // Every value it filled is an ordinary field of the form, still editable.
+    await expect.poll(() => page.getByLabel(/Rhombohedron edge/).inputValue()).toBe('5.682');
+    expect(await page.getByLabel('Name', { exact: true }).first().inputValue()).toBe('cluster centre');
+    expect(await page.getByLabel(/Window scaling/).first().inputValue()).toBe('0.381966');
+    expect(await page.getByLabel('Species per shell', { exact: true }).isChecked()).toBe(true);
+    await expect.poll(() => page.getByRole('status').filter({ hasText: 'Tsai put on its site' }).count()).toBe(1);
+    await screenshot(page, 'workspace-preset-after');
+
+    await page.getByRole('button', { name: /Generate|Cut again/ }).click();
+    await page.waitForSelector('[data-testid=atom-count]', { timeout: 60_000 });
+    await expect.poll(() => page.textContent('[data-testid=atom-count]'), { timeout: 60_000 }).toBe('168');
+    // The Check strip is there, with no severe problem.
+    await page.waitForSelector('[data-testid=check-verdict]', { timeout: 60_000 });
+    expect(await page.textContent('[data-testid=check-verdict]')).not.toMatch(/severe/);
+    expect(await page.locator('[aria-label="Check warnings"] li', { hasText: 'Severe' }).count()).toBe(0);
+    await screenshot(page, 'workspace-preset-cut');
+
+    await page.getByLabel('File format').selectOption('poscar');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download' }).click()]);
+    expect(dialogs).toEqual([]);
+    const work = mkdtempSync(path.join(tmpdir(), 'tauforge-poscar-'));
+    try {
+      const file = path.join(work, 'POSCAR');
+      writeFileSync(file, readFileSync((await download.path())!, 'utf8'));
+      const r = runPython<{ n: number; yb: number; cd: number; lengths: number[]; angles: number[] }>(
+        'import json, sys, ase.io; a = ase.io.read(sys.stdin.read().strip(), format="vasp"); s = a.get_chemical_symbols(); ' +
+          'print(json.dumps({"n": len(a), "yb": s.count("Yb"), "cd": s.count("Cd"), "lengths": a.cell.lengths().tolist(), "angles": a.cell.angles().tolist()}))',
+        file,
+      );
+      expect(r.n).toBe(168);
+      expect([r.yb, r.cd]).toEqual([24, 144]);
+      for (const l of r.lengths) expect(Math.abs(l - 15.638)).toBeLessThan(0.01);
+      for (const g of r.angles) expect(Math.abs(g - 90)).toBeLessThan(1e-6);
+    } finally {
+      rmSync(work, { recursive: true, force: true });
+    }
     await ctx.close();
   });
 });
