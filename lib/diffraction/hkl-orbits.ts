@@ -10,8 +10,7 @@
  * the pure translations of the structure extinguish (Σ_t e^{2πi h·t} = 0, e.g. h + k + l odd of an I cell)
  * are left out, as a merge would drop them (|F|² = 0).
  */
-import { reciprocal } from '../math/mat3';
-import { norm } from '../math/vec3';
+import { hklBox, reciprocalMetric } from './hkl-box';
 import type { Structure } from '../structure/types';
 import type { AxisSymmetry } from './sf-symmetry';
 
@@ -26,8 +25,7 @@ export interface HklOrbits {
 
 /** Sign patterns of P: the point parts of the symmetry that keep the metric, and with `friedel` their negatives. */
 export function hklSignGroup(s: Structure, sym: AxisSymmetry, friedel: boolean): Int8Array {
-  const recip = reciprocal(s.cell!);
-  const g = [0, 1, 2].map((i) => [0, 1, 2].map((j) => recip[i][0] * recip[j][0] + recip[i][1] * recip[j][1] + recip[i][2] * recip[j][2]));
+  const g = reciprocalMetric(s.cell!);
   const keeps = (sg: ArrayLike<number>) => {
     for (let i = 0; i < 3; i++)
       for (let j = i + 1; j < 3; j++) if (sg[i] !== sg[j] && Math.abs(g[i][j]) > 1e-12 * Math.sqrt(g[i][i] * g[j][j])) return false;
@@ -54,17 +52,7 @@ export function hklSignGroup(s: Structure, sym: AxisSymmetry, friedel: boolean):
 
 /** One reflection per orbit under `signs` with d ≥ dMin, skipping those extinguished by the translations. */
 export function hklOrbits(s: Structure, dMin: number, signs: Int8Array, transHalf: Int8Array): HklOrbits {
-  if (!s.cell) throw new Error('cell: the structure is not periodic');
-  if (!(dMin > 0) || !Number.isFinite(dMin)) throw new Error(`dMin: must be a positive length in Å, got ${dMin}`);
-  const recip = reciprocal(s.cell);
-  const dim = s.dim ?? 3;
-  const gMax = 1 / dMin;
-  const lim = s.cell.map((a) => Math.floor(norm(a) * gMax + 1e-9));
-  const hMax = lim[0];
-  const kMax = dim >= 2 ? lim[1] : 0;
-  const lMax = dim >= 3 ? lim[2] : 0;
-  const g = [0, 1, 2].map((i) => [0, 1, 2].map((j) => recip[i][0] * recip[j][0] + recip[i][1] * recip[j][1] + recip[i][2] * recip[j][2]));
-  const g2max = gMax * gMax * (1 + 1e-12);
+  const { hMax, kMax, lMax, g, g2max } = hklBox(s, dMin);
   const np = signs.length / 3;
   // All eight patterns (orthogonal axes, full mmm with Friedel): the orbit's largest member is (|h|, |k|, |l|).
   const all = np === 8;

@@ -9,11 +9,11 @@
  */
 import { toFractional } from '../math/frac';
 import { reciprocal, type Mat3 } from '../math/mat3';
-import { norm } from '../math/vec3';
 import type { Structure } from '../structure/types';
 import type { Radiation } from './form-factors';
 import { groupAtoms, groupFactor } from './scatterers';
 import { hklPartialSums, rowsFromSortedHkl } from './hkl-sum';
+import { hklBox } from './hkl-box';
 import { gridPlaneSums, type GridSumOptions } from './sf-grid';
 import { axisSymmetry, type AxisSymmetry } from './sf-symmetry';
 
@@ -41,21 +41,7 @@ export function enumerateHkl(s: Structure, dMin: number): Int32Array {
  * h = k = 0 and l > 0 (still sorted by h, k, l). Typed arrays and the metric tensor, two passes (count, fill).
  */
 export function enumerateHklRange(s: Structure, dMin: number, half: boolean): Int32Array {
-  if (!s.cell) throw new Error('cell: the structure is not periodic; use the Debye or zone-axis routes for patches');
-  if (!(dMin > 0) || !Number.isFinite(dMin)) throw new Error(`dMin: must be a positive length in Å, got ${dMin}`);
-  const recip = reciprocal(s.cell);
-  const dim = s.dim ?? 3;
-  const gMax = 1 / dMin;
-  // |h| = |a1 · G| ≤ |a1| |G|.
-  const lim = s.cell.map((a) => Math.floor(norm(a) * gMax + 1e-9));
-  const hMax = lim[0];
-  const kMax = dim >= 2 ? lim[1] : 0;
-  const lMax = dim >= 3 ? lim[2] : 0;
-  const total = (2 * hMax + 1) * (2 * kMax + 1) * (2 * lMax + 1);
-  if (total > 5e7) throw new Error(`dMin: ${dMin} Å asks for about ${total} reflections; use a larger dMin`);
-  // Metric tensor of the reciprocal cell: |G|² = Σ g_ij h_i h_j.
-  const g = [0, 1, 2].map((i) => [0, 1, 2].map((j) => recip[i][0] * recip[j][0] + recip[i][1] * recip[j][1] + recip[i][2] * recip[j][2]));
-  const g2max = gMax * gMax * (1 + 1e-12);
+  const { hMax, kMax, lMax, g, g2max } = hklBox(s, dMin);
   let out: Int32Array | null = null;
   for (let pass = 0; pass < 2; pass++) {
     let n = 0;
