@@ -24,3 +24,16 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 export function viewerFrames(page: Page): Promise<number> {
   return page.evaluate('window.__tauforgeViewer ? window.__tauforgeViewer.frames() : 0') as Promise<number>;
 }
+
+/** Sign in as the demo lead and open the workspace of the demo "Icosahedral 2/1 vertex model" project. */
+export async function signInAndOpenWorkspace(page: Page): Promise<void> {
+  await page.goto(`${baseUrl}/signin`);
+  await page.fill('input[name=email]', 'lead@harrowgate.test');
+  await page.fill('input[name=password]', 'quasi-demo-2026');
+  await page.click('button[type=submit]');
+  await page.waitForURL(/\/projects$/);
+  await page.click('text=Icosahedral 2/1 vertex model');
+  await page.waitForURL(/\/projects\/\d+$/);
+  await page.goto(`${page.url()}/workspace`);
+  await page.waitForSelector('[data-testid=estimate]');
+}

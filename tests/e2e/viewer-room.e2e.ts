@@ -12,7 +12,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { baseUrl, launch, screenshot, viewerFrames } from './browser';
+import { launch, screenshot, signInAndOpenWorkspace, viewerFrames } from './browser';
 
 type Pt = { x: number; y: number };
 const HOOK = 'window.__tauforgeViewer';
@@ -24,18 +24,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-async function signInAndOpenWorkspace(page: Page): Promise<void> {
-  await page.goto(`${baseUrl}/signin`);
-  await page.fill('input[name=email]', 'lead@harrowgate.test');
-  await page.fill('input[name=password]', 'quasi-demo-2026');
-  await page.click('button[type=submit]');
-  await page.waitForURL(/\/projects$/);
-  await page.click('text=Icosahedral 2/1 vertex model');
-  await page.waitForURL(/\/projects\/\d+$/);
-  await page.goto(`${page.url()}/workspace`);
-  await page.waitForSelector('[data-testid=estimate]');
-}
 
 const canvasBox = async (page: Page) => (await page.getByTestId('viewer-canvas').boundingBox())!;
 const frames = viewerFrames;

@@ -26,7 +26,7 @@ import type { Browser } from 'playwright-core';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { baseUrl, launch, screenshot, viewerFrames } from './browser';
+import { launch, screenshot, signInAndOpenWorkspace, viewerFrames } from './browser';
 import { icosahedralBasis, hyperlatticeCellVolume } from '../../lib/models/icosahedral/hyperlattice';
 import { TAU } from '../../lib/math/golden';
 import { windowVolume, zonotopeWindow } from '../../lib/models/icosahedral/window';
@@ -48,15 +48,7 @@ describe('workspace', () => {
   it('cuts, turns, slices, diffracts and downloads the 2/1 approximant', async () => {
     const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
     const page = await ctx.newPage();
-    await page.goto(`${baseUrl}/signin`);
-    await page.fill('input[name=email]', 'lead@harrowgate.test');
-    await page.fill('input[name=password]', 'quasi-demo-2026');
-    await page.click('button[type=submit]');
-    await page.waitForURL(/\/projects$/);
-    await page.click('text=Icosahedral 2/1 vertex model');
-    await page.waitForURL(/\/projects\/\d+$/);
-    await page.goto(`${page.url()}/workspace`);
-    await page.waitForSelector('[data-testid=estimate]');
+    await signInAndOpenWorkspace(page);
 
     // The demo model is a plain P vertex model; make sure the order is 2/1.
     const order = page.getByLabel('Order p/q');
@@ -192,15 +184,7 @@ describe('workspace', () => {
       dialogs.push(d.message());
       void d.accept();
     });
-    await page.goto(`${baseUrl}/signin`);
-    await page.fill('input[name=email]', 'lead@harrowgate.test');
-    await page.fill('input[name=password]', 'quasi-demo-2026');
-    await page.click('button[type=submit]');
-    await page.waitForURL(/\/projects$/);
-    await page.click('text=Icosahedral 2/1 vertex model');
-    await page.waitForURL(/\/projects\/\d+$/);
-    await page.goto(`${page.url()}/workspace`);
-    await page.waitForSelector('[data-testid=estimate]');
+    await signInAndOpenWorkspace(page);
     await page.getByLabel('Order p/q').fill('1/1');
 
     // Pick the preset: the panel says what it brings and what a_R it is meant for before anything changes.

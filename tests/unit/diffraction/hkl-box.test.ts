@@ -16,7 +16,7 @@ const CELL: Mat3 = [
   [1.3, 6.2, 0],
   [-0.7, 0.9, 7.4],
 ];
-const one = (cell: Mat3): Structure => ({ positions: new Float64Array(3), species: new Uint8Array([13]), cell });
+const one = (cell: Mat3): Structure => ({ positions: new Float64Array(3), species: new Uint16Array([13]), cell, provenance: { params: { test: true }, engine: 'test' } });
 
 describe('hklBox', () => {
   it('has the reciprocal metric of numpy (inv(A Aᵀ)) and the reflection count of a brute-force numpy walk', () => {
