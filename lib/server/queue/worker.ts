@@ -14,6 +14,7 @@ import { limits, timeLimitMs } from './limits';
 import { TaskError, TaskThread } from './runner';
 import { gridPoint, gridSize, type Axis } from './grid';
 import type { JobKind, PowderSettings, SweepJob } from './kinds';
+import { indexJobSchema } from './kinds';
 import type { Parsed } from '../datasets';
 
 /** Exports are stored in pieces of this size: far below max_allowed_packet even hex-escaped (tests set it small). */
@@ -221,9 +222,12 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
           await finish(id, await task(id, 'diffraction', { params: parseJson(rev.params), settings: settingsOf(input) }));
           break;
         }
-        case 'index':
-          await finish(id, await task(id, 'index', { text: await measured(Number(input.dataset)) }));
+        case 'index': {
+          // Parsed again so a job queued before a setting existed runs with its default.
+          const { kind: _k, dataset, ...settings } = indexJobSchema.parse({ ...input, kind: 'index' });
+          await finish(id, await task(id, 'index', { text: await measured(dataset), settings }));
           break;
+        }
         case 'sweep':
           await runSweep(id, input);
           break;
