@@ -69,6 +69,9 @@ export const startJobSchema = z.discriminatedUnion('kind', [
   sweepJobSchema,
 ]);
 
+/** A task thread's answer when a sweep point names a measured pattern the thread has not read yet (a fresh thread). */
+export const NEED_MEASURED = 'need_measured';
+
 export type DiffractionJob = z.infer<typeof diffractionJobSchema>;
 export type IndexJob = z.infer<typeof indexJobSchema>;
 export type SweepJob = z.infer<typeof sweepJobSchema>;

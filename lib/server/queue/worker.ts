@@ -14,7 +14,7 @@ import { limits, timeLimitMs } from './limits';
 import { TaskError, TaskThread } from './runner';
 import { gridPoint, gridSize, type Axis } from './grid';
 import type { JobKind, PowderSettings, SweepJob } from './kinds';
-import { indexJobSchema } from './kinds';
+import { indexJobSchema, NEED_MEASURED } from './kinds';
 import type { Parsed } from '../datasets';
 
 /** Exports are stored in pieces of this size: far below max_allowed_packet even hex-escaped (tests set it small). */
@@ -49,6 +49,7 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
   const log = o.log ?? ((m: string) => console.log(`[worker ${process.pid}] ${m}`));
   const L = limits();
   const thread = new TaskThread(threadFile, L.memoryMb);
+  thread.warm(); // load the task thread's code now, not when the first job arrives
   /** Which job row the thread works for now (a sweep's id while it runs one of its points). */
   let running: number | null = null;
   const measuredCache = new Map<number, string>();
@@ -178,16 +179,42 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
     await finish(sweepId, { best: best ? { point: Number(best.idx), rwp: Number(best.rwp), params: parseJson(best.params) } : null, failedPoints: Number(f), points: total });
   }
 
+  /** Sweep inputs by id (fixed once the sweep is queued), so a point reads only its own row. */
+  const sweepInputs = new Map<number, SweepJob>();
+  /** Datasets the task thread holds parsed, for the thread generation `threadHas.gen`. */
+  const threadHas = { gen: -1, datasets: new Set<number>() };
+
   async function runPoint(data: { sweep: number; idx: number }) {
-    const s = await db()('jobs').where({ id: data.sweep }).first('state', 'input');
-    if (!s || s.state !== 'running') return; // cancelled, failed or gone: nothing to do
-    const p = await db()('sweep_points').where({ job_id: data.sweep, idx: data.idx }).first('params', 'finished_at');
-    if (!p) return;
+    // One round trip: the sweep's state (a cancel shows here) and the point.
+    const p = await db()('sweep_points as p').join('jobs as j', 'j.id', 'p.job_id').where({ 'p.job_id': data.sweep, 'p.idx': data.idx }).first('j.state', 'p.params', 'p.finished_at');
+    if (!p || p.state !== 'running') return; // cancelled, failed or gone: nothing to do
     if (p.finished_at) return settle(data.sweep);
-    const input = parseJson(s.input) as SweepJob;
+    let input = sweepInputs.get(data.sweep);
+    if (!input) {
+      const s = await db()('jobs').where({ id: data.sweep }).first('input');
+      if (!s) return;
+      input = parseJson(s.input) as SweepJob;
+      if (sweepInputs.size > 50) sweepInputs.clear();
+      sweepInputs.set(data.sweep, input);
+    }
+    const dataset = Number(input.dataset);
+    const settings = settingsOf(input);
+    const params = parseJson(p.params);
+    // The measured pattern crosses to the thread once per thread; later points name the dataset only.
+    const run = async (send: boolean) =>
+      task<{ atoms: number; rwp: number; rp: number }>(data.sweep, 'point', { params, dataset, measured: send ? await measured(dataset) : undefined, settings }, false);
     const where = () => db()('sweep_points').where({ job_id: data.sweep, idx: data.idx }).whereNull('finished_at');
     try {
-      const r = await task<{ atoms: number; rwp: number; rp: number }>(data.sweep, 'point', { params: parseJson(p.params), measured: await measured(input.dataset), settings: settingsOf(input) }, false);
+      let r;
+      try {
+        r = await run(!(threadHas.gen === thread.generation && threadHas.datasets.has(dataset)));
+      } catch (e) {
+        if (!(e instanceof TaskError && e.code === NEED_MEASURED)) throw e;
+        r = await run(true);
+      }
+      if (threadHas.gen !== thread.generation) threadHas.datasets = new Set();
+      threadHas.gen = thread.generation;
+      threadHas.datasets.add(dataset);
       await where().update({ rwp: Number.isFinite(r.rwp) ? r.rwp : null, rp: Number.isFinite(r.rp) ? r.rp : null, atoms: r.atoms, error: Number.isFinite(r.rwp) ? null : 'R_wp is not defined for this point', runs: db().raw('runs + 1'), finished_at: now() });
     } catch (e) {
       if (e instanceof TaskError && e.code === 'cancelled') return;
