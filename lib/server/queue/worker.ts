@@ -165,15 +165,31 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
     await settle(id);
   }
 
-  /** Count finished points (each row once, however often it ran) and close the sweep when all are in. */
+  /**
+   * Record a point's outcome and count it on its sweep in one statement: the point row and the sweep's
+   * `done` change together or not at all (a worker killed in between cannot leave them apart), and only
+   * while the point is unfinished, so a retried point is never counted twice. Then close the sweep if this
+   * was its last point. Two statements per point, one write; no recount of the sweep's points.
+   */
+  async function recordPoint(sweepId: number, idx: number, r: { rwp: number | null; rp: number | null; atoms: number | null; error: string | null }) {
+    await db().raw(
+      `UPDATE sweep_points p JOIN jobs j ON j.id = p.job_id
+          SET p.rwp = ?, p.rp = ?, p.atoms = ?, p.error = ?, p.runs = p.runs + 1, p.finished_at = CURRENT_TIMESTAMP(3), j.done = j.done + 1
+        WHERE p.job_id = ? AND p.idx = ? AND p.finished_at IS NULL`,
+      [r.rwp, r.rp, r.atoms, r.error, sweepId, idx],
+    );
+    await settle(sweepId);
+  }
+
+  /** Close the sweep when every point is in (its `done` counts each point once) with the best R_wp. */
   async function settle(sweepId: number) {
-    const s = await db()('jobs').where({ id: sweepId }).first('state', 'total');
+    const s = await db()('jobs').where({ id: sweepId }).first('state', 'total', 'done');
     if (!s || s.state !== 'running' || s.total == null) return;
-    const [{ n }] = await db()('sweep_points').where({ job_id: sweepId }).whereNotNull('finished_at').count({ n: '*' });
-    const done = Number(n);
     const total = Number(s.total);
-    await db()('jobs').where({ id: sweepId, state: 'running' }).update({ done, progress: total ? done / total : 1, stage: `${done} of ${total} points` });
-    if (done < total) return;
+    if (Number(s.done) < total) return;
+    // The counter says all are in: confirm from the rows themselves before closing.
+    const [{ n }] = await db()('sweep_points').where({ job_id: sweepId }).whereNotNull('finished_at').count({ n: '*' });
+    if (Number(n) < total) return;
     const best = await db()('sweep_points').where({ job_id: sweepId }).whereNotNull('rwp').orderBy('rwp', 'asc').orderBy('idx', 'asc').first();
     const [{ f }] = await db()('sweep_points').where({ job_id: sweepId }).whereNull('rwp').count({ f: '*' });
     await finish(sweepId, { best: best ? { point: Number(best.idx), rwp: Number(best.rwp), params: parseJson(best.params) } : null, failedPoints: Number(f), points: total });
@@ -203,7 +219,6 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
     // The measured pattern crosses to the thread once per thread; later points name the dataset only.
     const run = async (send: boolean) =>
       task<{ atoms: number; rwp: number; rp: number }>(data.sweep, 'point', { params, dataset, measured: send ? await measured(dataset) : undefined, settings }, false);
-    const where = () => db()('sweep_points').where({ job_id: data.sweep, idx: data.idx }).whereNull('finished_at');
     try {
       let r;
       try {
@@ -215,13 +230,12 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
       if (threadHas.gen !== thread.generation) threadHas.datasets = new Set();
       threadHas.gen = thread.generation;
       threadHas.datasets.add(dataset);
-      await where().update({ rwp: Number.isFinite(r.rwp) ? r.rwp : null, rp: Number.isFinite(r.rp) ? r.rp : null, atoms: r.atoms, error: Number.isFinite(r.rwp) ? null : 'R_wp is not defined for this point', runs: db().raw('runs + 1'), finished_at: now() });
+      await recordPoint(data.sweep, data.idx, { rwp: Number.isFinite(r.rwp) ? r.rwp : null, rp: Number.isFinite(r.rp) ? r.rp : null, atoms: r.atoms, error: Number.isFinite(r.rwp) ? null : 'R_wp is not defined for this point' });
     } catch (e) {
       if (e instanceof TaskError && e.code === 'cancelled') return;
       if (!(e instanceof TaskError)) throw e;
-      await where().update({ error: e.message.slice(0, 2000), runs: db().raw('runs + 1'), finished_at: now() });
+      await recordPoint(data.sweep, data.idx, { rwp: null, rp: null, atoms: null, error: e.message.slice(0, 2000) });
     }
-    await settle(data.sweep);
   }
 
   async function processTop(job: Job, token: string | undefined) {
@@ -283,8 +297,7 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
     const stalled = /stalled/i.test(err.message);
     const msg = stalled ? 'The worker running this job stopped (crashed or was killed) several times; the job was given up.' : `The job failed on the worker: ${err.message}`;
     if (job.name === 'point') {
-      void db()('sweep_points').where({ job_id: job.data.sweep, idx: job.data.idx }).whereNull('finished_at')
-        .update({ error: msg, runs: db().raw('runs + 1'), finished_at: now() }).then(() => settle(job.data.sweep)).catch(() => {});
+      void recordPoint(Number(job.data.sweep), Number(job.data.idx), { rwp: null, rp: null, atoms: null, error: msg }).catch(() => {});
     } else void failJob(Number(job.data.jobId), stalled ? 'worker_lost' : 'worker_error', msg).catch(() => {});
   });
   worker.on('error', (e) => log(`queue error: ${e.message}`));
