@@ -45,6 +45,7 @@ export async function exportNow(projectId: number, revision: number, format: str
  */
 export async function uploadDatasetNow(projectId: number | string, form: FormData, onProgress?: (j: JobInfo) => void): Promise<DatasetInfo> {
   const url = `/api/projects/${encodeURIComponent(String(projectId))}/datasets`;
+  const file = form.get('file');
   const first = await send<DatasetInfo | { job: JobInfo }>('POST', url, form);
   if (!('job' in first)) return first;
   onProgress?.(first.job);
@@ -58,7 +59,12 @@ export async function uploadDatasetNow(projectId: number | string, form: FormDat
   }
   const id = (done.result as { dataset?: number } | null)?.dataset;
   if (id === undefined) throw new ApiClientError(500, 'internal', 'The file was read, but the server named no stored dataset.', null);
-  return fetcher<DatasetInfo>(`${url}/${id}`);
+  // GET …/datasets/{id} is the file itself; the dataset's record comes from the list (newest first, by name).
+  const name = file instanceof File ? file.name : '';
+  const page = await fetcher<{ items: DatasetInfo[] }>(`${url}?${new URLSearchParams({ q: name.slice(0, 200), sort: 'created_at', dir: 'desc', pageSize: '100' })}`);
+  const found = page.items.find((d) => d.id === id);
+  if (!found) throw new ApiClientError(404, 'not_found', 'The file was stored, but the dataset is gone again (deleted meanwhile?).', null);
+  return found;
 }
 
 /** "waiting for a worker", "reading the file · 40 %": a job's state in a few words. */

@@ -27,6 +27,13 @@ afterAll(async () => {
 async function signedIn(): Promise<Page> {
   const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 } });
   const page = await ctx.newPage();
+  // What the page asked the API, for the log when a step fails.
+  page.on('response', (r) => {
+    if (r.url().includes('/api/') && !r.url().includes('/api/auth')) console.log(`${r.request().method()} ${new URL(r.url()).pathname} → ${r.status()}`);
+  });
+  page.on('console', (m) => {
+    if (m.type() === 'error') console.log(`page console: ${m.text()}`);
+  });
   await page.goto(`${baseUrl}/signin`);
   await page.fill('input[name=email]', 'lead@harrowgate.test');
   await page.fill('input[name=password]', 'quasi-demo-2026');
@@ -56,7 +63,7 @@ describe('uploads answered 202 (parse queued)', () => {
     try {
       const good = patternFile(`queued-${Date.now()}.xy`);
       await page.setInputFiles('input[type=file]', good);
-      await page.getByRole('button', { name: 'Upload' }).click();
+      await page.getByRole('button', { name: 'Upload', exact: true }).click();
       // The route waits for the parse (its time limit + 20 s), then answers 202; the page follows the job.
       await page.getByTestId('upload-job').waitFor({ timeout: 60_000 });
       await expect.poll(() => page.getByTestId('upload-job').textContent()).toMatch(/waiting for a worker/);
@@ -74,7 +81,7 @@ describe('uploads answered 202 (parse queued)', () => {
       writeFileSync(bad, '2theta intensity\n10.0 5\n10.02 lots\n');
       await page.setInputFiles('input[type=file]', bad);
       await page.getByLabel('Read as').selectOption('pattern');
-      await page.getByRole('button', { name: 'Upload' }).click();
+      await page.getByRole('button', { name: 'Upload', exact: true }).click();
       await page.getByTestId('upload-job').waitFor({ timeout: 60_000 });
       await queue().resume();
       const notice = page.getByText(/not-a-pattern\.xy: /);
@@ -106,7 +113,10 @@ describe('uploads answered 202 (parse queued)', () => {
       expect(await page.getByTestId('keep-progress').textContent()).toMatch(/waiting for a worker/);
       await screenshot(page, 'keep-queued-waiting');
       await queue().resume();
-      await page.getByText(`${path.basename(file)} is now a dataset of this project.`).waitFor({ timeout: 60_000 });
+      await page.getByText(`${path.basename(file)} is now a dataset of this project.`).waitFor({ timeout: 60_000 }).catch(async (e) => {
+        await screenshot(page, 'keep-queued-failed');
+        throw e;
+      });
       expect(await page.getByRole('alert').filter({ hasText: /Storing|nothing was stored/ }).count()).toBe(0);
       await screenshot(page, 'keep-queued-stored');
     } finally {
