@@ -84,9 +84,9 @@ describe('uploads answered 202 (parse queued)', () => {
       await page.getByRole('button', { name: 'Upload', exact: true }).click();
       await page.getByTestId('upload-job').waitFor({ timeout: 60_000 });
       await queue().resume();
-      const notice = page.getByText(/not-a-pattern\.xy: /);
-      await notice.waitFor({ timeout: 60_000 });
-      expect(await notice.textContent()).toMatch(/line 3/);
+      // The notice names the file and the reader's reason (the progress label, gone now, named the file too).
+      await page.getByText(/not-a-pattern\.xy: .*line 3/).waitFor({ timeout: 60_000 });
+      expect(await page.getByTestId('upload-job').count()).toBe(0);
       await expect.poll(() => page.locator('table tbody tr').filter({ hasText: 'not-a-pattern.xy' }).count()).toBe(0);
       await screenshot(page, 'upload-queued-refused');
     } finally {
