@@ -8,6 +8,8 @@ import { buttonClass, dangerButtonClass, quietButtonClass } from '@/components/u
 import { inputClass } from '@/components/ui/fields';
 import { Notice } from '@/components/ui/messages';
 import type { DatasetInfo } from '@/lib/server/datasets';
+import { jobProgressText, uploadDatasetNow, type JobInfo } from '@/components/workspace/jobs-client';
+import { Progress } from '@/components/workspace/Progress';
 
 /** The space group the upload's parse found (older uploads have none recorded; finite structures need none). */
 function spaceGroupText(s: Record<string, unknown>): string {
@@ -29,6 +31,8 @@ export function DatasetsView({ projectId, canEdit }: { projectId: number; canEdi
   const [msg, setMsg] = useState<{ tone: 'ok' | 'error'; text: string } | null>(null);
   const [key, setKey] = useState(0);
   const [busy, setBusy] = useState(false);
+  /** The parse job, when the server answered 202 (no worker free in time): followed until it ends. */
+  const [job, setJob] = useState<{ info: JobInfo; since: number } | null>(null);
   const base = `/api/projects/${projectId}/datasets`;
   const columns: ColumnDef<DatasetInfo, unknown>[] = [
     { id: 'filename', header: 'File', cell: ({ row }) => <span className="font-mono text-xs">{row.original.filename}</span> },
@@ -58,19 +62,27 @@ export function DatasetsView({ projectId, canEdit }: { projectId: number; canEdi
           const fd = new FormData();
           fd.set('file', file);
           fd.set('kind', kind);
+          setMsg(null);
           try {
-            const d = await send<DatasetInfo>('POST', base, fd);
+            const d = await uploadDatasetNow(projectId, fd, (info) => setJob((j) => ({ info, since: j?.since ?? Date.now() })));
             setMsg({ tone: 'ok', text: `${d.filename} stored: ${summaryText(d)}.` });
             setKey((k) => k + 1);
           } catch (err) {
-            setMsg({ tone: 'error', text: (err as Error).message });
+            setMsg({ tone: 'error', text: `${file.name}: ${(err as Error).message}` });
           } finally {
             setBusy(false);
+            setJob(null);
           }
         }}>
           <label className="text-sm">Measured pattern or structure file (≤ 20 MB)<input type="file" onChange={(e) => setFile(e.target.files?.[0] ?? null)} className={inputClass} /></label>
           <label className="text-sm">Read as<select value={kind} onChange={(e) => setKind(e.target.value)} className={`${inputClass} w-auto`}><option value="auto">tell from the file</option><option value="pattern">measured pattern</option><option value="structure">structure</option></select></label>
-          <button type="submit" disabled={busy} className={buttonClass}>{busy ? 'Reading…' : 'Upload'}</button>
+          <button type="submit" disabled={busy} className={buttonClass}>{busy ? (job ? 'Queued…' : 'Reading…') : 'Upload'}</button>
+          {job && (
+            <div className="basis-full" data-testid="upload-job">
+              <p className="text-xs text-ink-soft">The workers are busy: the file waits in the queue and is read as soon as one is free. You can stay on this page.</p>
+              <Progress running stage={jobProgressText(job.info)} fraction={job.info.progress} startedAt={job.since} label={`Reading ${file?.name ?? 'the file'}`} onCancel={() => void send('DELETE', job.info.url).catch((e) => setMsg({ tone: 'error', text: (e as Error).message }))} />
+            </div>
+          )}
         </form>
       )}
       <ServerTable<DatasetInfo> label="Datasets" endpoint={base} columns={columns} sortable={['created_at', 'filename', 'size', 'kind']} defaultSort="created_at" filterLabel="Filter by file name" refreshKey={key} empty="No datasets yet." />

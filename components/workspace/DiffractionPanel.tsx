@@ -12,6 +12,7 @@ import { ZonePattern } from '@/components/plots/ZonePattern';
 import { PowderPlot } from '@/components/plots/PowderPlot';
 import { resultKey, slotOf, useResultsStore, type DiffractionForm, type DiffractionKind, type MeasuredRef } from './resultsStore';
 import { Progress } from './Progress';
+import { jobProgressText, uploadDatasetNow } from './jobs-client';
 import { plainError } from '@/lib/zod-text';
 import { describeSchema } from '@/components/forms/describe';
 import { firstPerField, formMessages } from '@/components/forms/messages';
@@ -79,7 +80,7 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
   const [dMinText, setDMinText] = useState('');
   const dMin = radiation === 'electron' && dMinText.trim() !== '' ? Number(dMinText) : undefined;
   const dMinErr = dMin !== undefined && !(dMin > 0 && Number.isFinite(dMin)) ? 'd min: must be a positive length in Å' : null;
-  const [keepState, setKeepState] = useState<{ busy?: boolean; ok?: string; error?: string }>({});
+  const [keepState, setKeepState] = useState<{ busy?: boolean; progress?: string; fraction?: number; ok?: string; error?: string }>({});
   const zoneInput = { axis: axis.replace(/\s+/g, ''), qmax: numberOrText(qmax) };
   const zoneCheck = zoneParamsSchema.safeParse(zoneInput, { error: plainError });
   const zoneErr = formMessages(firstPerField(zoneCheck.error), ZONE_FORM, zoneInput);
@@ -154,14 +155,17 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
     const fd = new FormData();
     fd.set('file', file);
     fd.set('kind', 'pattern');
-    const res = await fetch(`/api/projects/${encodeURIComponent(target.projectId)}/datasets`, { method: 'POST', body: fd }).catch(() => null);
-    if (!res) return setKeepState({ error: 'The server could not be reached; nothing was stored.' });
-    const body = (await res.json().catch(() => null)) as { id?: number; filename?: string; downloadUrl?: string; error?: { message?: string } } | null;
-    if (!res.ok || body?.id === undefined) return setKeepState({ error: body?.error?.message ?? `Storing the file failed (HTTP ${res.status}); nothing was stored.` });
-    const ref: DatasetRef = { id: String(body.id), name: body.filename ?? file.name, url: body.downloadUrl ?? '' };
-    target.onStored(ref);
-    setMeasured((m) => (m && m.file === file ? { name: m.name, data: m.data, datasetId: ref.id } : m));
-    setKeepState({ ok: `${ref.name} is now a dataset of this project.` });
+    try {
+      // 201: stored at once; 202: the parse waits for a worker, followed here with its progress.
+      const d = await uploadDatasetNow(target.projectId, fd, (j) => setKeepState({ busy: true, progress: jobProgressText(j), fraction: j.progress }));
+      const ref: DatasetRef = { id: String(d.id), name: d.filename ?? file.name, url: d.downloadUrl ?? '' };
+      target.onStored(ref);
+      setMeasured((m) => (m && m.file === file ? { name: m.name, data: m.data, datasetId: ref.id } : m));
+      setKeepState({ ok: `${ref.name} is now a dataset of this project.` });
+    } catch (e) {
+      const network = e instanceof TypeError;
+      setKeepState({ error: network ? 'The server could not be reached; nothing was stored.' : `${(e as Error).message}${/nothing was stored/.test((e as Error).message) ? '' : ' Nothing was stored.'}` });
+    }
   };
 
   return (
@@ -335,6 +339,14 @@ export function DiffractionPanel({ structure, fileBase, datasets = [], target, m
               <button type="button" disabled={keepState.busy} className="rounded border border-rule px-2 py-0.5 text-xs hover:border-tide disabled:opacity-50" onClick={() => void keepInProject(measured.file!)}>
                 {keepState.busy ? 'Storing…' : 'Keep in this project'}
               </button>
+            ) : null}
+            {keepState.busy && keepState.progress ? (
+              <span className="flex items-center gap-1 text-xs text-ink-soft" role="status" data-testid="keep-progress">
+                queued on the server: {keepState.progress}
+                <span className="inline-block h-1.5 w-16 overflow-hidden rounded bg-tide-pale" role="progressbar" aria-label="Reading the file" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(100 * (keepState.fraction ?? 0))}>
+                  <span className="block h-full bg-tide" style={{ width: `${Math.max(5, 100 * (keepState.fraction ?? 0))}%` }} />
+                </span>
+              </span>
             ) : null}
             {keepState.ok ? <span className="text-xs text-tide" role="status">{keepState.ok}</span> : null}
             {keepState.error ? <span className="text-xs text-clay" role="alert">{keepState.error}</span> : null}

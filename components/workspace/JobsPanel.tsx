@@ -170,7 +170,7 @@ function outcome(j: JobInfo): string {
     return best ? `best R_wp ${(100 * best.rwp).toFixed(2)} % (point ${best.point})${Number(r.failedPoints) ? `, ${r.failedPoints} points failed` : ''}` : 'no point could be compared';
   }
   if (j.kind === 'diffraction') return `${(r.peaks as unknown[]).length} reflections, ${r.atoms} atoms`;
-  if (j.kind === 'index') return `${(r.peaks as unknown[]).length} peaks found`;
+  if (j.kind === 'index') return typeof r.aR === 'number' ? `aR ${r.aR.toFixed(4)} ± ${Number(r.aRSigma).toPrecision(2)} Å, zero shift ${Number(r.zeroShift).toFixed(3)}°, ${r.indexed} of ${(r.peaks as unknown[]).length} peaks indexed` : `${(r.peaks as unknown[]).length} peaks found`;
   if (j.kind === 'parse') return `dataset ${r.dataset}`;
   return 'done';
 }

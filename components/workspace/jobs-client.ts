@@ -1,6 +1,7 @@
 /** Queued jobs from the page's side: wait for one to finish, and an export that may have to be made first. */
 import { ApiClientError, fetcher, send } from '@/components/ui/api';
 import type { JobInfo } from '@/lib/server/queue/service';
+import type { DatasetInfo } from '@/lib/server/datasets';
 
 export type { JobInfo };
 
@@ -36,4 +37,41 @@ export async function exportNow(projectId: number, revision: number, format: str
   if (!('job' in first)) return first;
   await waitForJob(first.job.url, onProgress);
   return { ...(await send<StoredExport>('POST', url, body)), reused: false };
+}
+
+/**
+ * Upload a dataset (a FormData with "file" and "kind"). The server answers 201 with the stored dataset, or
+ * 202 with the parse job when no worker got to the file in time: then follow the job (each poll goes to
+ * onProgress) and read the dataset it stored. A refused file throws with the reader's message; nothing is
+ * stored then.
+ */
+export async function uploadDatasetNow(projectId: number | string, form: FormData, onProgress?: (j: JobInfo) => void): Promise<DatasetInfo> {
+  const url = `/api/projects/${encodeURIComponent(String(projectId))}/datasets`;
+  const file = form.get('file');
+  const first = await send<DatasetInfo | { job: JobInfo }>('POST', url, form);
+  if (!('job' in first)) return first;
+  onProgress?.(first.job);
+  let done: JobInfo;
+  try {
+    done = await waitForJob(first.job.url, onProgress);
+  } catch (e) {
+    if (e instanceof ApiClientError && e.code === 'timed_out') throw new ApiClientError(422, e.code, 'This file took too long to read and was refused; nothing was stored.', e.details);
+    if (e instanceof ApiClientError && e.code === 'cancelled') throw new ApiClientError(422, e.code, 'Reading the file was cancelled; nothing was stored.', e.details);
+    throw e;
+  }
+  const id = (done.result as { dataset?: number } | null)?.dataset;
+  if (id === undefined) throw new ApiClientError(500, 'internal', 'The file was read, but the server named no stored dataset.', null);
+  // GET …/datasets/{id} is the file itself; the dataset's record comes from the list (newest first, by name).
+  const name = file instanceof File ? file.name : '';
+  const page = await fetcher<{ items: DatasetInfo[] }>(`${url}?${new URLSearchParams({ q: name.slice(0, 200), sort: 'created_at', dir: 'desc', pageSize: '100' })}`);
+  const found = page.items.find((d) => d.id === id);
+  if (!found) throw new ApiClientError(404, 'not_found', 'The file was stored, but the dataset is gone again (deleted meanwhile?).', null);
+  return found;
+}
+
+/** "waiting for a worker", "reading the file · 40 %": a job's state in a few words. */
+export function jobProgressText(j: Pick<JobInfo, 'state' | 'stage' | 'progress'>): string {
+  if (j.state === 'queued') return 'waiting for a worker';
+  const pct = Math.round(100 * (j.progress ?? 0));
+  return `${j.stage ?? j.state}${pct > 0 ? ` · ${pct} %` : ''}`;
 }

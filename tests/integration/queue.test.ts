@@ -13,6 +13,7 @@ import { closeQueue } from '../../lib/server/queue/connection';
 import { generate } from '../../lib/models';
 import { runJob } from '../../lib/worker/engine';
 import { runPython } from '../helpers/python';
+import { syntheticPattern } from '../unit/diffraction/quasicrystal/synthetic';
 import { call, makeProject, makeUser, type ProjectFixture, type TestUser } from './api-fixtures';
 import { buildWorker, root, startWorker, until, type WorkerProc } from './queue-helpers';
 import * as jobsRoute from '../../app/api/projects/[id]/jobs/route';
@@ -236,6 +237,58 @@ describe('sweeps', () => {
     expect(saved.status).toBe(201);
     expect((await saved.json()).params.aR).toBe(4.6);
     await wB.kill();
+  });
+});
+
+describe('index jobs', () => {
+  async function storePattern(name: string, text: string): Promise<number> {
+    const [id] = await db()('datasets').insert({ project_id: p.id, kind: 'pattern', filename: name, format: 'two-column', bytes: Buffer.from(text), sha256: '0'.repeat(64), size: text.length, summary: '{}', uploaded_by: owner.id });
+    return Number(id);
+  }
+
+  it('index a measured icosahedral pattern on a worker: indexed peaks, aR ± σ and the zero shift', async () => {
+    // The pattern is made by numpy outside lib/ (tests/unit/diffraction/quasicrystal/synthetic.ts: the six
+    // five-fold axes of the icosahedron, Coxeter, Regular Polytopes §3.7; N and M of Cahn, Shechtman & Gratias,
+    // J. Mater. Res. 1 (1986) 13) with aR = 4.56 Å and a zero shift of 0.037°; Cu Kα1 = 1.5405929 Å
+    // (Hölzer et al., Phys. Rev. A 56 (1997) 4554).
+    const s = syntheticPattern({ aR: 4.56, lattice: 'P', zero: 0.037, lambda: 1.5405929, fwhm: 0.08, seed: 11 });
+    const dataset = await storePattern('icosahedral.xy', '2theta intensity\n' + s.x.map((x, i) => `${x.toFixed(3)} ${s.y[i]}`).join('\n') + '\n');
+    const w = await worker();
+    try {
+      const r = await startJob({ kind: 'index', dataset, lattice: 'P', wavelength: 1.5405929 });
+      expect(r.status).toBe(202);
+      const j = await finished((await r.json()).id);
+      expect(j.state, JSON.stringify(j.error)).toBe('done');
+      const o = j.result;
+      expect(Math.abs(o.aR / 4.56 - 1)).toBeLessThan(5e-4);
+      expect(o.aRSigma).toBeGreaterThan(0);
+      expect(o.aRSigma).toBeLessThan(0.01);
+      expect(Math.abs(o.zeroShift - 0.037)).toBeLessThan(0.01);
+      expect(o.zeroShiftSigma).toBeGreaterThan(0);
+      expect(o.indexed).toBeGreaterThanOrEqual(6);
+      // Every indexed peak carries its N, M; the strongest synthetic lines are among them with the numpy N, M.
+      const indexed = o.peaks.filter((x: { N: number | null }) => x.N !== null);
+      expect(indexed.length).toBe(o.indexed);
+      const strong = [...s.lines].sort((a, b) => b.i - a.i).slice(0, 3);
+      for (const line of strong) {
+        const near = [...indexed].sort((a: { twoTheta: number }, b: { twoTheta: number }) => Math.abs(a.twoTheta - line.tt) - Math.abs(b.twoTheta - line.tt))[0];
+        expect(Math.abs(near.twoTheta - line.tt - 0.037)).toBeLessThan(0.05);
+        expect(near, `line N=${line.n} M=${line.m} at ${line.tt.toFixed(3)}°`).toBeDefined();
+        expect([near.N, near.M]).toEqual([line.n, line.m]);
+      }
+
+      // A pattern without peaks: the job fails with the indexer's own reason.
+      const flat = await storePattern('flat.xy', Array.from({ length: 100 }, (_, i) => `${20 + i * 0.5} 100`).join('\n'));
+      const f = await finished((await (await startJob({ kind: 'index', dataset: flat })).json()).id);
+      expect(f.state).toBe('failed');
+      expect(f.error.code).toBe('unprocessable');
+      expect(f.error.message).toMatch(/peaks found/);
+      // Bad settings are refused before anything is queued.
+      const bad = await startJob({ kind: 'index', dataset, lattice: 'Q' });
+      expect(bad.status).toBe(400);
+    } finally {
+      await w.kill();
+    }
   });
 });
 

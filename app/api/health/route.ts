@@ -3,7 +3,7 @@ import { resolveActor } from '@/lib/server/actor';
 
 export const dynamic = 'force-dynamic';
 
-/** 200 when the database answers, 503 when not; only a signed-in site admin sees the database's error text. */
+/** 200 when the database and the job queue answer, 503 when not; only a signed-in site admin sees error texts and queue counts. */
 export async function GET(req?: Request) {
   let admin = false;
   if (req) {

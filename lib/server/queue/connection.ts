@@ -20,10 +20,14 @@ export function redis(): Redis {
   return new Redis(redisUrl(), { maxRetriesPerRequest: null, lazyConnect: false });
 }
 
-const g = globalThis as unknown as { __tauforgeQueue?: Queue; __tauforgeRedis?: Redis };
+const g = globalThis as unknown as { __tauforgeQueue?: Queue; __tauforgeQueueRedis?: Redis; __tauforgeRedis?: Redis };
 
 export function queue(): Queue {
-  if (!g.__tauforgeQueue) g.__tauforgeQueue = new Queue(queueName(), { connection: redis() });
+  if (!g.__tauforgeQueue) {
+    // A connection handed to BullMQ as an instance is shared: Queue.close() leaves it open, closeQueue() ends it.
+    g.__tauforgeQueueRedis = redis();
+    g.__tauforgeQueue = new Queue(queueName(), { connection: g.__tauforgeQueueRedis });
+  }
   return g.__tauforgeQueue;
 }
 
@@ -36,10 +40,13 @@ export function plainRedis(): Redis {
 export async function closeQueue(): Promise<void> {
   const q = g.__tauforgeQueue;
   const r = g.__tauforgeRedis;
+  const qr = g.__tauforgeQueueRedis;
   g.__tauforgeQueue = undefined;
   g.__tauforgeRedis = undefined;
+  g.__tauforgeQueueRedis = undefined;
   await q?.close();
   r?.disconnect();
+  qr?.disconnect();
 }
 
 /** BullMQ ids must not be plain integers: a job row's BullMQ id, and a sweep point's. */

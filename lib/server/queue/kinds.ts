@@ -29,10 +29,24 @@ export const diffractionJobSchema = z.strictObject({
   ...powderSettings,
 });
 
-export const indexJobSchema = z.strictObject({
-  kind: z.literal('index'),
-  dataset: z.number({ message: 'send the id of a measured pattern' }).int().positive(),
-});
+/**
+ * Indexing a measured icosahedral powder pattern (lib/diffraction/quasicrystal/index-icosahedral.ts, the code
+ * behind `diffract index`): wavelength (Cu Kα1 by default), P or F hyperlattice, an optional aR guess (search
+ * ±3 % about it) or search range, and the peak finder's minimum prominence.
+ */
+export const indexJobSchema = z
+  .strictObject({
+    kind: z.literal('index'),
+    dataset: z.number({ message: 'send the id of a measured pattern' }).int().positive(),
+    wavelength: z.number().positive().max(10).default(1.5406),
+    lattice: z.enum(['P', 'F'], { message: 'lattice is P or F' }).default('P'),
+    radiation,
+    aR: z.number().min(1).max(50).optional(),
+    aRMin: z.number().min(1).max(50).optional(),
+    aRMax: z.number().min(1).max(50).optional(),
+    prominence: z.number().gt(0, 'prominence is a fraction between 0 and 1').lt(1, 'prominence is a fraction between 0 and 1').optional(),
+  })
+  .refine((o) => o.aRMin === undefined || o.aRMax === undefined || o.aRMin < o.aRMax, { message: 'aRMin must be below aRMax', path: ['aRMin'] });
 
 /** One axis of a sweep: a path into the params ("aR", "offset.2", "order", "decoration.…") and its values. */
 export const sweepAxisSchema = z.strictObject({
@@ -55,6 +69,10 @@ export const startJobSchema = z.discriminatedUnion('kind', [
   sweepJobSchema,
 ]);
 
+/** A task thread's answer when a sweep point names a measured pattern the thread has not read yet (a fresh thread). */
+export const NEED_MEASURED = 'need_measured';
+
 export type DiffractionJob = z.infer<typeof diffractionJobSchema>;
+export type IndexJob = z.infer<typeof indexJobSchema>;
 export type SweepJob = z.infer<typeof sweepJobSchema>;
 export type PowderSettings = Pick<DiffractionJob, 'radiation' | 'wavelength' | 'twoThetaMin' | 'twoThetaMax' | 'step' | 'fwhm'>;

@@ -27,6 +27,8 @@ export class TaskThread {
   private worker: Worker | null = null;
   private seq = 0;
   private current: { id: number; stop: (why: 'cancel' | 'time') => void } | null = null;
+  /** Counts thread starts: state kept inside the thread (caches) belongs to one generation. */
+  generation = 0;
 
   constructor(
     private readonly file: URL,
@@ -37,8 +39,14 @@ export class TaskThread {
     if (!this.worker) {
       this.worker = new Worker(this.file, { resourceLimits: { maxOldGenerationSizeMb: this.memoryMb } });
       this.worker.unref();
+      this.generation += 1;
     }
     return this.worker;
+  }
+
+  /** Start the thread now (worker start-up), so the first job does not wait for it to load. */
+  warm(): void {
+    this.spawn();
   }
 
   /** Stop the running task (a cancel): the thread ends and the run rejects with code "cancelled". */

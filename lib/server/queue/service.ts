@@ -57,13 +57,15 @@ export function jobInfo(r: any): JobInfo {
       error = { code: 'failed', message: String(r.error), details: null };
     }
   }
+  // A running sweep's progress is its count of finished points (kept by the workers, one write per point).
+  const sweeping = r.kind === 'sweep' && r.state === 'running' && r.total != null && Number(r.total) > 0;
   return {
     id: Number(r.id),
     project: Number(r.project_id),
     kind: r.kind,
     state: r.state,
-    progress: Number(r.progress),
-    stage: r.stage ?? null,
+    progress: sweeping ? Math.min(1, Number(r.done ?? 0) / Number(r.total)) : Number(r.progress),
+    stage: sweeping ? `${Number(r.done ?? 0)} of ${Number(r.total)} points` : (r.stage ?? null),
     input: parseJson(r.input) ?? {},
     result: parseJson(r.result) ?? null,
     error,

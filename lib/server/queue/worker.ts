@@ -14,6 +14,7 @@ import { limits, timeLimitMs } from './limits';
 import { TaskError, TaskThread } from './runner';
 import { gridPoint, gridSize, type Axis } from './grid';
 import type { JobKind, PowderSettings, SweepJob } from './kinds';
+import { indexJobSchema, NEED_MEASURED } from './kinds';
 import type { Parsed } from '../datasets';
 
 /** Exports are stored in pieces of this size: far below max_allowed_packet even hex-escaped (tests set it small). */
@@ -48,6 +49,7 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
   const log = o.log ?? ((m: string) => console.log(`[worker ${process.pid}] ${m}`));
   const L = limits();
   const thread = new TaskThread(threadFile, L.memoryMb);
+  thread.warm(); // load the task thread's code now, not when the first job arrives
   /** Which job row the thread works for now (a sweep's id while it runs one of its points). */
   let running: number | null = null;
   const measuredCache = new Map<number, string>();
@@ -163,37 +165,77 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
     await settle(id);
   }
 
-  /** Count finished points (each row once, however often it ran) and close the sweep when all are in. */
+  /**
+   * Record a point's outcome and count it on its sweep in one statement: the point row and the sweep's
+   * `done` change together or not at all (a worker killed in between cannot leave them apart), and only
+   * while the point is unfinished, so a retried point is never counted twice. Then close the sweep if this
+   * was its last point. Two statements per point, one write; no recount of the sweep's points.
+   */
+  async function recordPoint(sweepId: number, idx: number, r: { rwp: number | null; rp: number | null; atoms: number | null; error: string | null }) {
+    await db().raw(
+      `UPDATE sweep_points p JOIN jobs j ON j.id = p.job_id
+          SET p.rwp = ?, p.rp = ?, p.atoms = ?, p.error = ?, p.runs = p.runs + 1, p.finished_at = CURRENT_TIMESTAMP(3), j.done = j.done + 1
+        WHERE p.job_id = ? AND p.idx = ? AND p.finished_at IS NULL`,
+      [r.rwp, r.rp, r.atoms, r.error, sweepId, idx],
+    );
+    await settle(sweepId);
+  }
+
+  /** Close the sweep when every point is in (its `done` counts each point once) with the best R_wp. */
   async function settle(sweepId: number) {
-    const s = await db()('jobs').where({ id: sweepId }).first('state', 'total');
+    const s = await db()('jobs').where({ id: sweepId }).first('state', 'total', 'done');
     if (!s || s.state !== 'running' || s.total == null) return;
-    const [{ n }] = await db()('sweep_points').where({ job_id: sweepId }).whereNotNull('finished_at').count({ n: '*' });
-    const done = Number(n);
     const total = Number(s.total);
-    await db()('jobs').where({ id: sweepId, state: 'running' }).update({ done, progress: total ? done / total : 1, stage: `${done} of ${total} points` });
-    if (done < total) return;
+    if (Number(s.done) < total) return;
+    // The counter says all are in: confirm from the rows themselves before closing.
+    const [{ n }] = await db()('sweep_points').where({ job_id: sweepId }).whereNotNull('finished_at').count({ n: '*' });
+    if (Number(n) < total) return;
     const best = await db()('sweep_points').where({ job_id: sweepId }).whereNotNull('rwp').orderBy('rwp', 'asc').orderBy('idx', 'asc').first();
     const [{ f }] = await db()('sweep_points').where({ job_id: sweepId }).whereNull('rwp').count({ f: '*' });
     await finish(sweepId, { best: best ? { point: Number(best.idx), rwp: Number(best.rwp), params: parseJson(best.params) } : null, failedPoints: Number(f), points: total });
   }
 
+  /** Sweep inputs by id (fixed once the sweep is queued), so a point reads only its own row. */
+  const sweepInputs = new Map<number, SweepJob>();
+  /** Datasets the task thread holds parsed, for the thread generation `threadHas.gen`. */
+  const threadHas = { gen: -1, datasets: new Set<number>() };
+
   async function runPoint(data: { sweep: number; idx: number }) {
-    const s = await db()('jobs').where({ id: data.sweep }).first('state', 'input');
-    if (!s || s.state !== 'running') return; // cancelled, failed or gone: nothing to do
-    const p = await db()('sweep_points').where({ job_id: data.sweep, idx: data.idx }).first('params', 'finished_at');
-    if (!p) return;
+    // One round trip: the sweep's state (a cancel shows here) and the point.
+    const p = await db()('sweep_points as p').join('jobs as j', 'j.id', 'p.job_id').where({ 'p.job_id': data.sweep, 'p.idx': data.idx }).first('j.state', 'p.params', 'p.finished_at');
+    if (!p || p.state !== 'running') return; // cancelled, failed or gone: nothing to do
     if (p.finished_at) return settle(data.sweep);
-    const input = parseJson(s.input) as SweepJob;
-    const where = () => db()('sweep_points').where({ job_id: data.sweep, idx: data.idx }).whereNull('finished_at');
+    let input = sweepInputs.get(data.sweep);
+    if (!input) {
+      const s = await db()('jobs').where({ id: data.sweep }).first('input');
+      if (!s) return;
+      input = parseJson(s.input) as SweepJob;
+      if (sweepInputs.size > 50) sweepInputs.clear();
+      sweepInputs.set(data.sweep, input);
+    }
+    const dataset = Number(input.dataset);
+    const settings = settingsOf(input);
+    const params = parseJson(p.params);
+    // The measured pattern crosses to the thread once per thread; later points name the dataset only.
+    const run = async (send: boolean) =>
+      task<{ atoms: number; rwp: number; rp: number }>(data.sweep, 'point', { params, dataset, measured: send ? await measured(dataset) : undefined, settings }, false);
     try {
-      const r = await task<{ atoms: number; rwp: number; rp: number }>(data.sweep, 'point', { params: parseJson(p.params), measured: await measured(input.dataset), settings: settingsOf(input) }, false);
-      await where().update({ rwp: Number.isFinite(r.rwp) ? r.rwp : null, rp: Number.isFinite(r.rp) ? r.rp : null, atoms: r.atoms, error: Number.isFinite(r.rwp) ? null : 'R_wp is not defined for this point', runs: db().raw('runs + 1'), finished_at: now() });
+      let r;
+      try {
+        r = await run(!(threadHas.gen === thread.generation && threadHas.datasets.has(dataset)));
+      } catch (e) {
+        if (!(e instanceof TaskError && e.code === NEED_MEASURED)) throw e;
+        r = await run(true);
+      }
+      if (threadHas.gen !== thread.generation) threadHas.datasets = new Set();
+      threadHas.gen = thread.generation;
+      threadHas.datasets.add(dataset);
+      await recordPoint(data.sweep, data.idx, { rwp: Number.isFinite(r.rwp) ? r.rwp : null, rp: Number.isFinite(r.rp) ? r.rp : null, atoms: r.atoms, error: Number.isFinite(r.rwp) ? null : 'R_wp is not defined for this point' });
     } catch (e) {
       if (e instanceof TaskError && e.code === 'cancelled') return;
       if (!(e instanceof TaskError)) throw e;
-      await where().update({ error: e.message.slice(0, 2000), runs: db().raw('runs + 1'), finished_at: now() });
+      await recordPoint(data.sweep, data.idx, { rwp: null, rp: null, atoms: null, error: e.message.slice(0, 2000) });
     }
-    await settle(data.sweep);
   }
 
   async function processTop(job: Job, token: string | undefined) {
@@ -221,9 +263,12 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
           await finish(id, await task(id, 'diffraction', { params: parseJson(rev.params), settings: settingsOf(input) }));
           break;
         }
-        case 'index':
-          await finish(id, await task(id, 'index', { text: await measured(Number(input.dataset)) }));
+        case 'index': {
+          // Parsed again so a job queued before a setting existed runs with its default.
+          const { kind: _k, dataset, ...settings } = indexJobSchema.parse({ ...input, kind: 'index' });
+          await finish(id, await task(id, 'index', { text: await measured(dataset), settings }));
           break;
+        }
         case 'sweep':
           await runSweep(id, input);
           break;
@@ -252,8 +297,7 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
     const stalled = /stalled/i.test(err.message);
     const msg = stalled ? 'The worker running this job stopped (crashed or was killed) several times; the job was given up.' : `The job failed on the worker: ${err.message}`;
     if (job.name === 'point') {
-      void db()('sweep_points').where({ job_id: job.data.sweep, idx: job.data.idx }).whereNull('finished_at')
-        .update({ error: msg, runs: db().raw('runs + 1'), finished_at: now() }).then(() => settle(job.data.sweep)).catch(() => {});
+      void recordPoint(Number(job.data.sweep), Number(job.data.idx), { rwp: null, rp: null, atoms: null, error: msg }).catch(() => {});
     } else void failJob(Number(job.data.jobId), stalled ? 'worker_lost' : 'worker_error', msg).catch(() => {});
   });
   worker.on('error', (e) => log(`queue error: ${e.message}`));
