@@ -183,8 +183,11 @@ describe('limits', () => {
   it('stop a job over its time limit and one over its memory limit, with errors that say so', async () => {
     // One limit per worker, so neither can trip the other (the fast structure-factor path of a 3/2 cell
     // needs more than 16 MB).
+    // The slow job must take well over 1 s however fast the powder route gets: the 5/3 cell (2 440 atoms) with
+    // Mo Kα1 to 2θ = 150° (about 10⁷ reflections, several seconds of one core).
     const wt = await worker({ TAUFORGE_JOB_TIME_DIFFRACTION: '1' });
-    const slow = await (await startJob({ kind: 'diffraction', revision: ico32, ...POWDER, twoThetaMax: 120, step: 0.01 })).json();
+    const ico53 = await addRevision(ICO('5/3'), 6);
+    const slow = await (await startJob({ kind: 'diffraction', revision: ico53, ...POWDER, wavelength: 0.709317, twoThetaMax: 150, step: 0.005 })).json();
     const s = await finished(slow.id);
     expect(s.state).toBe('failed');
     expect(s.error.code).toBe('timed_out');
