@@ -25,8 +25,8 @@ export function viewerFrames(page: Page): Promise<number> {
   return page.evaluate('window.__tauforgeViewer ? window.__tauforgeViewer.frames() : 0') as Promise<number>;
 }
 
-/** Sign in as the demo lead and open the workspace of the demo "Icosahedral 2/1 vertex model" project. */
-export async function signInAndOpenWorkspace(page: Page): Promise<void> {
+/** Sign in as the demo lead and open the demo "Icosahedral 2/1 vertex model" project's page. */
+export async function signInAndOpenProject(page: Page): Promise<void> {
   await page.goto(`${baseUrl}/signin`);
   await page.fill('input[name=email]', 'lead@harrowgate.test');
   await page.fill('input[name=password]', 'quasi-demo-2026');
@@ -34,6 +34,11 @@ export async function signInAndOpenWorkspace(page: Page): Promise<void> {
   await page.waitForURL(/\/projects$/);
   await page.click('text=Icosahedral 2/1 vertex model');
   await page.waitForURL(/\/projects\/\d+$/);
+}
+
+/** As signInAndOpenProject, then that project's workspace. */
+export async function signInAndOpenWorkspace(page: Page): Promise<void> {
+  await signInAndOpenProject(page);
   await page.goto(`${page.url()}/workspace`);
   await page.waitForSelector('[data-testid=estimate]');
 }

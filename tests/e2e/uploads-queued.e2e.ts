@@ -9,7 +9,7 @@ import type { Browser, Page } from 'playwright-core';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { baseUrl, launch, screenshot } from './browser';
+import { launch, screenshot, signInAndOpenProject } from './browser';
 import { closeQueue, queue } from '../../lib/server/queue/connection';
 
 let browser: Browser;
@@ -34,13 +34,7 @@ async function signedIn(): Promise<Page> {
   page.on('console', (m) => {
     if (m.type() === 'error') console.log(`page console: ${m.text()}`);
   });
-  await page.goto(`${baseUrl}/signin`);
-  await page.fill('input[name=email]', 'lead@harrowgate.test');
-  await page.fill('input[name=password]', 'quasi-demo-2026');
-  await page.click('button[type=submit]');
-  await page.waitForURL(/\/projects$/);
-  await page.click('text=Icosahedral 2/1 vertex model');
-  await page.waitForURL(/\/projects\/\d+$/);
+  await signInAndOpenProject(page);
   return page;
 }
 
