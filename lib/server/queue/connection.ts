@@ -51,4 +51,6 @@ export async function closeQueue(): Promise<void> {
 
 /** BullMQ ids must not be plain integers: a job row's BullMQ id, and a sweep point's. */
 export const bullId = (jobId: number) => `j${jobId}`;
-export const pointId = (sweepId: number, idx: number) => `s${sweepId}-p${idx}`;
+/** A batch of sweep points: named by its points, so the same batch queued twice is one job. */
+export const pointsId = (sweepId: number, idx: readonly number[]) =>
+  idx.length === 1 ? `s${sweepId}-p${idx[0]}` : `s${sweepId}-p${idx[0]}-${idx[idx.length - 1]}-n${idx.length}`;

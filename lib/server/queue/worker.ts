@@ -9,16 +9,25 @@ import { db } from '../db';
 import { audit } from '../audit';
 import { paramsHash, sha256Hex } from '../crypto';
 import { ENGINE_VERSION } from '../../version';
-import { cancelChannel, pointId, queueName, queue, redis } from './connection';
+import { cancelChannel, pointsId, queueName, queue, redis } from './connection';
 import { limits, timeLimitMs } from './limits';
 import { TaskError, TaskThread } from './runner';
 import { gridPoint, gridSize, type Axis } from './grid';
+import { guidedBatches } from './batches';
 import type { JobKind, PowderSettings, SweepJob } from './kinds';
 import { indexJobSchema, NEED_MEASURED } from './kinds';
 import type { Parsed } from '../datasets';
 
 /** Exports are stored in pieces of this size: far below max_allowed_packet even hex-escaped (tests set it small). */
 const CHUNK_BYTES = Number(process.env.TAUFORGE_EXPORT_CHUNK_BYTES) > 0 ? Number(process.env.TAUFORGE_EXPORT_CHUNK_BYTES) : 4 * 1024 * 1024;
+
+interface PointResult {
+  idx: number;
+  rwp: number | null;
+  rp: number | null;
+  atoms: number | null;
+  error: string | null;
+}
 
 const parseJson = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v);
 const now = () => db().fn.now(3);
@@ -53,11 +62,16 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
   /** Which job row the thread works for now (a sweep's id while it runs one of its points). */
   let running: number | null = null;
   const measuredCache = new Map<number, string>();
+  /** Sweeps cancelled while this worker holds a batch of their points: the batch stops at its next point. */
+  const cancelled = new Set<number>();
 
   const sub = redis();
   await sub.subscribe(cancelChannel());
   sub.on('message', (_ch: string, msg: string) => {
-    if (running !== null && Number(msg) === running) thread.cancel();
+    const id = Number(msg);
+    if (cancelled.size > 1000) cancelled.clear();
+    cancelled.add(id);
+    if (running !== null && id === running) thread.cancel();
   });
 
   async function task<T>(id: number, kind: Exclude<JobKind, 'sweep'>, input: unknown, progress = true): Promise<T> {
@@ -144,7 +158,11 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
     return text;
   }
 
-  /** A sweep fans out: one record and one queued child job per grid point, both keyed by the point index. */
+  /**
+   * A sweep fans out: one record per grid point, keyed by the point index, and queued batches of points in
+   * guided sizes (batches.ts) — at most 8 points, ⌈R/(4P)⌉ for R points left and P live workers — so the
+   * queue and database round trips are paid per batch while the last batches are single points.
+   */
   async function runSweep(id: number, input: SweepJob) {
     const rev = await db()('revisions').where({ id: input.revision }).first('params');
     if (!rev) return failJob(id, 'not_found', 'The revision was deleted before the sweep ran.');
@@ -157,27 +175,36 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
       await db()('sweep_points').insert(rows).onConflict(['job_id', 'idx']).ignore();
     }
     await db()('jobs').where({ id }).update({ total, stage: `0 of ${total} points` });
-    const pending = await db()('sweep_points').where({ job_id: id }).whereNull('finished_at').pluck('idx');
-    // Re-adding a point that is still queued is a no-op: BullMQ keeps one job per id.
-    for (let s = 0; s < pending.length; s += 500) {
-      await queue().addBulk(pending.slice(s, s + 500).map((idx: number) => ({ name: 'point', data: { sweep: id, idx: Number(idx) }, opts: { jobId: pointId(id, Number(idx)), removeOnComplete: true, removeOnFail: 1000 } })));
+    const pending = (await db()('sweep_points').where({ job_id: id }).whereNull('finished_at').orderBy('idx').pluck('idx')).map(Number);
+    const live = await queue().getWorkersCount().catch(() => 1);
+    const batches = guidedBatches(pending, { workers: live, factor: 4, max: 8 });
+    // Re-adding a batch that is still queued is a no-op: BullMQ keeps one job per id, and the id names the
+    // batch's points. A resumed sweep may batch differently; a point in two batches is recorded once.
+    for (let s = 0; s < batches.length; s += 500) {
+      await queue().addBulk(batches.slice(s, s + 500).map((idx) => ({ name: 'points', data: { sweep: id, idx }, opts: { jobId: pointsId(id, idx), removeOnComplete: true, removeOnFail: 1000 } })));
     }
     await settle(id);
   }
 
   /**
-   * Record a point's outcome and count it on its sweep in one statement: the point row and the sweep's
-   * `done` change together or not at all (a worker killed in between cannot leave them apart), and only
-   * while the point is unfinished, so a retried point is never counted twice. Then close the sweep if this
-   * was its last point. Two statements per point, one write; no recount of the sweep's points.
+   * Record finished points and count them on their sweep in one transaction: the point rows and the sweep's
+   * `done` change together or not at all (a worker killed in between cannot leave them apart), and only points
+   * still unfinished count, so a retried point is never counted twice. Then close the sweep if these were its
+   * last points. One commit per batch.
    */
-  async function recordPoint(sweepId: number, idx: number, r: { rwp: number | null; rp: number | null; atoms: number | null; error: string | null }) {
-    await db().raw(
-      `UPDATE sweep_points p JOIN jobs j ON j.id = p.job_id
-          SET p.rwp = ?, p.rp = ?, p.atoms = ?, p.error = ?, p.runs = p.runs + 1, p.finished_at = CURRENT_TIMESTAMP(3), j.done = j.done + 1
-        WHERE p.job_id = ? AND p.idx = ? AND p.finished_at IS NULL`,
-      [r.rwp, r.rp, r.atoms, r.error, sweepId, idx],
-    );
+  async function recordPoints(sweepId: number, results: PointResult[]) {
+    if (results.length === 0) return;
+    await db().transaction(async (trx) => {
+      const rows = results.map(() => 'SELECT ? AS idx, ? AS rwp, ? AS rp, ? AS atoms, ? AS error').join(' UNION ALL ');
+      const [res] = await trx.raw(
+        `UPDATE sweep_points p JOIN (${rows}) v ON v.idx = p.idx
+            SET p.rwp = v.rwp, p.rp = v.rp, p.atoms = v.atoms, p.error = v.error, p.runs = p.runs + 1, p.finished_at = CURRENT_TIMESTAMP(3)
+          WHERE p.job_id = ? AND p.finished_at IS NULL`,
+        [...results.flatMap((r) => [r.idx, r.rwp, r.rp, r.atoms, r.error]), sweepId],
+      );
+      const n = Number((res as { affectedRows?: number }).affectedRows ?? 0);
+      if (n > 0) await trx('jobs').where({ id: sweepId }).increment('done', n);
+    });
     await settle(sweepId);
   }
 
@@ -200,42 +227,57 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
   /** Datasets the task thread holds parsed, for the thread generation `threadHas.gen`. */
   const threadHas = { gen: -1, datasets: new Set<number>() };
 
-  async function runPoint(data: { sweep: number; idx: number }) {
-    // One round trip: the sweep's state (a cancel shows here) and the point.
-    const p = await db()('sweep_points as p').join('jobs as j', 'j.id', 'p.job_id').where({ 'p.job_id': data.sweep, 'p.idx': data.idx }).first('j.state', 'p.params', 'p.finished_at');
-    if (!p || p.state !== 'running') return; // cancelled, failed or gone: nothing to do
-    if (p.finished_at) return settle(data.sweep);
-    let input = sweepInputs.get(data.sweep);
+  /** A batch of a sweep's points (legacy jobs carry one index): cut, pattern and R_wp each, recorded together. */
+  async function runPoints(data: { sweep: number; idx: number | number[] }) {
+    const sweep = Number(data.sweep);
+    const wanted = (Array.isArray(data.idx) ? data.idx : [data.idx]).map(Number);
+    // One round trip: the sweep's state (a cancel shows here) and the batch's points.
+    const rows = await db()('sweep_points as p').join('jobs as j', 'j.id', 'p.job_id').where({ 'p.job_id': sweep }).whereIn('p.idx', wanted).orderBy('p.idx').select('j.state', 'p.idx', 'p.params', 'p.finished_at');
+    if (rows.length === 0 || rows[0].state !== 'running') return; // cancelled, failed or gone: nothing to do
+    cancelled.delete(sweep);
+    let input = sweepInputs.get(sweep);
     if (!input) {
-      const s = await db()('jobs').where({ id: data.sweep }).first('input');
+      const s = await db()('jobs').where({ id: sweep }).first('input');
       if (!s) return;
       input = parseJson(s.input) as SweepJob;
       if (sweepInputs.size > 50) sweepInputs.clear();
-      sweepInputs.set(data.sweep, input);
+      sweepInputs.set(sweep, input);
     }
     const dataset = Number(input.dataset);
     const settings = settingsOf(input);
-    const params = parseJson(p.params);
-    // The measured pattern crosses to the thread once per thread; later points name the dataset only.
-    const run = async (send: boolean) =>
-      task<{ atoms: number; rwp: number; rp: number }>(data.sweep, 'point', { params, dataset, measured: send ? await measured(dataset) : undefined, settings }, false);
+    const results: PointResult[] = [];
     try {
-      let r;
-      try {
-        r = await run(!(threadHas.gen === thread.generation && threadHas.datasets.has(dataset)));
-      } catch (e) {
-        if (!(e instanceof TaskError && e.code === NEED_MEASURED)) throw e;
-        r = await run(true);
+      for (const row of rows) {
+        if (row.finished_at) continue;
+        if (cancelled.has(sweep)) return;
+        const params = parseJson(row.params);
+        // The measured pattern crosses to the thread once per thread; later points name the dataset only.
+        const run = async (send: boolean) =>
+          task<{ atoms: number; rwp: number; rp: number }>(sweep, 'point', { params, dataset, measured: send ? await measured(dataset) : undefined, settings }, false);
+        try {
+          let r;
+          try {
+            r = await run(!(threadHas.gen === thread.generation && threadHas.datasets.has(dataset)));
+          } catch (e) {
+            if (!(e instanceof TaskError && e.code === NEED_MEASURED)) throw e;
+            r = await run(true);
+          }
+          if (threadHas.gen !== thread.generation) threadHas.datasets = new Set();
+          threadHas.gen = thread.generation;
+          threadHas.datasets.add(dataset);
+          results.push({ idx: Number(row.idx), rwp: Number.isFinite(r.rwp) ? r.rwp : null, rp: Number.isFinite(r.rp) ? r.rp : null, atoms: r.atoms, error: Number.isFinite(r.rwp) ? null : 'R_wp is not defined for this point' });
+        } catch (e) {
+          if (e instanceof TaskError && e.code === 'cancelled') return;
+          if (!(e instanceof TaskError)) throw e;
+          results.push({ idx: Number(row.idx), rwp: null, rp: null, atoms: null, error: e.message.slice(0, 2000) });
+        }
       }
-      if (threadHas.gen !== thread.generation) threadHas.datasets = new Set();
-      threadHas.gen = thread.generation;
-      threadHas.datasets.add(dataset);
-      await recordPoint(data.sweep, data.idx, { rwp: Number.isFinite(r.rwp) ? r.rwp : null, rp: Number.isFinite(r.rp) ? r.rp : null, atoms: r.atoms, error: Number.isFinite(r.rwp) ? null : 'R_wp is not defined for this point' });
-    } catch (e) {
-      if (e instanceof TaskError && e.code === 'cancelled') return;
-      if (!(e instanceof TaskError)) throw e;
-      await recordPoint(data.sweep, data.idx, { rwp: null, rp: null, atoms: null, error: e.message.slice(0, 2000) });
+    } finally {
+      // Points done before an error of the worker's own code are kept (a cancelled sweep needs none).
+      if (!cancelled.has(sweep)) await recordPoints(sweep, results);
     }
+    // Every point of the batch was in already (a retried batch): the sweep may still need closing.
+    if (results.length === 0) await settle(sweep);
   }
 
   async function processTop(job: Job, token: string | undefined) {
@@ -288,7 +330,7 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
 
   const worker = new Worker(
     queueName(),
-    async (job, token) => (job.name === 'point' ? runPoint(job.data) : processTop(job, token)),
+    async (job, token) => (job.name === 'points' || job.name === 'point' ? runPoints(job.data) : processTop(job, token)),
     { connection: redis(), concurrency: 1, lockDuration: L.lockMs, stalledInterval: Math.max(1000, Math.floor(L.lockMs / 2)), maxStalledCount: 3 },
   );
   // Jobs that fail outside a task (the database went away, or the workers running it died three times).
@@ -296,8 +338,9 @@ export async function startWorker(threadFile: URL, o: { log?: (m: string) => voi
     if (!job) return;
     const stalled = /stalled/i.test(err.message);
     const msg = stalled ? 'The worker running this job stopped (crashed or was killed) several times; the job was given up.' : `The job failed on the worker: ${err.message}`;
-    if (job.name === 'point') {
-      void recordPoint(Number(job.data.sweep), Number(job.data.idx), { rwp: null, rp: null, atoms: null, error: msg }).catch(() => {});
+    if (job.name === 'points' || job.name === 'point') {
+      const idx: number[] = Array.isArray(job.data.idx) ? job.data.idx.map(Number) : [Number(job.data.idx)];
+      void recordPoints(Number(job.data.sweep), idx.map((i) => ({ idx: i, rwp: null, rp: null, atoms: null, error: msg }))).catch(() => {});
     } else void failJob(Number(job.data.jobId), stalled ? 'worker_lost' : 'worker_error', msg).catch(() => {});
   });
   worker.on('error', (e) => log(`queue error: ${e.message}`));
