@@ -243,6 +243,38 @@ describe('sweeps', () => {
   });
 });
 
+describe('sweep cancel', () => {
+  it('stops the batch a worker holds at once: no point of it is recorded and the worker takes the next job', async () => {
+    const w = await worker();
+    // A 1–2 s point: the 3/2 cell (576 atoms) with Mo Kα1 to 150°. With one live worker the first batch holds
+    // 8 of the 40 points, so a worker that finished its batch would stay busy for many seconds after the cancel.
+    const text = '2theta intensity\n' + Array.from({ length: 400 }, (_, i) => `${(10 + i * 0.25).toFixed(2)} ${1 + (i % 7)}`).join('\n') + '\n';
+    const [dataset] = await db()('datasets').insert({ project_id: p.id, kind: 'pattern', filename: 'flat.xy', format: 'two-column', bytes: Buffer.from(text), sha256: '2'.repeat(64), size: text.length, summary: '{}', uploaded_by: owner.id });
+    const aRs = Array.from({ length: 40 }, (_, i) => Number((4.5 + 0.005 * i).toFixed(3)));
+    const r = await startJob({ kind: 'sweep', revision: ico32, dataset: Number(dataset), axes: [{ path: 'aR', values: aRs }], ...POWDER, wavelength: 0.70932, twoThetaMax: 150, step: 0.02 });
+    expect(r.status).toBe(202);
+    const sweep = await r.json();
+    await until('the first batch running', async () => (await db()('jobs').where({ id: sweep.id }).first('total')).total === 40, 20_000);
+    await new Promise((res) => setTimeout(res, 300));
+    const c = await call(jobRoute, 'DELETE', `/api/jobs/${sweep.id}`, { params: { id: String(sweep.id) }, cookie: owner.cookie });
+    expect(c.status).toBe(200);
+    const doneAtCancel = Number((await getJob(sweep.id)).done);
+    const t0 = Date.now();
+    const nr = await startJob({ kind: 'export', revision: ico11, format: 'extxyz' });
+    expect(nr.status, await nr.clone().text()).toBe(202);
+    const next = await nr.json();
+    expect((await finished(next.id, 20_000)).state).toBe('done');
+    // The rest of an 8-point batch would take well over 8 s; the export ran right after the cancel.
+    expect(Date.now() - t0).toBeLessThan(8000);
+    const after = await getJob(sweep.id);
+    expect(after.state).toBe('cancelled');
+    expect(Number(after.done)).toBe(doneAtCancel);
+    const [{ n }] = await db()('sweep_points').where({ job_id: sweep.id }).whereNotNull('finished_at').count({ n: '*' });
+    expect(Number(n)).toBe(doneAtCancel);
+    await w.kill();
+  });
+});
+
 describe('index jobs', () => {
   async function storePattern(name: string, text: string): Promise<number> {
     const [id] = await db()('datasets').insert({ project_id: p.id, kind: 'pattern', filename: name, format: 'two-column', bytes: Buffer.from(text), sha256: '0'.repeat(64), size: text.length, summary: '{}', uploaded_by: owner.id });
