@@ -60,6 +60,7 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
   const seriesJob = useJob<'series'>('series');
   const { ok, error: invalid } = useValidation(params);
   const overCap = overCapReason(params, ok && estimate.result ? estimate.result.estimate : null);
+  const withClusters = 'decoration' in params && !!(params.decoration as { clusters?: unknown[] } | undefined)?.clusters?.length;
   const dirty = stable(params) !== stable(saved);
   const structure = cut.result?.structure ?? null;
   const summary = cut.result?.summary ?? null;
@@ -273,9 +274,12 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
           </div>
           <div className="border-t border-rule px-3 py-2">
             <div className="flex items-baseline justify-between text-xs">
-              <span className="text-ink-soft">Expected points</span>
+              {/* With clusters the estimate counts every cluster atom before shared atoms merge: an upper bound. */}
+              <span className="text-ink-soft" title={withClusters ? 'Every cluster atom counted before atoms that neighbouring clusters share are merged; the cut has fewer.' : undefined}>
+                {withClusters ? 'Atoms before merging, at most' : 'Expected points'}
+              </span>
               <span className="font-mono" data-testid="estimate">
-                {!ok ? '—' : estimate.result ? Math.round(estimate.result.estimate).toLocaleString('en-US') : '…'}
+                {!ok ? '—' : estimate.result ? `${withClusters ? '≤ ' : ''}${Math.round(estimate.result.estimate).toLocaleString('en-US')}` : '…'}
               </span>
             </div>
             {invalid ? <p className="text-xs text-clay">{invalid.issues.length === 1 ? '1 field needs attention' : `${invalid.issues.length} fields need attention`}</p> : <p className="text-xs text-transparent">.</p>}
