@@ -4,7 +4,6 @@
 Published structure, read (not recalled) from COD entry 2007194:
   Sugiyama, Kaji & Hiraga, "Re-refinement of α-(AlMnSi)", Acta Cryst. C54 (1998) 445-447,
   doi:10.1107/S0108270197015989. Pm-3 (No. 200), a = 12.6430(10) Å, Z = 24 of Al4Mn1.01Si0.74, 138 sites.
-  (File seen as sample_data/phases/alpha-AlMnSi.cif of the public repository SeSam-MUL/Orienta, a copy of COD 2007194.)
 
 Usage: /usr/bin/python3 scripts/checks/alpha_almnsi.py [tauforge.cif]
   Without an argument: the published cell only (space group, count, shells about both cluster centres).
