@@ -6,7 +6,7 @@
  */
 import { CLUSTER_PRESET_NAMES, type DecorationParams } from '@/lib/models/icosahedral/decoration-schema';
 import { presetDecoration } from '@/lib/models/icosahedral/decorate';
-import { CLUSTER_PRESETS, clusterSize, type ClusterTemplate } from '@/lib/models/icosahedral/clusters';
+import { CLUSTER_PRESETS, clusterSize, type ClusterTemplate, type PresetPosition } from '@/lib/models/icosahedral/clusters';
 import { symbolOf as elementSymbol } from '@/lib/structure/elements';
 import type { Params } from './families';
 
@@ -77,6 +77,15 @@ function windowWords(scale: number): string {
 }
 
 const POSITION: Record<string, string> = { node: 'node', body: 'body centre' };
+const SUBSCRIPT = '₀₁₂₃₄₅₆₇₈₉';
+
+/** A preset class's 6D position in words: node, body centre, ½(1,…,1) − ½eₖ, or the six numbers. */
+function positionWords(p: PresetPosition): string {
+  if (typeof p === 'string') return POSITION[p] ?? p;
+  const zero = p.findIndex((x) => x === 0);
+  if (p.filter((x) => x === 0).length === 1 && p.every((x, i) => i === zero || x === 0.5)) return `½(1,…,1) − ½e${SUBSCRIPT[zero + 1]}`;
+  return `(${p.join(', ')})`;
+}
 
 export function presetPlan(params: Params, preset: PresetName): PresetPlan {
   const t = CLUSTER_PRESETS[preset];
@@ -85,8 +94,8 @@ export function presetPlan(params: Params, preset: PresetName): PresetPlan {
   const existing = Array.isArray(deco?.classes) ? deco.classes : [];
   return {
     classes: [
-      `“${site.name}”: cluster centres, ${POSITION[site.position] ?? site.position}, ${windowWords(site.windowScale)}`,
-      ...(t.companions ?? []).map((c) => `“${c.name}”: ${c.species}, ${POSITION[c.position] ?? c.position}, ${windowWords(c.windowScale)}`),
+      `“${site.name}”: cluster centres, ${positionWords(site.position)}, ${windowWords(site.windowScale)}`,
+      ...(t.companions ?? []).map((c) => `“${c.name}”: ${c.species}, ${positionWords(c.position)}, ${windowWords(c.windowScale)}`),
     ],
     cluster: `${t.name}, ${clusterSize(t)} atoms: ${t.shells.map((s) => `${s.name} (${shellSpecies(s)})`).join(', ')}`,
     aR: { suggested: presetAR(preset), current: typeof params.aR === 'number' ? params.aR : undefined },

@@ -36,10 +36,13 @@ export interface ClusterTemplate {
   companions?: PresetCompanion[];
 }
 
+/** A 6D position in the hyperlattice cell: a named site or six fractional coordinates in [0, 1). */
+export type PresetPosition = 'node' | 'body' | readonly [number, number, number, number, number, number];
+
 /** A site class offered with a preset: atoms the published phase has between its clusters. */
 export interface PresetCompanion {
   name: string;
-  position: 'node' | 'body';
+  position: PresetPosition;
   /** Window: the canonical (triacontahedral) occupation domain scaled by this factor. */
   windowScale: number;
   /** Element symbol. */
@@ -52,6 +55,13 @@ const TAU = (1 + Math.sqrt(5)) / 2;
 /** Quasilattice constant a_R of a 1/1 cubic approximant of lattice constant a: a = 2(τ + 1)·a_R/√(2 + τ) (Elser & Henley 1985). */
 export function aROf11(a: number): number {
   return (a * Math.sqrt(2 + TAU)) / (2 * (TAU + 1));
+}
+
+/** The 6D position ½(1,…,1) − ½e_(k+1), i.e. ½ in every coordinate but the k-th (0-based), which is 0. */
+function bodyMinusHalfEdge(k: number): PresetPosition {
+  const p: [number, number, number, number, number, number] = [0.5, 0.5, 0.5, 0.5, 0.5, 0.5];
+  p[k] = 0;
+  return p;
 }
 
 /** The crystal a preset is modelled on: its cubic 1/1 approximant, for the density check and the preset's scale. */
@@ -87,38 +97,42 @@ export interface PresetSite {
 export const CLUSTER_CENTRE_SITE: PresetSite = { name: 'cluster centre', position: 'node', windowScale: 1 / (TAU * TAU) };
 
 /**
- * Mackay-type cluster as in α-(Al,Mn)Si (cP138, Pm-3, a = 12.68 Å): an Al icosahedron, an Al
- * icosidodecahedron and a Mn icosahedron capping its pentagons at about the same radius (54 atoms,
- * centre empty). Cooper & Robinson, Acta Cryst. 20 (1966) 614 (structure of α-AlMnSi); Elser & Henley,
- * Phys. Rev. Lett. 55 (1985) 2883 (the cluster as the building unit of the icosahedral phase; Mackay
- * clusters on the bcc sites of the 1/1, quasilattice constant a_R = a/2.7528 = 4.61 Å); Sugiyama et al.
- * (1998) for the shells of the α-phase (the Mn icosahedron about as wide as the icosidodecahedron).
- * Radii from memory: inner Al icosahedron 2.45 Å, Al icosidodecahedron 4.5 Å, Mn icosahedron 4.8 Å, chosen so
- * every contact is at least 0.85 of the CN-12 metallic-radius sum (the published inner shell is partly
- * occupied and slightly larger).
+ * Mackay-type cluster as in α-(Al,Mn)Si (cP138, Pm-3): an Al icosahedron, an Al icosidodecahedron and a Mn
+ * icosahedron capping its pentagons at about the same radius (54 atoms, centre empty). Cooper & Robinson, Acta
+ * Cryst. 20 (1966) 614 (structure of α-AlMnSi, a = 12.68 Å — from memory); Elser & Henley, Phys. Rev. Lett. 55
+ * (1985) 2883 (the cluster as the building unit of the icosahedral phase; Mackay clusters on the bcc sites of
+ * the 1/1, quasilattice constant a_R = a/2.7528 = 4.61 Å). Radii from memory: inner Al icosahedron 2.45 Å, Al
+ * icosidodecahedron 4.5 Å, Mn icosahedron 4.8 Å, chosen so every contact is at least 0.85 of the CN-12
+ * metallic-radius sum. Measured in the published structure (Sugiyama, Kaji & Hiraga, Acta Cryst. C54 (1998) 445,
+ * COD 2007194: Pm-3, a = 12.643 Å, 138 atoms; scripts/checks/alpha_almnsi.py): 2.45 / 4.65–4.71 / 4.82 Å about
+ * the origin, 2.43 / 4.72–4.75 / 4.73 Å about the body centre; our 1/1 atoms lie 0.02–0.26 Å from those sites.
  *
- * Atom count of the α-phase (138 per cell, from memory) = 2 Mackay clusters (2 × 54 = 108: the clusters at the
- * origin and the body centre are 10.98 Å apart and share no atom) + 30 "glue" atoms. The glue lies in the outer
- * shells of the double-Mackay cluster around the origin only — a complex Al shell and an icosahedral Al/Si shell
- * (Steurer & Deloudi, Acta Cryst. A64 (2008) 1, Fig. 4, after Sugiyama et al. 1998). A cluster preset alone
- * therefore gives 108 atoms (−22 % in density), whatever its radii: the shortfall is glue, not shell geometry.
- * The preset's companion class adds the glue the cut itself provides (MACKAY_GLUE); the rest of the published
- * glue has no place left between these clusters (tests/unit/models/icosahedral/presets.test.ts measures the
- * largest hole) and is not modelled.
+ * Atom count of the published phase: 138 = 2 Mackay clusters (2 × 54 = 108: the clusters at the origin and the
+ * body centre are 10.95 Å apart and share no atom) + 30 glue atoms: Al6 (12j) and Al7 (12k), three on each of
+ * the 8 three-fold linkages per cell (6.6–6.8 Å from both cluster centres, 3.9 Å off the axis that joins them),
+ * and Si3 (6f, 7.3 Å from the origin cluster). The published cell is body-centred to within 0.13 Å except there:
+ * Al6 and Al7 are each other's body-centred image to 0.62 Å, and Si3 has no image (it would sit 1.96 Å from Al7).
+ * The preset's companions (MACKAY_GLUE) are the six 6D positions ½(1,…,1) − ½e_k with the window scaled by 1/τ²:
+ * in the 1/1 their points are exactly the 24 Al6/Al7 sites, 0.18 and 0.48 Å from the published ones — 132 of the
+ * 138 atoms (density 4–5 % low). Si3 is not modelled: an Im-3 cut would bring it with a body-centred copy where
+ * the published phase has no atom, and in our cut (Al6 and Al7 on one averaged orbit) both copies would sit 2.3 Å
+ * from the glue (the published Si3 has Al6 and Al7 at 2.56 Å). The window is the smallest of the 1/τⁿ family
+ * that holds the 1/1 glue (1/τ holds the same 24 there); in the 2/1 it keeps 24 glue atoms, all on three-fold
+ * linkages like the published ones (density 0.78 of the α-phase's) — there is no published 2/1 to compare with.
  */
-const MACKAY_GLUE: PresetCompanion = {
-  name: 'glue',
-  position: 'body',
-  windowScale: 1 / TAU,
+const MACKAY_GLUE: PresetCompanion[] = [0, 1, 2, 3, 4, 5].map((k) => ({
+  name: `glue ${k + 1}`,
+  position: bodyMinusHalfEdge(k),
+  windowScale: 1 / (TAU * TAU),
   species: 'Al',
   note:
-    'Al on the 6D body-centre site, canonical window scaled by 1/τ: in the 1/1 the 12 vertices per cell of the rhombic faces that neighbouring cluster triacontahedra share along the cube axes (6.79 and 7.45 Å from the centres), with no contact below 0.8 of the metallic-radius sum. 12 of the α-phase’s 30 glue atoms per cell: the model has 120 of its 138 atoms (density 13 % low); the double-Mackay outer shells are not modelled.',
-};
+    `Al at the 6D position ½(1,…,1) − ½e${k + 1}, canonical window scaled by 1/τ² (one of six such classes): in the 1/1 the glue of α-(AlMnSi) (Sugiyama, Kaji & Hiraga, Acta Cryst. C54 (1998) 445): Al6 and Al7, three on each three-fold linkage between neighbouring clusters, 6.6–6.8 Å from both centres. The six classes give 24 of the α-phase’s 30 glue atoms per cell (132 of its 138 atoms, density 4–5 % low); Si3 (6 per cell, round the origin cluster only) has no place in a body-centred cut.`,
+}));
 
 export const MACKAY: ClusterTemplate = {
   name: 'Mackay',
   reference:
-    'Cooper & Robinson, Acta Cryst. 20 (1966) 614; Elser & Henley, PRL 55 (1985) 2883. Radii from memory, approximate; cut with a_R ≈ 4.61 Å (α-AlMnSi, a = 12.68 Å).',
+    'Cooper & Robinson, Acta Cryst. 20 (1966) 614; Elser & Henley, PRL 55 (1985) 2883. Radii from memory, approximate (in the 1/1, 0.02–0.26 Å from the published sites of Sugiyama, Kaji & Hiraga, Acta Cryst. C54 (1998) 445, COD 2007194, which also give the glue); cut with a_R ≈ 4.61 Å (α-AlMnSi, a = 12.68 Å).',
   shells: [
     { name: 'inner icosahedron', polyhedron: 'icosahedron', radius: 2.45, species: 13 },
     { name: 'icosidodecahedron', polyhedron: 'icosidodecahedron', radius: 4.5, species: 13 },
@@ -127,7 +141,7 @@ export const MACKAY: ClusterTemplate = {
   site: CLUSTER_CENTRE_SITE,
   aR: aROf11(12.68),
   phase: { name: 'α-AlMnSi (cP138)', a: 12.68, atomsPerCell: 138, source: 'Cooper & Robinson, Acta Cryst. 20 (1966) 614 — from memory' },
-  companions: [MACKAY_GLUE],
+  companions: MACKAY_GLUE,
 };
 
 /**

@@ -101,7 +101,12 @@ export function presetDecoration(preset: ClusterPlacementParams['preset'] & stri
   return {
     classes: [
       { name: site.name, position: site.position, window: { kind: 'hypercube', scale: site.windowScale } },
-      ...(t.companions ?? []).map((c) => ({ name: c.name, position: c.position, window: { kind: 'hypercube' as const, scale: c.windowScale }, species: c.species })),
+      ...(t.companions ?? []).map((c) => ({
+        name: c.name,
+        position: typeof c.position === 'string' ? c.position : ([...c.position] as [number, number, number, number, number, number]),
+        window: { kind: 'hypercube' as const, scale: c.windowScale },
+        species: c.species,
+      })),
     ],
     clusters: [{ at: site.name, preset }],
     mergeTolerance: DEFAULT_MERGE_TOLERANCE,

@@ -35,7 +35,13 @@ describe('putting a preset on its site in the form', () => {
     expect(p.decoration).toEqual({
       classes: [
         { name: 'cluster centre', position: 'node', window: { kind: 'hypercube', scale: 0.381966 } },
-        { name: 'glue', position: 'body', window: { kind: 'hypercube', scale: 0.618034 }, species: 'Al' },
+        // The six glue classes at ½(1,…,1) − ½e_k (clusters.ts: the Al6/Al7 glue of α-(AlMnSi), Sugiyama et al. 1998).
+        ...[0, 1, 2, 3, 4, 5].map((k) => ({
+          name: `glue ${k + 1}`,
+          position: [0, 1, 2, 3, 4, 5].map((i) => (i === k ? 0 : 0.5)),
+          window: { kind: 'hypercube', scale: 0.381966 },
+          species: 'Al',
+        })),
       ],
       clusters: [{ at: 'cluster centre', preset: 'mackay', species: ['Al', 'Al', 'Mn'] }],
       mergeTolerance: 0.9,
@@ -53,7 +59,7 @@ describe('putting a preset on its site in the form', () => {
   });
 
   it('the form’s six-decimal window scalings and spelt-out species cut the same atoms as the exact preset decoration (1/1, 2/1, 3/2)', () => {
-    expect(presetFormDecoration('mackay').classes.map((c) => (c.window.kind === 'hypercube' ? c.window.scale : 0))).toEqual([0.381966, 0.618034]);
+    expect(presetFormDecoration('mackay').classes.map((c) => (c.window.kind === 'hypercube' ? c.window.scale : 0))).toEqual(Array(7).fill(0.381966));
     for (const name of ['mackay', 'bergman', 'tsai'] as const)
       for (const order of ['1/1', '2/1', '3/2']) {
         const base = { family: 'icosahedral', mode: 'approximant', order, aR: presetAR(name) } as const;
@@ -66,8 +72,10 @@ describe('putting a preset on its site in the form', () => {
 
   it('says what it brings and what it replaces before it is pressed', () => {
     const plan = presetPlan(start, 'mackay');
-    expect(plan.classes).toHaveLength(2);
-    expect(plan.classes[1]).toBe('“glue”: Al, body centre, triacontahedral window × 1/τ ≈ 0.618');
+    expect(plan.classes).toHaveLength(7);
+    expect(plan.classes[0]).toBe('“cluster centre”: cluster centres, node, triacontahedral window × 1/τ² ≈ 0.382');
+    expect(plan.classes[1]).toBe('“glue 1”: Al, ½(1,…,1) − ½e₁, triacontahedral window × 1/τ² ≈ 0.382');
+    expect(plan.classes[6]).toBe('“glue 6”: Al, ½(1,…,1) − ½e₆, triacontahedral window × 1/τ² ≈ 0.382');
     expect(plan.cluster).toMatch(/^Mackay, 54 atoms: .*Mn icosahedron \(Mn\)$/);
     expect(plan.replaces).toEqual({ classes: ['vertex', 'mine'], clusters: 1 });
     expect(plan.aR).toEqual({ suggested: 4.606, current: 4.6 });

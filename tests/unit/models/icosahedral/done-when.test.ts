@@ -9,7 +9,8 @@
  *  - no pair closer than 0.8 × the sum of CN-12 metallic radii, with the radii taken from pymatgen's
  *    Element.metallic_radius and the distances from ASE's neighbour list (minimum image) — the Check step's rule;
  *  - a plausible density: atoms per Å³ within 10 % of the published phase the preset is modelled on (named
- *    below, values from memory) — except the Mackay preset, whose known shortfall is asserted as measured — and
+ *    below, values from memory) — except the Mackay 2/1, which has no published counterpart and is asserted as
+ *    measured — and
  *    the Check step's band of 80–120 % of the Zen's-law close-packed ideal (report.ts, common practice);
  *  - a VASP POSCAR and a LAMMPS data file that ASE reads (format 'vasp'; 'lammps-data', atomic style) with our atom
  *    count, the cubic cell and the composition.
@@ -185,10 +186,11 @@ describe('issue #10 "Done when": each preset on its site in the 1/1 and the 2/1,
 
     // Density against the published phase, and the Check step's Zen band (80–120 % of the ideal).
     const ratio = n / a ** 3 / (PUBLISHED[preset].atoms / PUBLISHED[preset].a ** 3);
-    if (preset === 'mackay') {
-      // Known shortfall (clusters.ts, MACKAY_GLUE): 12 of the α-phase's 30 glue atoms per 1/1 cell are modelled,
-      // so the 1/1 is 13 % and the 2/1 21 % below the α-phase's density. Asserted as measured so a change shows.
-      expect(ratio).toBeCloseTo(order === '1/1' ? 120 / 138 : 0.793, 2);
+    if (preset === 'mackay' && order === '2/1') {
+      // No published 2/1 to compare with (clusters.ts, MACKAY_GLUE): the glue window that gives the 1/1 the 24
+      // Al6/Al7 glue atoms of α-(AlMnSi) (Sugiyama, Kaji & Hiraga 1998) keeps 24 in the 2/1's 8 clusters, 22 %
+      // below the α-phase's density. Asserted as measured so a change shows.
+      expect(ratio).toBeCloseTo(0.78, 2);
     } else {
       expect(Math.abs(ratio - 1)).toBeLessThan(0.1);
     }
