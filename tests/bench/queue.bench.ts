@@ -2,7 +2,9 @@
  * Queue benchmark (issue #12), on a throwaway MariaDB and Redis of its own:
  *  1. sweep throughput with 1 and with 2 worker processes (goal: ≥ 1.8× with 2 on a 2-core machine), on a
  *     sweep with real work per point: 120 decorated 2/1 approximants (168 atoms each), powder pattern 10–120°
- *     in 0.02° steps (5 500 points) compared with a measured pattern (R_wp); ~0.2 s of CPU per point;
+ *     in 0.02° steps (5 500 points) compared with a measured pattern (R_wp); ~45 ms of CPU per point; and beside
+ *     it the machine's own ceiling for that work: the same points in the built task thread in 1 and 2 plain
+ *     processes, no queue (point-loop.mjs);
  *  2. GET /api/projects p50/p99 with 50 concurrent clients, alone and while two heavy jobs run
  *     (goal: p99 up by at most 20 %);
  *  3. GET /api/health p99 while a hostile CIF (3 000 symmetry operations, ~53 KB) is uploaded and parsed
@@ -11,7 +13,7 @@
  * workers are the built worker (dist/worker). Figures depend on what else the machine runs.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdirSync, readFileSync, rmSync } from 'node:fs';
+import { mkdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg as osLoad } from 'node:os';
 import { join } from 'node:path';
 
@@ -115,13 +117,14 @@ export default async function queueBench(): Promise<void> {
     const e: NodeJS.ProcessEnv = { ...process.env, ...services.dbEnv(db), REDIS_URL: redis.url, TAUFORGE_JOBS_MAX_RUNNING: '4', TAUFORGE_JOBS_MAX_QUEUED: '50' };
     Object.assign(process.env, e);
     services.migrate(e, { seed: false });
-    const { main } = await buildWorker();
+    const { main, thread } = await buildWorker();
 
     const { db: knex, closeDb } = await import('../../lib/server/db');
     const { createToken } = await import('../../lib/server/tokens');
     const { generate } = await import('../../lib/models');
     const { runJob } = await import('../../lib/worker/engine');
     const { closeQueue } = await import('../../lib/server/queue/connection');
+    const { gridPoint } = await import('../../lib/server/queue/grid');
     cleanups.push(async () => {
       await closeQueue();
       await closeDb();
@@ -222,10 +225,38 @@ export default async function queueBench(): Promise<void> {
       rate.push(POINTS / Math.min(...secs));
       medianRate.push(POINTS / [...secs].sort((a, b) => a - b)[1]);
     }
-    console.log(`sweep speed-up with 2 workers: best runs ${(rate[1] / rate[0]).toFixed(2)}×, median runs ${(medianRate[1] / medianRate[0]).toFixed(2)}× (goal ≥ 1.8× on 2 free cores; load now ${loadavg()})`);
+    const queueBest = rate[1] / rate[0];
+    console.log(`sweep speed-up with 2 workers: best runs ${queueBest.toFixed(2)}×, median runs ${(medianRate[1] / medianRate[0]).toFixed(2)}× (goal ≥ 1.8× on 2 free cores; load now ${loadavg()})`);
+
+    // 1b. The machine's ceiling for this work: the same 120 points in the worker's built task thread, in plain
+    // processes with no queue, Redis or database (point-loop.mjs) — one alone, then two at once. Workers stopped.
+    for (const w of workers.splice(0)) await stop(w);
+    const loopInput = join(dir, 'points.json');
+    writeFileSync(loopInput, JSON.stringify({
+      warm: [4.5, 4.55, 4.6, 4.65, 4.7, 4.75].map((a) => ({ ...DECORATED(), aR: a })),
+      points: Array.from({ length: POINTS }, (_, i) => gridPoint(DECORATED(), grid(3e-4), i)),
+      settings: SWEEP_POWDER,
+      measured: dtext,
+    }));
+    const loop = () =>
+      new Promise<number>((resolve, reject) => {
+        const c = spawn(process.execPath, [join(__dirname, 'point-loop.mjs'), thread, loopInput], { cwd: root, stdio: ['ignore', 'pipe', 'inherit'] });
+        let out = '';
+        c.stdout!.on('data', (b: Buffer) => (out += b.toString()));
+        c.once('exit', (code) => (code === 0 ? resolve(JSON.parse(out).seconds) : reject(new Error(`point-loop exited ${code}`))));
+      });
+    const plain: number[][] = [[], []];
+    for (let rep = 0; rep < 3; rep++) {
+      plain[0].push(POINTS / (await loop()));
+      const both = await Promise.all([loop(), loop()]);
+      plain[1].push((2 * POINTS) / Math.max(...both));
+    }
+    const best = (xs: number[]) => Math.max(...xs);
+    const ceiling = best(plain[1]) / best(plain[0]);
+    console.log(`no queue (task thread in plain processes), 1 process: ${plain[0].map((x) => x.toFixed(2)).join(' / ')} points/s; 2 processes at once: ${plain[1].map((x) => x.toFixed(2)).join(' / ')} points/s`);
+    console.log(`machine ceiling for this work, 2 processes vs 1 (best runs): ${ceiling.toFixed(2)}×; the queue reaches ${queueBest.toFixed(2)}× = ${((100 * queueBest) / ceiling).toFixed(0)} % of it`);
 
     // Section 2 runs with workers as production starts them (nice 10).
-    for (const w of workers.splice(0)) await stop(w);
     for (let k = 0; k < 2; k++) await addWorker();
 
     // 2. GET /api/projects with 50 clients, alone and while two heavy jobs run on the workers.
