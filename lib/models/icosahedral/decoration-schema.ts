@@ -128,7 +128,7 @@ export const clusterPlacementSchema = z
         title: 'Cluster preset',
         optionLabels: PRESET_WORDS,
         description:
-          'Each preset is meant for a site class of cluster centres — position node, the triacontahedral window scaled by 1/τ² ≈ 0.382, which keeps the vertices with all twelve five-fold neighbours (2 per 1/1 cell, 8 per 2/1) — cut with the a_R in its name. The Mackay preset goes with a glue class: Al, position body centre, triacontahedral window scaled by 1/τ ≈ 0.618 (12 of the α-phase’s 30 glue atoms per 1/1 cell, so its density stays 13 % low). The model panel’s “Decorate with a cluster preset” and the command line’s --preset add both classes. Species per shell below replaces its usual species.',
+          'Each preset is meant for a site class of cluster centres — position node, the triacontahedral window scaled by 1/τ² ≈ 0.382, which keeps the vertices with all twelve five-fold neighbours (2 per 1/1 cell, 8 per 2/1) — cut with the a_R in its name. The Mackay preset goes with six glue classes: Al at the 6D positions ½(1,…,1) − ½eₖ, triacontahedral window scaled by 1/τ² (in the 1/1 the 24 Al glue atoms of α-AlMnSi: 132 of its 138 atoms per cell; its 6 Si glue atoms, round one of the two clusters only, are not modelled). The model panel’s “Decorate with a cluster preset” and the command line’s --preset add both classes. Species per shell below replaces its usual species.',
       })
       .optional(),
     shells: z.array(clusterShellSchema).min(1).max(12).meta({ title: 'Shells of one’s own' }).optional(),
