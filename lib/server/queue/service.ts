@@ -57,7 +57,7 @@ export function jobInfo(r: any): JobInfo {
       error = { code: 'failed', message: String(r.error), details: null };
     }
   }
-  // A running sweep's progress is its count of finished points (kept by the workers, one write per point).
+  // A running sweep's progress is its count of finished points (kept by the workers, one commit per batch of points).
   const sweeping = r.kind === 'sweep' && r.state === 'running' && r.total != null && Number(r.total) > 0;
   return {
     id: Number(r.id),
