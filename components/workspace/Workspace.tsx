@@ -274,12 +274,16 @@ export function Workspace({ project, initialParams, head: initialHead = null, da
           </div>
           <div className="border-t border-rule px-3 py-2">
             <div className="flex items-baseline justify-between text-xs">
-              {/* With clusters the estimate counts every cluster atom before shared atoms merge: an upper bound. */}
-              <span className="text-ink-soft" title={withClusters ? 'Every cluster atom counted before atoms that neighbouring clusters share are merged; the cut has fewer.' : undefined}>
-                {withClusters ? 'Atoms before merging, at most' : 'Expected points'}
+              {/* With clusters the estimate is each class's density times the volume, every cluster atom counted
+                  before shared atoms merge: in a small cell it can be well off either way (the cut counts exactly). */}
+              <span
+                className="text-ink-soft"
+                title={withClusters ? 'Each site class’s density times the volume, and every cluster atom counted before atoms that neighbouring clusters share are merged. In a small cell this can be well off either way; the cut gives the exact count.' : undefined}
+              >
+                {withClusters ? 'Atoms, rough estimate before merging' : 'Expected points'}
               </span>
               <span className="font-mono" data-testid="estimate">
-                {!ok ? '—' : estimate.result ? `${withClusters ? '≤ ' : ''}${Math.round(estimate.result.estimate).toLocaleString('en-US')}` : '…'}
+                {!ok ? '—' : estimate.result ? `${withClusters ? '≈ ' : ''}${Math.round(estimate.result.estimate).toLocaleString('en-US')}` : '…'}
               </span>
             </div>
             {invalid ? <p className="text-xs text-clay">{invalid.issues.length === 1 ? '1 field needs attention' : `${invalid.issues.length} fields need attention`}</p> : <p className="text-xs text-transparent">.</p>}
